@@ -1,0 +1,22 @@
+# Every dependency comes from a Debian 12 package; .ci/install-deps installs them.
+find_package(SUNDIALS 6.4 REQUIRED COMPONENTS idas nvecserial sunmatrixband sunlinsolband)
+find_package(Eigen3 3.4 REQUIRED NO_MODULE)
+find_package(HDF5 1.10 REQUIRED COMPONENTS C HL)
+find_package(CLI11 REQUIRED)
+find_package(tomlplusplus REQUIRED)
+find_package(fmt REQUIRED)
+find_package(date REQUIRED)
+find_package(GTest REQUIRED)
+find_package(Threads REQUIRED)
+if(WETFRONT_BENCH)
+  find_package(benchmark REQUIRED)
+endif()
+include(GoogleTest)
+
+# One imported target for HDF5 (C and high-level libraries), whatever FindHDF5 provides.
+if(NOT TARGET wetfront_hdf5)
+  add_library(wetfront_hdf5 INTERFACE)
+  target_include_directories(wetfront_hdf5 SYSTEM INTERFACE ${HDF5_INCLUDE_DIRS})
+  target_link_libraries(wetfront_hdf5 INTERFACE ${HDF5_HL_LIBRARIES} ${HDF5_C_LIBRARIES} ${HDF5_LIBRARIES})
+  target_compile_definitions(wetfront_hdf5 INTERFACE ${HDF5_DEFINITIONS})
+endif()
