@@ -1,0 +1,99 @@
+// Everything that defines one run of the Richards equation on a vertical column.
+//
+// Units: cm and days. Depth d is positive downward; fluxes are positive downward
+// (infiltration and drainage positive, evaporation and capillary rise negative).
+#pragma once
+
+#include <memory>
+#include <span>
+#include <variant>
+#include <vector>
+
+#include "wetfront/soils/layers.hpp"
+#include "wetfront/solver/grid.hpp"
+#include "wetfront/solver/step_series.hpp"
+
+namespace wetfront::solver {
+
+// Top boundary, one of:
+struct PrescribedFlux {
+  StepSeries flux_cm_per_d;  // positive downward
+};
+struct PrescribedHead {
+  StepSeries head_cm;        // pressure head at the soil surface
+};
+// Atmospheric surface: the flux is water_input - potential_evaporation while the soil can
+// take or supply it. When the surface saturates, water is held on the surface up to
+// max_ponded_depth_cm and the rest runs off; when it dries to dry_limit_head_cm the surface is
+// held at that head. Switches are events located in time.
+struct LimitedFlux {
+  StepSeries water_input_cm_per_d;            // rain + irrigation, >= 0
+  StepSeries potential_evaporation_cm_per_d;  // >= 0
+  double dry_limit_head_cm = -15000.0;
+  double max_ponded_depth_cm = 0.0;
+};
+using TopBoundary = std::variant<PrescribedFlux, PrescribedHead, LimitedFlux>;
+
+// Bottom boundary, one of:
+struct FreeDrainage {};        // unit gradient: q = K(h) downward
+struct FixedHead {             // water table or a fixed head at the column bottom
+  double head_cm = 0.0;
+};
+struct ZeroFlux {};
+struct SeepageFace {};         // outflow at h = 0 when the bottom saturates, no flow otherwise
+using BottomBoundary = std::variant<FreeDrainage, FixedHead, ZeroFlux, SeepageFace>;
+
+// Initial condition, one of:
+struct Hydrostatic {
+  double water_table_depth_cm = 0.0;  // h(d) = d - water_table_depth
+};
+struct UniformHead {
+  double head_cm = 0.0;
+};
+struct HeadTable {                    // linear interpolation, constant beyond the ends
+  std::vector<double> depth_cm;
+  std::vector<double> head_cm;
+};
+using InitialCondition = std::variant<Hydrostatic, UniformHead, HeadTable>;
+
+// Water taken out of cells (root uptake): a volumetric rate per cell, 1/d.
+class CellSink {
+ public:
+  virtual ~CellSink() = default;
+  // rate_per_day[i] >= 0 is the volume removed per unit cell volume per day from cell i, at
+  // time t with heads head_cm; rate_slope[i] = d rate_per_day[i] / d head_cm[i].
+  virtual void evaluate(double t_days, std::span<const double> cell_depths_cm, std::span<const double> head_cm,
+                        std::span<double> rate_per_day, std::span<double> rate_slope) const = 0;
+  // Times at which the sink changes abruptly (the integrator stops there).
+  virtual std::vector<double> breakpoints_days() const { return {}; }
+};
+
+// How the conductivity on a face between two cells is formed from the cell values.
+enum class FaceConductivity { arithmetic, geometric, harmonic };
+
+struct SolverSettings {
+  double relative_tolerance = 1e-6;
+  double absolute_tolerance_storage_cm = 1e-7;   // per cell stored water
+  double absolute_tolerance_head_cm = 1e-4;
+  double max_step_days = 1.0;
+  double initial_step_days = 1e-5;
+  long max_steps_per_output = 200000;
+};
+
+struct ColumnProblem {
+  soils::LayeredProfile soil;
+  Grid grid;
+  TopBoundary top = PrescribedFlux{StepSeries::constant(0.0)};
+  BottomBoundary bottom = FreeDrainage{};
+  InitialCondition initial = UniformHead{-100.0};
+  std::shared_ptr<const CellSink> sink;       // optional
+  std::vector<double> flux_plane_depths_cm;   // each on a grid face; cumulative flux recorded
+  double specific_storage_per_cm = 1e-5;      // Ss, keeps saturated cells well posed
+  FaceConductivity face_conductivity = FaceConductivity::arithmetic;
+  double start_day = 0.0;
+  double end_day = 1.0;
+  std::vector<double> output_days;            // increasing, within [start_day, end_day]
+  SolverSettings settings;
+};
+
+}  // namespace wetfront::solver
