@@ -7,6 +7,13 @@
 #include "model_formulas.hpp"
 
 namespace wetfront::soils {
+namespace {
+// theta = theta_r + (theta_s - theta_r) Se, exactly theta_s at saturation (the sum can be
+// one ulp off theta_s in floating point).
+double water_content_from_saturation(double theta_r, double theta_s, double se) {
+  return se >= 1.0 ? theta_s : theta_r + (theta_s - theta_r) * se;
+}
+}  // namespace
 
 double effective_saturation(const HydraulicModel& model, double h) {
   return std::visit([h](const auto& m) { return detail::saturation(m, h).saturation; }, model);
@@ -15,7 +22,7 @@ double effective_saturation(const HydraulicModel& model, double h) {
 double water_content(const HydraulicModel& model, double h) {
   return std::visit(
       [h](const auto& m) {
-        return detail::theta_r(m) + (detail::theta_s(m) - detail::theta_r(m)) * detail::saturation(m, h).saturation;
+        return water_content_from_saturation(detail::theta_r(m), detail::theta_s(m), detail::saturation(m, h).saturation);
       },
       model);
 }
@@ -67,8 +74,8 @@ HydraulicState evaluate(const HydraulicModel& model, double h) {
         const auto s = detail::saturation(m, h);
         const auto k = detail::conductivity(m, h);
         const double range = detail::theta_s(m) - detail::theta_r(m);
-        return HydraulicState{detail::theta_r(m) + range * s.saturation, range * s.slope_per_cm, k.conductivity,
-                              k.slope};
+        return HydraulicState{water_content_from_saturation(detail::theta_r(m), detail::theta_s(m), s.saturation),
+                              range * s.slope_per_cm, k.conductivity, k.slope};
       },
       model);
 }

@@ -1,5 +1,6 @@
 #include "wetfront/soils/layers.hpp"
 
+#include <cmath>
 #include <stdexcept>
 
 #include <fmt/format.h>
@@ -10,6 +11,9 @@ LayeredProfile::LayeredProfile(std::vector<SoilLayer> layers) : layers_(std::mov
   if (layers_.empty()) throw std::invalid_argument("a soil profile needs at least one layer");
   double expected_top = 0.0;
   for (const auto& layer : layers_) {
+    if (!std::isfinite(layer.top_depth_cm) || !std::isfinite(layer.bottom_depth_cm))
+      throw std::invalid_argument(fmt::format("layer '{}' has a depth that is not a finite number (top {} cm, bottom {} cm)",
+                                              layer.name, layer.top_depth_cm, layer.bottom_depth_cm));
     if (layer.top_depth_cm != expected_top)
       throw std::invalid_argument(fmt::format(
           "layer '{}' starts at {} cm but the layer above ends at {} cm: layers must touch without gaps or overlaps",

@@ -24,9 +24,14 @@ MualemFactor mualem_factor(const VanGenuchtenMualem& p, double h) {
   const double x = -p.alpha_per_cm * h;
   const double xn = std::pow(x, p.n);
   const double u = xn / (1.0 + xn);  // 1 - Se^(1/m)
-  const double um = std::pow(u, m);
+  // f = 1 - u^m = -expm1(m log u) keeps full relative precision at large suction, where
+  // u -> 1 and f ~ m / x^n. log u is taken as log(u) when u is small and as
+  // -log1p(x^-n) when u is close to 1, accurate in both ranges.
+  const double log_u = xn < 1.0 ? std::log(u) : -std::log1p(1.0 / xn);
+  const double um = std::exp(m * log_u);
+  const double f = -std::expm1(m * log_u);
   // df/dh = m n alpha u^(m-1) x^(n-1) / (1 + x^n)^2; infinite at h -> 0- when n < 2.
-  return {1.0 - um, m * p.n * p.alpha_per_cm * (um / u) * (xn / x) / ((1.0 + xn) * (1.0 + xn))};
+  return {f, m * p.n * p.alpha_per_cm * (um / u) * (xn / x) / ((1.0 + xn) * (1.0 + xn))};
 }
 
 ConductivityAndSlope conductivity(const VanGenuchtenMualem& p, double h) {
@@ -34,6 +39,7 @@ ConductivityAndSlope conductivity(const VanGenuchtenMualem& p, double h) {
   if (h >= 0.0) return {ks, 0.0};
   const double l = p.pore_connectivity;
   const auto [se, dse] = saturation(p, h);
+  if (se <= 0.0) return {0.0, 0.0};  // Se underflowed: K and dK/dh are zero to machine precision
   const auto [f, df] = mualem_factor(p, h);
   const double se_l = std::pow(se, l);
   return {ks * se_l * f * f, ks * (l * se_l / se * f * f * dse + se_l * 2.0 * f * df)};

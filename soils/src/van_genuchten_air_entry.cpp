@@ -19,6 +19,7 @@ ConductivityAndSlope conductivity(const VanGenuchtenAirEntry& p, double h) {
   if (h >= p.air_entry_head_cm) return {ks, 0.0};
   const double l = p.base.pore_connectivity;
   const auto [se, dse] = saturation(p, h);
+  if (se <= 0.0) return {0.0, 0.0};  // Se underflowed: K and dK/dh are zero to machine precision
   const auto [f, df] = mualem_factor(p.base, h);
   const double fc = mualem_factor(p.base, p.air_entry_head_cm).factor;
   const double se_l = std::pow(se, l);

@@ -65,8 +65,10 @@ double conductivity(const HydraulicModel& model, double pressure_head_cm);
 double conductivity_slope(const HydraulicModel& model, double pressure_head_cm);
 // Relative conductivity K(h) / Ks.
 double relative_conductivity(const HydraulicModel& model, double pressure_head_cm);
-// Inverse retention h(theta) for theta_r < theta < theta_s; returns 0 at and above the
-// (air-entry) saturation. Throws std::domain_error for theta <= theta_r or > theta_s.
+// Inverse retention h(theta) for theta_r < theta <= theta_s. At theta = theta_s it returns the
+// driest head that is still saturated: the air-entry head h_e (Ippisch et al.) or bubbling
+// head h_b (Brooks & Corey), and 0 for the other models. Throws std::domain_error for
+// theta <= theta_r or theta > theta_s.
 double pressure_head_at(const HydraulicModel& model, double water_content);
 
 double saturated_water_content(const HydraulicModel& model);
