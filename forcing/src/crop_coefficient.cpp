@@ -1,0 +1,107 @@
+// FAO-56 single crop coefficient curve (Allen et al. 1998, chapter 6, Fig. 25, eq. 66):
+//   initial stage       Kc = Kc_ini
+//   development stage   Kc = Kc_ini + (t - t_dev) / L_dev  (Kc_mid - Kc_ini)
+//   mid-season          Kc = Kc_mid
+//   late season         Kc = Kc_mid + (t - t_late) / L_late (Kc_end - Kc_mid)
+#include "wetfront/forcing/crop_coefficient.hpp"
+
+#include <cmath>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+namespace wetfront::forcing {
+
+namespace {
+
+void check_stages(const GrowthStageLengths& s, double planting_day, const char* who) {
+  auto length = [&](double v, const char* name) {
+    if (!(v >= 0 && std::isfinite(v)))
+      throw std::invalid_argument(fmt::format("{}: {} stage length {:g} d; expected a length >= 0 days", who, name, v));
+  };
+  length(s.initial_days, "initial");
+  length(s.development_days, "development");
+  length(s.mid_season_days, "mid-season");
+  length(s.late_season_days, "late season");
+  if (!(s.season_days() > 0))
+    throw std::invalid_argument(fmt::format("{}: the four stages add up to zero days; expected a season", who));
+  if (!std::isfinite(planting_day))
+    throw std::invalid_argument(fmt::format("{}: planting day must be finite", who));
+}
+
+void check_coefficient(double v, const char* who, const char* name) {
+  if (!(v >= 0 && v <= 2))
+    throw std::invalid_argument(fmt::format("{}: {} = {:g}; expected a coefficient from 0 to 2", who, name, v));
+}
+
+// Fraction of the way through a stage of given length starting at `from`; 1 for a zero-length stage.
+double fraction(double day, double from, double length) {
+  return length > 0 ? (day - from) / length : 1.0;
+}
+
+}  // namespace
+
+std::array<double, 5> growth_stage_boundaries(double planting_day, const GrowthStageLengths& s) {
+  const double dev = planting_day + s.initial_days;
+  const double mid = dev + s.development_days;
+  const double late = mid + s.mid_season_days;
+  return {planting_day, dev, mid, late, late + s.late_season_days};
+}
+
+GrowthStage growth_stage_at(double planting_day, const GrowthStageLengths& s, double day) {
+  const auto b = growth_stage_boundaries(planting_day, s);
+  if (day < b[0]) return GrowthStage::before_planting;
+  if (day < b[1]) return GrowthStage::initial;
+  if (day < b[2]) return GrowthStage::development;
+  if (day < b[3]) return GrowthStage::mid_season;
+  if (day < b[4]) return GrowthStage::late_season;
+  return GrowthStage::after_harvest;
+}
+
+void check_crop_curve(const CropCoefficientCurve& c) {
+  constexpr const char* who = "crop coefficient curve";
+  check_stages(c.stages, c.planting_day, who);
+  check_coefficient(c.kc_initial, who, "Kc initial");
+  check_coefficient(c.kc_mid, who, "Kc mid-season");
+  check_coefficient(c.kc_end, who, "Kc end of season");
+  check_coefficient(c.kc_bare_soil, who, "bare-soil coefficient");
+}
+
+double crop_coefficient_at(const CropCoefficientCurve& c, double day) {
+  const auto b = growth_stage_boundaries(c.planting_day, c.stages);
+  switch (growth_stage_at(c.planting_day, c.stages, day)) {
+    case GrowthStage::before_planting:
+    case GrowthStage::after_harvest: return c.kc_bare_soil;
+    case GrowthStage::initial: return c.kc_initial;
+    case GrowthStage::development:
+      return c.kc_initial + fraction(day, b[1], c.stages.development_days) * (c.kc_mid - c.kc_initial);
+    case GrowthStage::mid_season: return c.kc_mid;
+    case GrowthStage::late_season:
+      return c.kc_mid + fraction(day, b[3], c.stages.late_season_days) * (c.kc_end - c.kc_mid);
+  }
+  return c.kc_bare_soil;
+}
+
+void check_pan_to_crop_factors(const PanToCropFactors& f) {
+  constexpr const char* who = "pan-to-crop factors";
+  check_stages(f.stages, f.planting_day, who);
+  check_coefficient(f.initial, who, "initial stage factor");
+  check_coefficient(f.development, who, "development stage factor");
+  check_coefficient(f.mid_season, who, "mid-season factor");
+  check_coefficient(f.late_season, who, "late season factor");
+  check_coefficient(f.bare_soil, who, "bare-soil factor");
+}
+
+double pan_to_crop_factor_at(const PanToCropFactors& f, double day) {
+  switch (growth_stage_at(f.planting_day, f.stages, day)) {
+    case GrowthStage::before_planting:
+    case GrowthStage::after_harvest: return f.bare_soil;
+    case GrowthStage::initial: return f.initial;
+    case GrowthStage::development: return f.development;
+    case GrowthStage::mid_season: return f.mid_season;
+    case GrowthStage::late_season: return f.late_season;
+  }
+  return f.bare_soil;
+}
+
+}  // namespace wetfront::forcing
