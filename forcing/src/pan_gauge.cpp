@@ -92,6 +92,7 @@ std::vector<PanInterval> pan_intervals_from_readings(std::span<const PanReading>
     iv.overflow_possible = open->level_mm + iv.rain_mm > g.rim_height_mm;
     iv.outside_operating_range = !in_operating_range(open->level_mm, g) || !in_operating_range(r.level_mm, g);
     iv.level_rose_beyond_rain = iv.evaporation_mm < 0;
+    iv.starts_at_refill = open->kind == PanReadingKind::after_refill;
     iv.start_line = open->source_line;
     iv.end_line = r.source_line;
     intervals.push_back(iv);
@@ -109,8 +110,10 @@ DepthSeries pan_evaporation_depths(std::span<const PanInterval> intervals, const
   out.quantity = "pan evaporation";
   out.source_file = file;
   out.run_start = run_start;
-  for (const auto& iv : intervals) {
-    DepthInterval d{iv.start_day, iv.end_day, iv.evaporation_mm / 10.0, iv.end_line};
+  for (std::size_t i = 0; i < intervals.size(); ++i) {
+    const PanInterval& iv = intervals[i];
+    const double start = (iv.starts_at_refill && i > 0) ? intervals[i - 1].end_day : iv.start_day;
+    DepthInterval d{start, iv.end_day, iv.evaporation_mm / 10.0, iv.end_line};
     auto apply = [&](bool flagged, PanIntervalUse::Flagged choice, const char* what) {
       if (!flagged) return;
       if (choice == PanIntervalUse::Flagged::error)

@@ -49,6 +49,7 @@ struct PanInterval {
   bool overflow_possible = false;  // start level + rain above the rim: water may have spilled
   bool outside_operating_range = false;  // start or end level outside the operating band
   bool level_rose_beyond_rain = false;   // evaporation_mm < 0: a reading or the rain is wrong
+  bool starts_at_refill = false;         // opened by an after_refill reading
   int start_line = 0;
   int end_line = 0;
 };
@@ -68,7 +69,9 @@ struct PanIntervalUse {
   Flagged level_rose_beyond_rain = Flagged::error;    // negative evaporation
 };
 
-// Pan evaporation depths per interval, ready for depth_series_to_rate.
+// Pan evaporation depths per interval, ready for depth_series_to_rate. The minutes spent on a
+// refill belong to no interval of readings; the pan still evaporates then, so an interval that
+// starts at a refill is taken to start where the previous interval ended.
 DepthSeries pan_evaporation_depths(std::span<const PanInterval> intervals, const PanIntervalUse& use,
                                    TimePoint run_start, const std::string& source_file = {});
 
