@@ -147,3 +147,10 @@ TEST(CsvReaders, ErrorsNameFileLineAndColumn) {
   auto missing_file = error_of([] { wf::read_depth_series_csv("/nonexistent/rain.csv", "rain", may1); });
   EXPECT_NE(std::string(missing_file.what()).find("/nonexistent/rain.csv"), std::string::npos);
 }
+
+TEST(CsvReaders, DailyPanEvaporationToReferenceEt) {
+  const auto s = wf::read_depth_series_csv(data("pan_daily.csv"), "pan_evaporation", may1);
+  const auto r = wf::depth_series_to_rate(s, 3.0, wf::GapPolicy::error);
+  EXPECT_NEAR(r.rate_cm_per_day.series.integral(0, 3), 1.86, 1e-12);
+  EXPECT_NEAR(r.rate_cm_per_day.series.at(1.5), 0.70, 1e-12);
+}
