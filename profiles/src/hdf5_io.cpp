@@ -1,0 +1,375 @@
+#include "hdf5_io.hpp"
+
+#include <H5DSpublic.h>
+#include <H5LTpublic.h>
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cstring>
+
+namespace wetfront::profiles::hdf5 {
+
+namespace {
+
+std::string child_path(hid_t parent, std::string_view name) {
+  std::string base = object_path(parent);
+  if (base.empty() || base.back() != '/') base += '/';
+  return base + std::string(name);
+}
+
+std::string attribute_path(hid_t location, std::string_view object_name, std::string_view name) {
+  const std::string object = object_name == "." ? object_path(location) : child_path(location, object_name);
+  return fmt::format("attribute '{}' of {}", name, object);
+}
+
+PropertyList new_property_list(hid_t property_class, std::string_view what) {
+  return PropertyList(H5Pcreate(property_class), what);
+}
+
+PropertyList ordered_dataset_properties() {
+  PropertyList dcpl = new_property_list(H5P_DATASET_CREATE, "dataset creation property list");
+  check(H5Pset_attr_creation_order(dcpl.id(), H5P_CRT_ORDER_TRACKED | H5P_CRT_ORDER_INDEXED),
+        "setting attribute creation order");
+  return dcpl;
+}
+
+Dataspace simple_space(std::span<const hsize_t> dims) {
+  if (dims.empty()) return Dataspace(H5Screate(H5S_SCALAR), "creating a scalar dataspace");
+  return Dataspace(H5Screate_simple(static_cast<int>(dims.size()), dims.data(), nullptr), "creating a dataspace");
+}
+
+Dataset create_dataset(hid_t parent, std::string_view name, hid_t file_type, const Dataspace& space,
+                       const PropertyList& dcpl) {
+  const std::string name_text(name);
+  return Dataset(H5Dcreate2(parent, name_text.c_str(), file_type, space.id(), H5P_DEFAULT, dcpl.id(), H5P_DEFAULT),
+                 fmt::format("creating dataset {}", child_path(parent, name)));
+}
+
+void describe(hid_t parent, std::string_view name, Description about) {
+  set_text_attribute(parent, name, "units", about.units);
+  set_text_attribute(parent, name, "long_name", about.long_name);
+}
+
+Datatype variable_length_text_type() {
+  Datatype type(H5Tcopy(H5T_C_S1), "copying the string datatype");
+  check(H5Tset_size(type.id(), H5T_VARIABLE), "making a variable-length string type");
+  check(H5Tset_cset(type.id(), H5T_CSET_UTF8), "setting UTF-8 on a string type");
+  return type;
+}
+
+Dataset open_dataset(hid_t parent, std::string_view name) {
+  const std::string path = child_path(parent, name);
+  if (H5Lexists(parent, std::string(name).c_str(), H5P_DEFAULT) <= 0)
+    throw Error(fmt::format("missing dataset {}", path));
+  return Dataset(H5Dopen2(parent, std::string(name).c_str(), H5P_DEFAULT), fmt::format("opening dataset {}", path));
+}
+
+// Shape of a dataset, after checking its rank.
+std::vector<std::size_t> checked_shape(const Dataset& dataset, int expected_rank) {
+  const std::string path = object_path(dataset.id());
+  Dataspace space(H5Dget_space(dataset.id()), fmt::format("reading the shape of {}", path));
+  const int rank = H5Sget_simple_extent_ndims(space.id());
+  check(rank, fmt::format("reading the rank of {}", path));
+  if (rank != expected_rank)
+    throw Error(fmt::format("dataset {} has {} dimension(s), expected {}", path, rank, expected_rank));
+  std::vector<hsize_t> dims(static_cast<std::size_t>(rank));
+  if (rank > 0) check(H5Sget_simple_extent_dims(space.id(), dims.data(), nullptr), "reading dimensions");
+  return {dims.begin(), dims.end()};
+}
+
+void require_numeric(hid_t type, const std::string& what) {
+  const H5T_class_t type_class = H5Tget_class(type);
+  if (type_class != H5T_FLOAT && type_class != H5T_INTEGER)
+    throw Error(fmt::format("{} is not numeric", what));
+}
+
+std::size_t element_count(const std::vector<std::size_t>& dims) {
+  std::size_t count = 1;
+  for (std::size_t d : dims) count *= d;
+  return count;
+}
+
+Attribute open_attribute(hid_t location, std::string_view object_name, std::string_view name) {
+  const std::string what = attribute_path(location, object_name, name);
+  if (!has_attribute(location, object_name, name)) throw Error(fmt::format("missing {}", what));
+  return Attribute(H5Aopen_by_name(location, std::string(object_name).c_str(), std::string(name).c_str(),
+                                   H5P_DEFAULT, H5P_DEFAULT),
+                   fmt::format("opening {}", what));
+}
+
+void require_single_value(const Attribute& attribute, const std::string& what) {
+  Dataspace space(H5Aget_space(attribute.id()), fmt::format("reading the shape of {}", what));
+  if (H5Sget_simple_extent_npoints(space.id()) != 1) throw Error(fmt::format("{} is not a single value", what));
+}
+
+}  // namespace
+
+std::string object_path(hid_t object) {
+  const ssize_t length = H5Iget_name(object, nullptr, 0);
+  if (length <= 0) return "?";
+  std::string name(static_cast<std::size_t>(length) + 1, '\0');
+  H5Iget_name(object, name.data(), name.size());
+  name.resize(static_cast<std::size_t>(length));
+  return name;
+}
+
+File create_file(const std::string& path) {
+  PropertyList fcpl = new_property_list(H5P_FILE_CREATE, "file creation property list");
+  check(H5Pset_link_creation_order(fcpl.id(), H5P_CRT_ORDER_TRACKED | H5P_CRT_ORDER_INDEXED),
+        "setting link creation order");
+  check(H5Pset_attr_creation_order(fcpl.id(), H5P_CRT_ORDER_TRACKED | H5P_CRT_ORDER_INDEXED),
+        "setting attribute creation order");
+  // A file close fails (instead of silently staying open) while objects in it are open.
+  PropertyList fapl = new_property_list(H5P_FILE_ACCESS, "file access property list");
+  check(H5Pset_fclose_degree(fapl.id(), H5F_CLOSE_SEMI), "setting the file close degree");
+  return File(H5Fcreate(path.c_str(), H5F_ACC_EXCL, fcpl.id(), fapl.id()), fmt::format("creating file '{}'", path));
+}
+
+File open_file_read_only(const std::string& path) {
+  PropertyList fapl = new_property_list(H5P_FILE_ACCESS, "file access property list");
+  check(H5Pset_fclose_degree(fapl.id(), H5F_CLOSE_SEMI), "setting the file close degree");
+  return File(H5Fopen(path.c_str(), H5F_ACC_RDONLY, fapl.id()), fmt::format("opening file '{}'", path));
+}
+
+Group create_group(hid_t parent, std::string_view name) {
+  PropertyList gcpl = new_property_list(H5P_GROUP_CREATE, "group creation property list");
+  check(H5Pset_link_creation_order(gcpl.id(), H5P_CRT_ORDER_TRACKED | H5P_CRT_ORDER_INDEXED),
+        "setting link creation order");
+  check(H5Pset_attr_creation_order(gcpl.id(), H5P_CRT_ORDER_TRACKED | H5P_CRT_ORDER_INDEXED),
+        "setting attribute creation order");
+  return Group(H5Gcreate2(parent, std::string(name).c_str(), H5P_DEFAULT, gcpl.id(), H5P_DEFAULT),
+               fmt::format("creating group {}", child_path(parent, name)));
+}
+
+Group open_group(hid_t parent, std::string_view name) {
+  const std::string path = child_path(parent, name);
+  if (!has_link(parent, name)) throw Error(fmt::format("missing group {}", path));
+  return Group(H5Gopen2(parent, std::string(name).c_str(), H5P_DEFAULT), fmt::format("opening group {}", path));
+}
+
+bool has_link(hid_t parent, std::string_view name) {
+  const htri_t exists = H5Lexists(parent, std::string(name).c_str(), H5P_DEFAULT);
+  check(exists, fmt::format("looking for {}", child_path(parent, name)));
+  return exists > 0;
+}
+
+Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about) {
+  const hsize_t dims[1] = {values.size()};
+  Dataspace space = simple_space(dims);
+  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space, ordered_dataset_properties());
+  if (!values.empty())
+    check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
+          fmt::format("writing dataset {}", child_path(parent, name)));
+  describe(parent, name, about);
+  return dataset;
+}
+
+Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std::size_t columns,
+                     std::span<const double> values, Description about) {
+  if (values.size() != rows * columns)
+    throw Error(fmt::format("dataset {}: {} values for a {} x {} matrix", child_path(parent, name), values.size(),
+                            rows, columns));
+  const hsize_t dims[2] = {rows, columns};
+  Dataspace space = simple_space(dims);
+  PropertyList dcpl = ordered_dataset_properties();
+  if (rows > 0 && columns > 0) {
+    // Chunks of whole rows (one output time each), about 128 KiB; compressed when zlib is there.
+    const hsize_t rows_per_chunk = std::clamp<hsize_t>(16384 / columns, 1, rows);
+    const hsize_t chunk[2] = {rows_per_chunk, columns};
+    check(H5Pset_chunk(dcpl.id(), 2, chunk), "setting the chunk shape");
+    if (H5Zfilter_avail(H5Z_FILTER_DEFLATE) > 0) {
+      check(H5Pset_shuffle(dcpl.id()), "setting the shuffle filter");
+      check(H5Pset_deflate(dcpl.id(), 4), "setting the deflate filter");
+    }
+  }
+  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space, dcpl);
+  if (!values.empty())
+    check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
+          fmt::format("writing dataset {}", child_path(parent, name)));
+  describe(parent, name, about);
+  return dataset;
+}
+
+Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values,
+                       Description about) {
+  const hsize_t dims[1] = {values.size()};
+  Dataspace space = simple_space(dims);
+  Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space, ordered_dataset_properties());
+  if (!values.empty())
+    check(H5Dwrite(dataset.id(), H5T_NATIVE_INT64, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
+          fmt::format("writing dataset {}", child_path(parent, name)));
+  describe(parent, name, about);
+  return dataset;
+}
+
+Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about) {
+  Dataspace space = simple_space({});
+  Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space, ordered_dataset_properties());
+  check(H5Dwrite(dataset.id(), H5T_NATIVE_INT64, H5S_ALL, H5S_ALL, H5P_DEFAULT, &value),
+        fmt::format("writing dataset {}", child_path(parent, name)));
+  describe(parent, name, about);
+  return dataset;
+}
+
+Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values,
+                    Description about) {
+  const hsize_t dims[1] = {values.size()};
+  Dataspace space = simple_space(dims);
+  Datatype type = variable_length_text_type();
+  Dataset dataset = create_dataset(parent, name, type.id(), space, ordered_dataset_properties());
+  if (!values.empty()) {
+    std::vector<const char*> pointers;
+    pointers.reserve(values.size());
+    for (const std::string& value : values) pointers.push_back(value.c_str());
+    check(H5Dwrite(dataset.id(), type.id(), H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data()),
+          fmt::format("writing dataset {}", child_path(parent, name)));
+  }
+  describe(parent, name, about);
+  return dataset;
+}
+
+void make_dimension_scale(const Dataset& scale, std::string_view axis_name) {
+  check(H5DSset_scale(scale.id(), std::string(axis_name).c_str()),
+        fmt::format("making {} a dimension scale", object_path(scale.id())));
+}
+
+void attach_dimension_scale(const Dataset& dataset, const Dataset& scale, unsigned dimension) {
+  check(H5DSattach_scale(dataset.id(), scale.id(), dimension),
+        fmt::format("attaching dimension scale {} to dimension {} of {}", object_path(scale.id()), dimension,
+                    object_path(dataset.id())));
+}
+
+void set_text_attribute(hid_t location, std::string_view object_name, std::string_view name, std::string_view value) {
+  check(H5LTset_attribute_string(location, std::string(object_name).c_str(), std::string(name).c_str(),
+                                 std::string(value).c_str()),
+        fmt::format("writing {}", attribute_path(location, object_name, name)));
+}
+
+void set_double_attribute(hid_t location, std::string_view object_name, std::string_view name, double value) {
+  check(H5LTset_attribute_double(location, std::string(object_name).c_str(), std::string(name).c_str(), &value, 1),
+        fmt::format("writing {}", attribute_path(location, object_name, name)));
+}
+
+void set_int_attribute(hid_t location, std::string_view object_name, std::string_view name, int value) {
+  check(H5LTset_attribute_int(location, std::string(object_name).c_str(), std::string(name).c_str(), &value, 1),
+        fmt::format("writing {}", attribute_path(location, object_name, name)));
+}
+
+bool has_attribute(hid_t location, std::string_view object_name, std::string_view name) {
+  const htri_t exists =
+      H5Aexists_by_name(location, std::string(object_name).c_str(), std::string(name).c_str(), H5P_DEFAULT);
+  check(exists, fmt::format("looking for {}", attribute_path(location, object_name, name)));
+  return exists > 0;
+}
+
+std::string get_text_attribute(hid_t location, std::string_view object_name, std::string_view name) {
+  const std::string what = attribute_path(location, object_name, name);
+  Attribute attribute = open_attribute(location, object_name, name);
+  Datatype file_type(H5Aget_type(attribute.id()), fmt::format("reading the type of {}", what));
+  if (H5Tget_class(file_type.id()) != H5T_STRING) throw Error(fmt::format("{} is not text", what));
+  require_single_value(attribute, what);
+  const htri_t variable = H5Tis_variable_str(file_type.id());
+  check(variable, fmt::format("reading the type of {}", what));
+  if (variable > 0) {
+    Datatype memory_type = variable_length_text_type();
+    char* text = nullptr;
+    check(H5Aread(attribute.id(), memory_type.id(), &text), fmt::format("reading {}", what));
+    std::string value = text != nullptr ? std::string(text) : std::string();
+    H5free_memory(text);
+    return value;
+  }
+  const std::size_t size = H5Tget_size(file_type.id());
+  Datatype memory_type(H5Tcopy(H5T_C_S1), "copying the string datatype");
+  check(H5Tset_size(memory_type.id(), size), "sizing a string type");
+  std::string buffer(size, '\0');
+  check(H5Aread(attribute.id(), memory_type.id(), buffer.data()), fmt::format("reading {}", what));
+  buffer.resize(strnlen(buffer.data(), size));
+  return buffer;
+}
+
+double get_double_attribute(hid_t location, std::string_view object_name, std::string_view name) {
+  const std::string what = attribute_path(location, object_name, name);
+  Attribute attribute = open_attribute(location, object_name, name);
+  Datatype file_type(H5Aget_type(attribute.id()), fmt::format("reading the type of {}", what));
+  require_numeric(file_type.id(), what);
+  require_single_value(attribute, what);
+  double value = 0;
+  check(H5Aread(attribute.id(), H5T_NATIVE_DOUBLE, &value), fmt::format("reading {}", what));
+  return value;
+}
+
+int get_int_attribute(hid_t location, std::string_view object_name, std::string_view name) {
+  const std::string what = attribute_path(location, object_name, name);
+  Attribute attribute = open_attribute(location, object_name, name);
+  Datatype file_type(H5Aget_type(attribute.id()), fmt::format("reading the type of {}", what));
+  if (H5Tget_class(file_type.id()) != H5T_INTEGER) throw Error(fmt::format("{} is not an integer", what));
+  require_single_value(attribute, what);
+  int value = 0;
+  check(H5Aread(attribute.id(), H5T_NATIVE_INT, &value), fmt::format("reading {}", what));
+  return value;
+}
+
+std::vector<double> read_doubles(hid_t parent, std::string_view name, int expected_rank,
+                                 std::vector<std::size_t>& dims) {
+  Dataset dataset = open_dataset(parent, name);
+  const std::string path = object_path(dataset.id());
+  Datatype file_type(H5Dget_type(dataset.id()), fmt::format("reading the type of {}", path));
+  require_numeric(file_type.id(), fmt::format("dataset {}", path));
+  dims = checked_shape(dataset, expected_rank);
+  std::vector<double> values(element_count(dims));
+  if (!values.empty())
+    check(H5Dread(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
+          fmt::format("reading dataset {}", path));
+  return values;
+}
+
+std::vector<std::int64_t> read_integers(hid_t parent, std::string_view name, int expected_rank,
+                                        std::vector<std::size_t>& dims) {
+  Dataset dataset = open_dataset(parent, name);
+  const std::string path = object_path(dataset.id());
+  Datatype file_type(H5Dget_type(dataset.id()), fmt::format("reading the type of {}", path));
+  if (H5Tget_class(file_type.id()) != H5T_INTEGER) throw Error(fmt::format("dataset {} is not integer", path));
+  dims = checked_shape(dataset, expected_rank);
+  std::vector<std::int64_t> values(element_count(dims));
+  if (!values.empty())
+    check(H5Dread(dataset.id(), H5T_NATIVE_INT64, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
+          fmt::format("reading dataset {}", path));
+  return values;
+}
+
+std::vector<std::string> read_texts(hid_t parent, std::string_view name) {
+  Dataset dataset = open_dataset(parent, name);
+  const std::string path = object_path(dataset.id());
+  Datatype file_type(H5Dget_type(dataset.id()), fmt::format("reading the type of {}", path));
+  if (H5Tget_class(file_type.id()) != H5T_STRING) throw Error(fmt::format("dataset {} is not text", path));
+  const std::size_t count = checked_shape(dataset, 1)[0];
+  std::vector<std::string> values;
+  if (count == 0) return values;
+  values.reserve(count);
+  const htri_t variable = H5Tis_variable_str(file_type.id());
+  check(variable, fmt::format("reading the type of {}", path));
+  if (variable > 0) {
+    Datatype memory_type = variable_length_text_type();
+    std::vector<char*> pointers(count, nullptr);
+    check(H5Dread(dataset.id(), memory_type.id(), H5S_ALL, H5S_ALL, H5P_DEFAULT, pointers.data()),
+          fmt::format("reading dataset {}", path));
+    for (const char* text : pointers) values.emplace_back(text != nullptr ? text : "");
+    Dataspace space(H5Dget_space(dataset.id()), "reading a dataspace");
+    check(H5Dvlen_reclaim(memory_type.id(), space.id(), H5P_DEFAULT, pointers.data()),
+          fmt::format("freeing text read from {}", path));
+    return values;
+  }
+  const std::size_t size = H5Tget_size(file_type.id());
+  Datatype memory_type(H5Tcopy(H5T_C_S1), "copying the string datatype");
+  check(H5Tset_size(memory_type.id(), size), "sizing a string type");
+  std::vector<char> buffer(count * size, '\0');
+  check(H5Dread(dataset.id(), memory_type.id(), H5S_ALL, H5S_ALL, H5P_DEFAULT, buffer.data()),
+        fmt::format("reading dataset {}", path));
+  for (std::size_t i = 0; i < count; ++i) {
+    const char* start = buffer.data() + i * size;
+    values.emplace_back(start, strnlen(start, size));
+  }
+  return values;
+}
+
+}  // namespace wetfront::profiles::hdf5

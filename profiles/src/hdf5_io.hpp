@@ -1,0 +1,65 @@
+// Dataset and attribute helpers on top of the RAII handles: the few shapes a run record
+// needs (1-D and 2-D doubles, 1-D text, integer scalars, text and number attributes,
+// dimension scales). Names passed in are relative to the parent; messages name the object.
+#pragma once
+
+#include <cstdint>
+#include <span>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "wetfront/profiles/hdf5_handles.hpp"
+
+namespace wetfront::profiles::hdf5 {
+
+// Files and groups keep link and attribute creation order, so listings follow the order in
+// which things were written.
+File create_file(const std::string& path);
+File open_file_read_only(const std::string& path);
+Group create_group(hid_t parent, std::string_view name);
+Group open_group(hid_t parent, std::string_view name);
+bool has_link(hid_t parent, std::string_view name);
+
+// Every dataset is written with its `units` and `long_name` attributes.
+struct Description {
+  std::string_view units;
+  std::string_view long_name;
+};
+
+Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about);
+// Row-major rows x columns.
+Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std::size_t columns,
+                     std::span<const double> values, Description about);
+Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values,
+                       Description about);
+Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about);
+Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values,
+                    Description about);
+
+// H5DSset_scale on `scale`, then H5DSattach_scale to dimension `dimension` of `dataset`.
+void make_dimension_scale(const Dataset& scale, std::string_view axis_name);
+void attach_dimension_scale(const Dataset& dataset, const Dataset& scale, unsigned dimension);
+
+// Attributes on the object `object_name` relative to `location` ("." for the location itself).
+void set_text_attribute(hid_t location, std::string_view object_name, std::string_view name, std::string_view value);
+void set_double_attribute(hid_t location, std::string_view object_name, std::string_view name, double value);
+void set_int_attribute(hid_t location, std::string_view object_name, std::string_view name, int value);
+bool has_attribute(hid_t location, std::string_view object_name, std::string_view name);
+// Reads fixed-length and variable-length text attributes alike.
+std::string get_text_attribute(hid_t location, std::string_view object_name, std::string_view name);
+double get_double_attribute(hid_t location, std::string_view object_name, std::string_view name);
+int get_int_attribute(hid_t location, std::string_view object_name, std::string_view name);
+
+// Reads a dataset of any numeric type as doubles; `dims` receives the shape. Throws unless
+// the rank equals expected_rank.
+std::vector<double> read_doubles(hid_t parent, std::string_view name, int expected_rank,
+                                 std::vector<std::size_t>& dims);
+std::vector<std::int64_t> read_integers(hid_t parent, std::string_view name, int expected_rank,
+                                        std::vector<std::size_t>& dims);
+std::vector<std::string> read_texts(hid_t parent, std::string_view name);
+
+// Full HDF5 path of an object, for messages.
+std::string object_path(hid_t object);
+
+}  // namespace wetfront::profiles::hdf5

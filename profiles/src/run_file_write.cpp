@@ -1,0 +1,300 @@
+// Writes a RunRecord as HDF5: root attributes, the time and depth axes as dimension scales,
+// then one group per part of the record (layout in docs/hdf5-layout.md).
+#include <fcntl.h>
+#include <fmt/format.h>
+#include <unistd.h>
+
+#include <atomic>
+#include <cerrno>
+#include <cstring>
+#include <system_error>
+
+#include "hdf5_io.hpp"
+#include "layout.hpp"
+#include "wetfront/profiles/run_file.hpp"
+#include "wetfront/profiles/time_axis.hpp"
+
+namespace wetfront::profiles {
+
+namespace {
+
+namespace h5 = hdf5;
+
+// Axes shared by the groups below, kept open so datasets can attach to them.
+struct Axes {
+  std::string time_units;
+  h5::Dataset time;
+  h5::Dataset cell_depth;
+  h5::Dataset face_depth;
+  h5::Dataset plane_depth;
+};
+
+template <typename Row, typename Value>
+std::vector<double> column(const std::vector<Row>& rows, Value Row::*member) {
+  std::vector<double> values;
+  values.reserve(rows.size());
+  for (const Row& row : rows) values.push_back(static_cast<double>(row.*member));
+  return values;
+}
+
+void set_positive_down(const h5::Dataset& depth_axis) {
+  h5::set_text_attribute(depth_axis.id(), ".", "positive", "down");
+}
+
+void write_root_attributes(hid_t file, const RunRecord& record) {
+  h5::set_text_attribute(file, ".", "record_format", kRecordFormat);
+  h5::set_int_attribute(file, ".", "record_format_version", kRecordFormatVersion);
+  h5::set_text_attribute(file, ".", "program_version", record.program_version);
+  h5::set_text_attribute(file, ".", "site_name", record.site_name);
+  h5::set_text_attribute(file, ".", "run_start_date", record.run_start_date);
+  h5::set_text_attribute(file, ".", "input_hash", record.input_hash);
+  h5::set_int_attribute(file, ".", "complete", record.run.complete ? 1 : 0);
+  if (record.run.failure) {
+    h5::set_double_attribute(file, ".", "failure_time_days", record.run.failure->time_days);
+    h5::set_double_attribute(file, ".", "failure_depth_cm", record.run.failure->depth_cm);
+    h5::set_text_attribute(file, ".", "failure_reason", record.run.failure->reason);
+  }
+  h5::set_text_attribute(file, ".", "sign_convention", layout::kSignConvention);
+}
+
+h5::Dataset write_time_axis(hid_t parent, std::string_view name, const std::vector<double>& days,
+                            const std::string& units, std::string_view long_name) {
+  h5::Dataset axis = h5::write_vector(parent, name, days, {units, long_name});
+  h5::set_text_attribute(parent, name, "calendar", "standard");
+  h5::make_dimension_scale(axis, name);
+  return axis;
+}
+
+Axes write_axes(hid_t file, const RunRecord& record) {
+  const solver::ColumnRun& run = record.run;
+  Axes axes;
+  axes.time_units = days_since_units(record.run_start_date);
+  axes.time = write_time_axis(file, "time", column(run.profiles, &solver::ProfileSnapshot::time_days),
+                              axes.time_units, "output time");
+  axes.cell_depth = h5::write_vector(file, "cell_depth", run.cell_depths_cm,
+                                     {"cm", "depth of the cell centre below the soil surface"});
+  set_positive_down(axes.cell_depth);
+  h5::make_dimension_scale(axes.cell_depth, "cell_depth");
+  axes.face_depth = h5::write_vector(file, "face_depth", run.face_depths_cm,
+                                     {"cm", "depth of the cell face below the soil surface (surface first)"});
+  set_positive_down(axes.face_depth);
+  h5::make_dimension_scale(axes.face_depth, "face_depth");
+  return axes;
+}
+
+void write_profiles(hid_t file, const solver::ColumnRun& run, const Axes& axes) {
+  h5::Group group = h5::create_group(file, "profiles");
+  const std::size_t times = run.profiles.size();
+  const std::size_t cells = run.cell_depths_cm.size();
+  for (const layout::ProfileField& field : layout::kCellFields) {
+    std::vector<double> matrix;
+    matrix.reserve(times * cells);
+    for (const solver::ProfileSnapshot& snapshot : run.profiles)
+      matrix.insert(matrix.end(), (snapshot.*field.member).begin(), (snapshot.*field.member).end());
+    h5::Dataset dataset = h5::write_matrix(group.id(), field.name, times, cells, matrix, {field.units, field.long_name});
+    h5::attach_dimension_scale(dataset, axes.time, 0);
+    h5::attach_dimension_scale(dataset, axes.cell_depth, 1);
+  }
+  std::vector<double> flux;
+  flux.reserve(times * (cells + 1));
+  for (const solver::ProfileSnapshot& snapshot : run.profiles)
+    flux.insert(flux.end(), snapshot.face_flux_cm_per_d.begin(), snapshot.face_flux_cm_per_d.end());
+  h5::Dataset face_flux = h5::write_matrix(group.id(), "face_flux", times, cells + 1, flux,
+                                           {"cm/d", "Darcy flux across the cell face (positive downward)"});
+  h5::attach_dimension_scale(face_flux, axes.time, 0);
+  h5::attach_dimension_scale(face_flux, axes.face_depth, 1);
+  h5::Dataset ponded = h5::write_vector(group.id(), "ponded_depth",
+                                        column(run.profiles, &solver::ProfileSnapshot::ponded_depth_cm),
+                                        {"cm", "water held on the soil surface"});
+  h5::attach_dimension_scale(ponded, axes.time, 0);
+}
+
+void write_balance(hid_t file, const RunRecord& record, Axes& axes) {
+  const solver::ColumnRun& run = record.run;
+  h5::Group group = h5::create_group(file, "balance");
+  for (const layout::CumulativeTerm& term : layout::kCumulativeTerms) {
+    h5::Dataset dataset = h5::write_vector(group.id(), term.name, column(run.balances, term.member),
+                                           {"cm", term.long_name});
+    h5::attach_dimension_scale(dataset, axes.time, 0);
+  }
+  axes.plane_depth = h5::write_vector(group.id(), "plane_depth", record.flux_plane_depths_cm,
+                                      {"cm", "depth of the flux plane below the soil surface"});
+  set_positive_down(axes.plane_depth);
+  h5::make_dimension_scale(axes.plane_depth, "plane_depth");
+  const std::size_t planes = record.flux_plane_depths_cm.size();
+  std::vector<double> matrix;
+  for (const solver::CumulativeBalance& row : run.balances)
+    matrix.insert(matrix.end(), row.plane_flux_cm.begin(), row.plane_flux_cm.end());
+  h5::Dataset plane_flux =
+      h5::write_matrix(group.id(), "plane_flux", run.balances.size(), planes, matrix,
+                       {"cm", "flow across the flux plane since the run start (positive downward)"});
+  h5::attach_dimension_scale(plane_flux, axes.time, 0);
+  h5::attach_dimension_scale(plane_flux, axes.plane_depth, 1);
+}
+
+void write_visits(hid_t file, const RunRecord& record, const Axes& axes) {
+  h5::Group group = h5::create_group(file, "visits");
+  write_time_axis(group.id(), "visit_time", record.visit_days, axes.time_units, "field visit");
+  const std::vector<IntervalBalance>& rows = record.visit_balance;
+  h5::Dataset interval_end = write_time_axis(group.id(), "interval_end", column(rows, &IntervalBalance::end_day),
+                                             axes.time_units, "end of the balance interval");
+  h5::Dataset interval_start = h5::write_vector(group.id(), "interval_start", column(rows, &IntervalBalance::start_day),
+                                                {axes.time_units, "start of the balance interval"});
+  h5::attach_dimension_scale(interval_start, interval_end, 0);
+  for (const layout::IntervalTerm& term : layout::kIntervalTerms) {
+    h5::Dataset dataset = h5::write_vector(group.id(), term.name, column(rows, term.member), {"cm", term.long_name});
+    h5::attach_dimension_scale(dataset, interval_end, 0);
+  }
+  const std::size_t planes = record.flux_plane_depths_cm.size();
+  std::vector<double> matrix;
+  for (const IntervalBalance& row : rows) matrix.insert(matrix.end(), row.plane_flux_cm.begin(), row.plane_flux_cm.end());
+  h5::Dataset plane_flux = h5::write_matrix(group.id(), "plane_flux", rows.size(), planes, matrix,
+                                            {"cm", "flow across the flux plane in the interval (positive downward)"});
+  h5::attach_dimension_scale(plane_flux, interval_end, 0);
+  h5::attach_dimension_scale(plane_flux, axes.plane_depth, 1);
+}
+
+void write_layers(hid_t inputs, const std::vector<LayerDescription>& layers) {
+  h5::Group group = h5::create_group(inputs, "layers");
+  h5::Dataset top = h5::write_vector(group.id(), "top_depth", column(layers, &LayerDescription::top_depth_cm),
+                                     {"cm", "depth of the top of the layer"});
+  set_positive_down(top);
+  h5::make_dimension_scale(top, "layer_top_depth");
+  const auto attach_to_layer_axis = [&](const h5::Dataset& dataset) { h5::attach_dimension_scale(dataset, top, 0); };
+  attach_to_layer_axis(h5::write_vector(group.id(), "bottom_depth", column(layers, &LayerDescription::bottom_depth_cm),
+                                        {"cm", "depth of the bottom of the layer"}));
+  std::vector<std::string> names;
+  std::vector<std::string> models;
+  std::vector<std::int64_t> parameter_layer;
+  std::vector<std::string> parameter_names;
+  std::vector<double> parameter_values;
+  std::vector<std::string> parameter_units;
+  for (std::size_t i = 0; i < layers.size(); ++i) {
+    names.push_back(layers[i].name);
+    models.push_back(layers[i].model_name);
+    for (const LayerParameter& parameter : layers[i].parameters) {
+      parameter_layer.push_back(static_cast<std::int64_t>(i));
+      parameter_names.push_back(parameter.name);
+      parameter_values.push_back(parameter.value);
+      parameter_units.push_back(parameter.unit);
+    }
+  }
+  attach_to_layer_axis(h5::write_texts(group.id(), "name", names, {"none", "layer name"}));
+  attach_to_layer_axis(h5::write_texts(group.id(), "model", models, {"none", "hydraulic property model"}));
+  h5::write_integers(group.id(), "parameter_layer", parameter_layer,
+                     {"1", "index (from 0) of the layer the parameter belongs to"});
+  h5::write_texts(group.id(), "parameter_name", parameter_names, {"none", "hydraulic parameter name"});
+  h5::write_vector(group.id(), "parameter_value", parameter_values,
+                   {"see parameter_unit", "hydraulic parameter value, in the unit given by parameter_unit"});
+  h5::write_texts(group.id(), "parameter_unit", parameter_units, {"none", "unit of the hydraulic parameter"});
+}
+
+void write_forcing(hid_t inputs, const std::vector<ForcingInterval>& forcing, const std::string& time_units) {
+  h5::Group group = h5::create_group(inputs, "forcing");
+  h5::Dataset start = write_time_axis(group.id(), "interval_start", column(forcing, &ForcingInterval::start_day),
+                                      time_units, "start of the forcing interval");
+  h5::attach_dimension_scale(h5::write_vector(group.id(), "interval_end", column(forcing, &ForcingInterval::end_day),
+                                              {time_units, "end of the forcing interval"}),
+                             start, 0);
+  h5::attach_dimension_scale(
+      h5::write_vector(group.id(), "water_input", column(forcing, &ForcingInterval::water_input_cm_per_d),
+                       {"cm/d", "rain and irrigation rate reaching the surface"}),
+      start, 0);
+  h5::attach_dimension_scale(
+      h5::write_vector(group.id(), "potential_evaporation",
+                       column(forcing, &ForcingInterval::potential_evaporation_cm_per_d),
+                       {"cm/d", "potential evaporation rate (positive leaving the soil)"}),
+      start, 0);
+  h5::attach_dimension_scale(
+      h5::write_vector(group.id(), "potential_transpiration",
+                       column(forcing, &ForcingInterval::potential_transpiration_cm_per_d),
+                       {"cm/d", "potential transpiration rate (positive leaving the soil)"}),
+      start, 0);
+}
+
+void write_sensors(hid_t file, const std::vector<Sensor>& sensors) {
+  h5::Group group = h5::create_group(file, "sensors");
+  std::vector<std::string> names;
+  for (const Sensor& sensor : sensors) names.push_back(sensor.name);
+  h5::Dataset depth = h5::write_vector(group.id(), "depth", column(sensors, &Sensor::depth_cm),
+                                       {"cm", "depth of the sensor below the soil surface"});
+  set_positive_down(depth);
+  h5::make_dimension_scale(depth, "sensor_depth");
+  h5::attach_dimension_scale(h5::write_texts(group.id(), "name", names, {"none", "sensor name"}), depth, 0);
+}
+
+void write_statistics(hid_t file, const solver::RunStatistics& statistics) {
+  h5::Group group = h5::create_group(file, "run_statistics");
+  const auto count = [&](std::string_view name, long value, std::string_view long_name) {
+    h5::write_integer_scalar(group.id(), name, value, {"1", long_name});
+  };
+  count("steps", statistics.steps, "integration steps taken");
+  count("residual_evaluations", statistics.residual_evaluations, "residual function evaluations");
+  count("jacobian_evaluations", statistics.jacobian_evaluations, "Jacobian evaluations");
+  count("nonlinear_iterations", statistics.nonlinear_iterations, "Newton iterations");
+  count("nonlinear_failures", statistics.nonlinear_failures, "Newton convergence failures");
+  count("error_test_failures", statistics.error_test_failures, "local error test failures");
+  count("surface_switches", statistics.surface_switches,
+        "changes between flux-limited, ponded and dry-limit surface conditions");
+  count("bottom_switches", statistics.bottom_switches, "seepage face switching on or off");
+}
+
+void write_contents(hid_t file, const RunRecord& record) {
+  write_root_attributes(file, record);
+  Axes axes = write_axes(file, record);
+  write_profiles(file, record.run, axes);
+  write_balance(file, record, axes);
+  write_visits(file, record, axes);
+  {
+    h5::Group inputs = h5::create_group(file, "inputs");
+    write_layers(inputs.id(), record.layers);
+    write_forcing(inputs.id(), record.forcing, axes.time_units);
+  }
+  write_sensors(file, record.sensors);
+  write_statistics(file, record.run.statistics);
+}
+
+std::filesystem::path temporary_path_for(const std::filesystem::path& path) {
+  static std::atomic<unsigned> counter{0};
+  const std::string name = fmt::format(".{}.{}-{}.partial", path.filename().string(), getpid(), counter++);
+  return path.parent_path() / name;
+}
+
+// Pushes the written file from the page cache to the disk before it takes the final name.
+void flush_to_disk(const std::filesystem::path& path) {
+  const int descriptor = open(path.c_str(), O_RDONLY | O_CLOEXEC);
+  if (descriptor < 0) throw std::system_error(errno, std::generic_category(), "opening the file to flush it");
+  const int status = fsync(descriptor);
+  const int saved_errno = errno;
+  close(descriptor);
+  if (status != 0) throw std::system_error(saved_errno, std::generic_category(), "flushing the file to disk");
+}
+
+}  // namespace
+
+void write_run(const std::filesystem::path& path, const RunRecord& record) {
+  const auto failure = [&](std::string_view cause) {
+    return RunFileError(fmt::format("cannot write run record '{}': {}", path.string(), cause));
+  };
+  if (path.filename().empty()) throw failure("the path names no file");
+  try {
+    check_record(record);
+  } catch (const std::invalid_argument& error) {
+    throw failure(error.what());
+  }
+  const std::filesystem::path temporary = temporary_path_for(path);
+  h5::QuietErrors quiet;
+  try {
+    h5::File file = h5::create_file(temporary.string());
+    write_contents(file.id(), record);
+    file.close(fmt::format("closing '{}'", temporary.string()));
+    flush_to_disk(temporary);
+    std::filesystem::rename(temporary, path);
+  } catch (const std::exception& error) {
+    std::error_code ignored;
+    std::filesystem::remove(temporary, ignored);
+    throw failure(error.what());
+  }
+}
+
+}  // namespace wetfront::profiles

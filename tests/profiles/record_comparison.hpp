@@ -1,0 +1,104 @@
+// Field-by-field comparison of run records, reporting the first differing field.
+#pragma once
+
+#include <gtest/gtest.h>
+
+#include "wetfront/profiles/run_record.hpp"
+
+namespace wetfront::profiles::testing {
+
+inline void expect_same_snapshot(const solver::ProfileSnapshot& a, const solver::ProfileSnapshot& b) {
+  EXPECT_EQ(a.time_days, b.time_days);
+  EXPECT_EQ(a.head_cm, b.head_cm);
+  EXPECT_EQ(a.water_content, b.water_content);
+  EXPECT_EQ(a.conductivity_cm_per_d, b.conductivity_cm_per_d);
+  EXPECT_EQ(a.sink_rate_per_day, b.sink_rate_per_day);
+  EXPECT_EQ(a.face_flux_cm_per_d, b.face_flux_cm_per_d);
+  EXPECT_EQ(a.ponded_depth_cm, b.ponded_depth_cm);
+}
+
+inline void expect_same_balance(const solver::CumulativeBalance& a, const solver::CumulativeBalance& b) {
+  EXPECT_EQ(a.time_days, b.time_days);
+  EXPECT_EQ(a.water_input_cm, b.water_input_cm);
+  EXPECT_EQ(a.potential_evaporation_cm, b.potential_evaporation_cm);
+  EXPECT_EQ(a.actual_evaporation_cm, b.actual_evaporation_cm);
+  EXPECT_EQ(a.runoff_cm, b.runoff_cm);
+  EXPECT_EQ(a.infiltration_cm, b.infiltration_cm);
+  EXPECT_EQ(a.transpiration_cm, b.transpiration_cm);
+  EXPECT_EQ(a.bottom_flux_cm, b.bottom_flux_cm);
+  EXPECT_EQ(a.plane_flux_cm, b.plane_flux_cm);
+  EXPECT_EQ(a.ponded_depth_cm, b.ponded_depth_cm);
+  EXPECT_EQ(a.soil_storage_cm, b.soil_storage_cm);
+  EXPECT_EQ(a.balance_error_cm, b.balance_error_cm);
+}
+
+inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
+  EXPECT_EQ(a.site_name, b.site_name);
+  EXPECT_EQ(a.run_start_date, b.run_start_date);
+  EXPECT_EQ(a.program_version, b.program_version);
+  EXPECT_EQ(a.input_hash, b.input_hash);
+
+  const solver::ColumnRun& ra = a.run;
+  const solver::ColumnRun& rb = b.run;
+  EXPECT_EQ(ra.cell_depths_cm, rb.cell_depths_cm);
+  EXPECT_EQ(ra.face_depths_cm, rb.face_depths_cm);
+  ASSERT_EQ(ra.profiles.size(), rb.profiles.size());
+  for (std::size_t i = 0; i < ra.profiles.size(); ++i) {
+    SCOPED_TRACE(::testing::Message() << "profile " << i);
+    expect_same_snapshot(ra.profiles[i], rb.profiles[i]);
+  }
+  ASSERT_EQ(ra.balances.size(), rb.balances.size());
+  for (std::size_t i = 0; i < ra.balances.size(); ++i) {
+    SCOPED_TRACE(::testing::Message() << "balance row " << i);
+    expect_same_balance(ra.balances[i], rb.balances[i]);
+  }
+  EXPECT_EQ(ra.statistics.steps, rb.statistics.steps);
+  EXPECT_EQ(ra.statistics.residual_evaluations, rb.statistics.residual_evaluations);
+  EXPECT_EQ(ra.statistics.jacobian_evaluations, rb.statistics.jacobian_evaluations);
+  EXPECT_EQ(ra.statistics.nonlinear_iterations, rb.statistics.nonlinear_iterations);
+  EXPECT_EQ(ra.statistics.nonlinear_failures, rb.statistics.nonlinear_failures);
+  EXPECT_EQ(ra.statistics.error_test_failures, rb.statistics.error_test_failures);
+  EXPECT_EQ(ra.statistics.surface_switches, rb.statistics.surface_switches);
+  EXPECT_EQ(ra.statistics.bottom_switches, rb.statistics.bottom_switches);
+  EXPECT_EQ(ra.complete, rb.complete);
+  ASSERT_EQ(ra.failure.has_value(), rb.failure.has_value());
+  if (ra.failure) {
+    EXPECT_EQ(ra.failure->time_days, rb.failure->time_days);
+    EXPECT_EQ(ra.failure->depth_cm, rb.failure->depth_cm);
+    EXPECT_EQ(ra.failure->reason, rb.failure->reason);
+  }
+
+  ASSERT_EQ(a.layers.size(), b.layers.size());
+  for (std::size_t i = 0; i < a.layers.size(); ++i) {
+    SCOPED_TRACE(::testing::Message() << "layer " << i);
+    EXPECT_EQ(a.layers[i].name, b.layers[i].name);
+    EXPECT_EQ(a.layers[i].top_depth_cm, b.layers[i].top_depth_cm);
+    EXPECT_EQ(a.layers[i].bottom_depth_cm, b.layers[i].bottom_depth_cm);
+    EXPECT_EQ(a.layers[i].model_name, b.layers[i].model_name);
+    ASSERT_EQ(a.layers[i].parameters.size(), b.layers[i].parameters.size());
+    for (std::size_t p = 0; p < a.layers[i].parameters.size(); ++p) {
+      EXPECT_EQ(a.layers[i].parameters[p].name, b.layers[i].parameters[p].name);
+      EXPECT_EQ(a.layers[i].parameters[p].value, b.layers[i].parameters[p].value);
+      EXPECT_EQ(a.layers[i].parameters[p].unit, b.layers[i].parameters[p].unit);
+    }
+  }
+  ASSERT_EQ(a.sensors.size(), b.sensors.size());
+  for (std::size_t i = 0; i < a.sensors.size(); ++i) {
+    EXPECT_EQ(a.sensors[i].name, b.sensors[i].name);
+    EXPECT_EQ(a.sensors[i].depth_cm, b.sensors[i].depth_cm);
+  }
+  EXPECT_EQ(a.flux_plane_depths_cm, b.flux_plane_depths_cm);
+  ASSERT_EQ(a.forcing.size(), b.forcing.size());
+  for (std::size_t i = 0; i < a.forcing.size(); ++i) {
+    SCOPED_TRACE(::testing::Message() << "forcing interval " << i);
+    EXPECT_EQ(a.forcing[i].start_day, b.forcing[i].start_day);
+    EXPECT_EQ(a.forcing[i].end_day, b.forcing[i].end_day);
+    EXPECT_EQ(a.forcing[i].water_input_cm_per_d, b.forcing[i].water_input_cm_per_d);
+    EXPECT_EQ(a.forcing[i].potential_evaporation_cm_per_d, b.forcing[i].potential_evaporation_cm_per_d);
+    EXPECT_EQ(a.forcing[i].potential_transpiration_cm_per_d, b.forcing[i].potential_transpiration_cm_per_d);
+  }
+  EXPECT_EQ(a.visit_days, b.visit_days);
+  EXPECT_EQ(a.visit_balance, b.visit_balance);
+}
+
+}  // namespace wetfront::profiles::testing
