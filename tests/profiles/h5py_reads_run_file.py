@@ -1,0 +1,93 @@
+#!/usr/bin/python3
+"""A general HDF5 reader (h5py) understands a wetfront run file on its own terms:
+units and long_name on every dataset, time and depth axes as HDF5 dimension scales.
+
+Usage: h5py_reads_run_file.py RUN_FILE.h5   (written by write_sample_run)
+"""
+import sys
+
+import h5py
+import numpy as np
+
+
+def text(value):
+    return value.decode() if isinstance(value, bytes) else str(value)
+
+
+def main(path):
+    failures = []
+
+    def expect(condition, message):
+        if not condition:
+            failures.append(message)
+
+    with h5py.File(path, "r") as run:
+        expect(text(run.attrs["record_format"]) == "wetfront run record", "record_format")
+        expect(int(run.attrs["complete"]) == 1, "complete should be 1")
+        expect(text(run.attrs["run_start_date"]) == "2025-04-01", "run_start_date")
+        expect("positive downward" in text(run.attrs["sign_convention"]), "sign_convention text")
+        for key in ("program_version", "site_name", "input_hash"):
+            expect(key in run.attrs, f"root attribute {key}")
+
+        datasets = []
+        run.visititems(lambda name, obj: datasets.append(name) if isinstance(obj, h5py.Dataset) else None)
+        expect(len(datasets) >= 40, f"only {len(datasets)} datasets")
+        for name in datasets:
+            attrs = run[name].attrs
+            expect("units" in attrs and "long_name" in attrs, f"/{name} lacks units or long_name")
+
+        time = run["time"]
+        expect(text(time.attrs["units"]) == "days since 2025-04-01", "time units")
+        expect(np.array_equal(time[...], np.arange(31.0)), "time values 0..30")
+
+        head = run["profiles/pressure_head"]
+        expect(head.shape == (31, 20), f"pressure_head shape {head.shape}")
+        expect(text(head.attrs["units"]) == "cm", "pressure_head units")
+        # The axes are found through the dimension-scale API, not by naming convention.
+        expect(head.dims[0][0].name == "/time", f"pressure_head axis 0 is {head.dims[0][0].name}")
+        expect(head.dims[1][0].name == "/cell_depth", f"pressure_head axis 1 is {head.dims[1][0].name}")
+        expect(np.allclose(head.dims[1][0][...], np.arange(20) * 5.0 + 2.5), "cell depths from the scale")
+
+        flux = run["profiles/face_flux"]
+        expect(flux.dims[1][0].name == "/face_depth", "face_flux attached to face_depth")
+        expect(flux.dims[1][0].shape == (21,), "21 faces")
+        expect(text(run["face_depth"].attrs["positive"]) == "down", "depth axis positive down")
+
+        for term in ("water_input", "infiltration", "bottom_flux", "soil_storage", "balance_error"):
+            ds = run[f"balance/{term}"]
+            expect(ds.dims[0][0].name == "/time", f"balance/{term} on the time axis")
+            expect(text(ds.attrs["units"]) == "cm", f"balance/{term} units")
+        plane = run["balance/plane_flux"]
+        expect(plane.dims[1][0].name == "/balance/plane_depth", "plane_flux attached to plane_depth")
+
+        visits = run["visits"]
+        ends = visits["interval_end"][...]
+        expect(np.array_equal(ends, [7.0, 14.0, 21.0, 30.0]), f"visit interval ends {ends}")
+        expect(visits["water_input"].dims[0][0].name == "/visits/interval_end", "visit table axis")
+        # Per-visit rows add up to the season total of the cumulative series.
+        for term in ("water_input", "transpiration", "bottom_flux"):
+            season = run[f"balance/{term}"][-1] - run[f"balance/{term}"][0]
+            expect(abs(visits[term][...].sum() - season) < 1e-12, f"visit {term} sum")
+        storage = run["balance/soil_storage"][...]
+        expect(abs(visits["storage_change"][...].sum() - (storage[-1] - storage[0])) < 1e-12, "storage change sum")
+
+        layers = run["inputs/layers"]
+        names = [text(n) for n in layers["name"][...]]
+        expect(names == ["loam topsoil", "sandy loam subsoil"], f"layer names {names}")
+        expect(layers["name"].dims[0][0].name == "/inputs/layers/top_depth", "layer axis")
+        forcing = run["inputs/forcing"]
+        expect(forcing["water_input"].shape == (30,), "30 forcing intervals")
+        expect(text(forcing["water_input"].attrs["units"]) == "cm/d", "forcing units")
+        sensors = run["sensors"]
+        expect([text(n) for n in sensors["name"][...]][0] == "tensiometer 15 cm", "sensor names")
+        expect(sensors["name"].dims[0][0].name == "/sensors/depth", "sensor axis")
+        expect(int(run["run_statistics/steps"][()]) == 412, "run statistics")
+
+    for message in failures:
+        print("FAIL:", message)
+    print(f"{len(failures)} failure(s)")
+    return 1 if failures else 0
+
+
+if __name__ == "__main__":
+    sys.exit(main(sys.argv[1]))
