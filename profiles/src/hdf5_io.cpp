@@ -113,16 +113,27 @@ std::string object_path(hid_t object) {
   return name;
 }
 
-File create_file(const std::string& path) {
+File create_memory_file(const std::string& name) {
   PropertyList fcpl = new_property_list(H5P_FILE_CREATE, "file creation property list");
   check(H5Pset_link_creation_order(fcpl.id(), H5P_CRT_ORDER_TRACKED | H5P_CRT_ORDER_INDEXED),
         "setting link creation order");
   check(H5Pset_attr_creation_order(fcpl.id(), H5P_CRT_ORDER_TRACKED | H5P_CRT_ORDER_INDEXED),
         "setting attribute creation order");
-  // A file close fails (instead of silently staying open) while objects in it are open.
   PropertyList fapl = new_property_list(H5P_FILE_ACCESS, "file access property list");
   check(H5Pset_fclose_degree(fapl.id(), H5F_CLOSE_SEMI), "setting the file close degree");
-  return File(H5Fcreate(path.c_str(), H5F_ACC_EXCL, fcpl.id(), fapl.id()), fmt::format("creating file '{}'", path));
+  // Grows in 1 MiB steps; nothing is written to disk by the library.
+  check(H5Pset_fapl_core(fapl.id(), 1 << 20, 0), "selecting the in-memory file driver");
+  return File(H5Fcreate(name.c_str(), H5F_ACC_TRUNC, fcpl.id(), fapl.id()),
+              fmt::format("creating in-memory file for '{}'", name));
+}
+
+std::vector<char> file_image(const File& file) {
+  check(H5Fflush(file.id(), H5F_SCOPE_GLOBAL), "flushing the in-memory file");
+  const ssize_t size = H5Fget_file_image(file.id(), nullptr, 0);
+  check(size < 0 ? -1 : 0, "measuring the file image");
+  std::vector<char> image(static_cast<std::size_t>(size));
+  check(H5Fget_file_image(file.id(), image.data(), image.size()) < 0 ? -1 : 0, "copying the file image");
+  return image;
 }
 
 File open_file_read_only(const std::string& path) {

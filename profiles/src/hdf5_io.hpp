@@ -15,7 +15,11 @@ namespace wetfront::profiles::hdf5 {
 
 // Files and groups keep link and attribute creation order, so listings follow the order in
 // which things were written.
-File create_file(const std::string& path);
+// A file that lives in memory only (core driver without a backing store); `name` is used
+// in messages. Its bytes come out with file_image().
+File create_memory_file(const std::string& name);
+// The complete bytes of an open file, as they would be on disk (flushes first).
+std::vector<char> file_image(const File& file);
 File open_file_read_only(const std::string& path);
 Group create_group(hid_t parent, std::string_view name);
 Group open_group(hid_t parent, std::string_view name);

@@ -260,14 +260,23 @@ std::filesystem::path temporary_path_for(const std::filesystem::path& path) {
   return path.parent_path() / name;
 }
 
-// Pushes the written file from the page cache to the disk before it takes the final name.
-void flush_to_disk(const std::filesystem::path& path) {
-  const int descriptor = open(path.c_str(), O_RDONLY | O_CLOEXEC);
-  if (descriptor < 0) throw std::system_error(errno, std::generic_category(), "opening the file to flush it");
-  const int status = fsync(descriptor);
-  const int saved_errno = errno;
-  close(descriptor);
-  if (status != 0) throw std::system_error(saved_errno, std::generic_category(), "flushing the file to disk");
+// Writes all bytes to a new file and forces them to the disk before it takes its final name.
+void write_new_file(const std::filesystem::path& path, const std::vector<char>& bytes) {
+  const int descriptor = open(path.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0644);
+  if (descriptor < 0)
+    throw std::system_error(errno, std::generic_category(), fmt::format("creating '{}'", path.string()));
+  std::size_t written = 0;
+  int error = 0;
+  while (written < bytes.size() && error == 0) {
+    const ssize_t count = write(descriptor, bytes.data() + written, bytes.size() - written);
+    if (count > 0) written += static_cast<std::size_t>(count);
+    else if (count < 0 && errno != EINTR) error = errno;
+  }
+  if (error == 0 && fsync(descriptor) != 0) error = errno;
+  if (close(descriptor) != 0 && error == 0) error = errno;
+  if (error != 0)
+    throw std::system_error(error, std::generic_category(),
+                            fmt::format("writing '{}' ({} of {} bytes written)", path.string(), written, bytes.size()));
 }
 
 }  // namespace
@@ -282,13 +291,22 @@ void write_run(const std::filesystem::path& path, const RunRecord& record) {
   } catch (const std::invalid_argument& error) {
     throw failure(error.what());
   }
-  const std::filesystem::path temporary = temporary_path_for(path);
-  h5::QuietErrors quiet;
+  // The file is built in memory, so the HDF5 library never meets a disk error; the bytes
+  // then go to a temporary name in the target directory, which is renamed (atomically on
+  // POSIX file systems) only when they are all on the disk.
+  std::vector<char> image;
   try {
-    h5::File file = h5::create_file(temporary.string());
+    h5::QuietErrors quiet;
+    h5::File file = h5::create_memory_file(path.string());
     write_contents(file.id(), record);
-    file.close(fmt::format("closing '{}'", temporary.string()));
-    flush_to_disk(temporary);
+    image = h5::file_image(file);
+    file.close("closing the in-memory file");
+  } catch (const std::exception& error) {
+    throw failure(error.what());
+  }
+  const std::filesystem::path temporary = temporary_path_for(path);
+  try {
+    write_new_file(temporary, image);
     std::filesystem::rename(temporary, path);
   } catch (const std::exception& error) {
     std::error_code ignored;
