@@ -1,0 +1,143 @@
+#include "csv_table.hpp"
+
+#include <algorithm>
+#include <cctype>
+#include <fstream>
+
+#include <fmt/format.h>
+
+#include "input_error.hpp"
+
+namespace wetfront::cli {
+namespace {
+
+std::string lower(std::string_view text) {
+  std::string out(text);
+  std::transform(out.begin(), out.end(), out.begin(), [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+  return out;
+}
+
+// Splits one line at commas outside double quotes; "" inside quotes is a literal quote.
+std::vector<std::string> split_fields(const std::string& line, const std::string& path, std::size_t line_number) {
+  std::vector<std::string> fields;
+  std::string current;
+  bool quoted = false;
+  for (std::size_t i = 0; i < line.size(); ++i) {
+    const char c = line[i];
+    if (quoted) {
+      if (c == '"' && i + 1 < line.size() && line[i + 1] == '"') {
+        current += '"';
+        ++i;
+      } else if (c == '"') {
+        quoted = false;
+      } else {
+        current += c;
+      }
+    } else if (c == '"') {
+      quoted = true;
+    } else if (c == ',') {
+      fields.push_back(trim(current));
+      current.clear();
+    } else {
+      current += c;
+    }
+  }
+  if (quoted) throw InputError(path, line_number, "", "a quoted field is not closed on this line");
+  fields.push_back(trim(current));
+  return fields;
+}
+
+CsvColumn parse_header_cell(const std::string& cell, const std::string& path, std::size_t line_number) {
+  const auto open = cell.find('[');
+  if (open == std::string::npos) return {cell, ""};
+  const auto close = cell.find(']', open);
+  if (close == std::string::npos || trim(std::string_view(cell).substr(close + 1)) != "") {
+    throw InputError(path, line_number, cell, "a header cell is a name with its unit in square brackets, e.g. 'time [min]'");
+  }
+  return {trim(std::string_view(cell).substr(0, open)), trim(std::string_view(cell).substr(open + 1, close - open - 1))};
+}
+
+}  // namespace
+
+CsvTable CsvTable::read(const std::string& path) {
+  std::ifstream in(path);
+  if (!in) throw InputError(path, 0, "", "cannot open the file for reading");
+  CsvTable table;
+  table.path_ = path;
+  std::string line;
+  std::size_t line_number = 0;
+  while (std::getline(in, line)) {
+    ++line_number;
+    if (!line.empty() && line.back() == '\r') line.pop_back();
+    const std::string trimmed = trim(line);
+    if (trimmed.empty() || trimmed.front() == '#') continue;
+    auto fields = split_fields(line, path, line_number);
+    if (table.columns_.empty()) {
+      table.header_line_ = line_number;
+      for (const auto& cell : fields) {
+        if (cell.empty()) throw InputError(path, line_number, "", "the header has an empty column name");
+        table.columns_.push_back(parse_header_cell(cell, path, line_number));
+      }
+      continue;
+    }
+    if (fields.size() != table.columns_.size()) {
+      throw InputError(path, line_number, "",
+                       fmt::format("expected {} comma-separated fields as in the header (line {}), found {}",
+                                   table.columns_.size(), table.header_line_, fields.size()));
+    }
+    table.rows_.push_back({line_number, std::move(fields)});
+  }
+  if (table.columns_.empty()) throw InputError(path, 0, "", "the file has no header line (only comments or nothing)");
+  return table;
+}
+
+std::optional<std::size_t> CsvTable::find_column(std::string_view name) const {
+  const std::string wanted = lower(name);
+  for (std::size_t i = 0; i < columns_.size(); ++i) {
+    if (lower(columns_[i].name) == wanted) return i;
+  }
+  return std::nullopt;
+}
+
+std::size_t CsvTable::require_column(std::string_view name) const {
+  if (const auto index = find_column(name)) return *index;
+  std::string found;
+  for (const auto& c : columns_) {
+    if (!found.empty()) found += ", ";
+    found += fmt::format("'{}'", c.name);
+  }
+  throw InputError(path_, header_line_, std::string(name), fmt::format("required column is missing; the header has {}", found));
+}
+
+double CsvTable::quantity(std::size_t row, std::size_t column, Dimension dimension) const {
+  const CsvColumn& c = columns_[column];
+  if (c.unit.empty()) {
+    throw InputError(path_, header_line_, c.name,
+                     fmt::format("the header must give a unit in brackets, one of {} (e.g. '{} [{}]')",
+                                 accepted_units(dimension), c.name, internal_unit(dimension)));
+  }
+  const auto factor = unit_factor(dimension, c.unit);
+  if (!factor) {
+    throw InputError(path_, header_line_, c.name,
+                     fmt::format("unit '{}' is not accepted here; use {}", c.unit, accepted_units(dimension)));
+  }
+  const std::string& field = text(row, column);
+  try {
+    return parse_number(field, "value") * *factor;
+  } catch (const InputError&) {
+    throw error_at(row, column, fmt::format("expected a number in {}, got '{}'", c.unit, field));
+  }
+}
+
+bool CsvTable::flag(std::size_t row, std::size_t column) const {
+  const std::string value = lower(text(row, column));
+  if (value == "yes" || value == "y" || value == "true" || value == "1") return true;
+  if (value == "no" || value == "n" || value == "false" || value == "0") return false;
+  throw error_at(row, column, fmt::format("expected yes or no, got '{}'", text(row, column)));
+}
+
+InputError CsvTable::error_at(std::size_t row, std::size_t column, const std::string& message) const {
+  return InputError(path_, rows_[row].line, columns_[column].name, message);
+}
+
+}  // namespace wetfront::cli

@@ -1,0 +1,28 @@
+#include "run_app.hpp"
+
+#include <cstdio>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+#include "input_error.hpp"
+
+namespace wetfront::cli {
+
+int run_app(CLI::App& app, int argc, char** argv) {
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& error) {
+    // --help and --version arrive here with code 0; every other parse error is bad input.
+    return app.exit(error) == 0 ? exit_ok : exit_bad_input;
+  } catch (const InputError& error) {
+    fmt::print(stderr, "error: {}\n", error.what());
+    return exit_bad_input;
+  } catch (const std::invalid_argument& error) {
+    fmt::print(stderr, "error: {}\n", error.what());
+    return exit_bad_input;
+  }
+  return exit_ok;
+}
+
+}  // namespace wetfront::cli
