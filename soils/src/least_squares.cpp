@@ -139,6 +139,15 @@ class Solver {
     result.sum_of_squares = cost;
     result.iterations = iteration;
     result.residual_evaluations = evaluations_;
+    for (Eigen::Index j : free_) {
+      const auto& t = transforms_[static_cast<std::size_t>(j)];
+      const double width = t.has_lower() && t.has_upper() ? t.upper - t.lower : 0.0;
+      const auto near = [&](double bound) {
+        const double scale = width > 0.0 ? width : std::max(1.0, std::abs(bound));
+        return std::isfinite(bound) && std::abs(natural_[j] - bound) <= 1e-6 * scale;
+      };
+      if (near(t.lower) || near(t.upper)) result.at_bound.push_back(problem_.parameters[static_cast<std::size_t>(j)].name);
+    }
     covariance(result);
     return result;
   }

@@ -151,6 +151,7 @@ RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points,
   fit.standard_errors = from_vector(best.standard_errors);
   if (best.correlation.size() == 16) fit.correlation = best.correlation;
   fit.covariance_note = best.covariance_note;
+  fit.at_bound = best.at_bound;
   fit.sum_of_squares = best.sum_of_squares;
   fit.point_count = static_cast<int>(data.size());
   fit.free_parameter_count = free_count;

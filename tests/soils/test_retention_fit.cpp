@@ -90,6 +90,22 @@ TEST(RetentionFit, RoundTripFromPoorStartingGuessesForCoarseAndFineSoils) {
   }
 }
 
+TEST(RetentionFit, ResidualWaterContentStaysWithinItsBound) {
+  // Points from a curve whose theta_r would be negative: the fit stops at the bound theta_r = 0
+  // and says so.
+  const ws::RetentionParameters outside{-0.02, 0.40, 0.02, 1.5};
+  std::vector<ws::RetentionPoint> points;
+  for (const double s : {0.0, 10.0, 30.0, 100.0, 300.0, 1000.0, 3000.0})
+    points.push_back({s, ws::van_genuchten_water_content(outside, s)});
+  ASSERT_GT(points.back().water_content, 0.0);
+  const auto fit = ws::fit_van_genuchten_retention(points);
+  EXPECT_GE(fit.parameters.residual_water_content, 0.0);
+  EXPECT_LT(fit.parameters.residual_water_content, 1e-6);
+  ASSERT_EQ(fit.at_bound.size(), 1u);
+  EXPECT_EQ(fit.at_bound[0], "residual water content");
+  EXPECT_TRUE(ws::fit_van_genuchten_retention(demo_points()).at_bound.empty());
+}
+
 TEST(RetentionFit, FixedResidualWaterContent) {
   ws::RetentionFitOptions options;
   options.fixed_residual_water_content = 0.0;

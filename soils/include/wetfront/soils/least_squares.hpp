@@ -73,6 +73,10 @@ struct LeastSquaresResult {
   Eigen::MatrixXd correlation;
   Eigen::VectorXd standard_errors;   // sqrt(diag(covariance)); NaN when unavailable
   std::string covariance_note;       // why the covariance is unavailable, else empty
+  // Names of free parameters that ended within 1e-6 (relative to the bound width, or to
+  // max(1, |bound|) for a one-sided bound) of a bound: the fit pressed against the bound, and
+  // their standard errors describe the curvature there, not a confidence interval.
+  std::vector<std::string> at_bound;
   StopReason stop_reason = StopReason::iteration_limit;
   int iterations = 0;
   int residual_evaluations = 0;

@@ -48,6 +48,7 @@ struct RetentionFit {
   // unavailable (see covariance_note).
   Eigen::Matrix4d correlation = Eigen::Matrix4d::Constant(std::nan(""));
   std::string covariance_note;
+  std::vector<std::string> at_bound;    // parameters pressed against a bound (see least_squares.hpp)
   double sum_of_squares = 0.0;          // (cm3/cm3)^2
   double rmse = 0.0;                    // sqrt(SSE / N), cm3/cm3
   double r_squared = 0.0;               // 1 - SSE / sum (theta_i - mean)^2
