@@ -11,9 +11,12 @@
 namespace wetfront::cli {
 namespace {
 
+// Lower case, with underscores read as spaces: "Water_Level" and "water level" match.
 std::string lower(std::string_view text) {
   std::string out(text);
-  std::transform(out.begin(), out.end(), out.begin(), [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+  std::transform(out.begin(), out.end(), out.begin(), [](unsigned char c) {
+    return c == '_' ? ' ' : static_cast<char>(std::tolower(c));
+  });
   return out;
 }
 
@@ -49,7 +52,14 @@ std::vector<std::string> split_fields(const std::string& line, const std::string
 
 CsvColumn parse_header_cell(const std::string& cell, const std::string& path, std::size_t line_number) {
   const auto open = cell.find('[');
-  if (open == std::string::npos) return {cell, ""};
+  if (open == std::string::npos) {
+    // The laboratory files' style, "water_level_cm": a known unit after the last underscore.
+    const auto underscore = cell.rfind('_');
+    if (underscore != std::string::npos && is_known_unit(std::string_view(cell).substr(underscore + 1))) {
+      return {cell.substr(0, underscore), cell.substr(underscore + 1)};
+    }
+    return {cell, ""};
+  }
   const auto close = cell.find(']', open);
   if (close == std::string::npos || trim(std::string_view(cell).substr(close + 1)) != "") {
     throw InputError(path, line_number, cell, "a header cell is a name with its unit in square brackets, e.g. 'time [min]'");

@@ -2,7 +2,9 @@
 //
 // Layout: lines starting with '#' are comments and blank lines are skipped anywhere; the
 // first other line is the header. A header cell is a column name with its unit in square
-// brackets, "time [min]"; columns without a unit (yes/no flags, labels) have none. Fields
+// brackets, "time [min]", or (as in the laboratory files) after the last underscore,
+// "time_min"; columns without a unit (yes/no flags, labels) have none. Names match
+// case-insensitively with underscores read as spaces. Fields
 // are separated by commas; a field may be quoted with double quotes. Every error names the
 // file, the line and the column.
 #pragma once

@@ -93,6 +93,14 @@ std::optional<double> unit_factor(Dimension dimension, std::string_view unit) {
   return std::nullopt;
 }
 
+bool is_known_unit(std::string_view unit) {
+  for (const auto dimension : {Dimension::length, Dimension::area, Dimension::time, Dimension::conductivity,
+                               Dimension::inverse_length, Dimension::pressure_head, Dimension::water_content}) {
+    if (unit_factor(dimension, unit)) return true;
+  }
+  return false;
+}
+
 double parse_number(std::string_view text, const std::string& what) {
   const std::string trimmed = trim(text);
   if (const auto value = to_double(trimmed)) return *value;

@@ -26,6 +26,9 @@ std::string accepted_units(Dimension dimension);
 // not one of the accepted ones for the dimension.
 std::optional<double> unit_factor(Dimension dimension, std::string_view unit);
 
+// True when `unit` is accepted for some dimension (used to read "time_min" style headers).
+bool is_known_unit(std::string_view unit);
+
 // Parses "<number> <unit>" (space optional: "3cm" also works) into internal units.
 // Throws InputError naming `what` (e.g. "option --well-radius") and the accepted units
 // when the unit is missing, unknown or the number does not parse.

@@ -6,6 +6,7 @@
 #include <fmt/format.h>
 
 #include "input_error.hpp"
+#include "wetfront/soils/lab_csv.hpp"
 
 namespace wetfront::cli {
 
@@ -16,6 +17,9 @@ int run_app(CLI::App& app, int argc, char** argv) {
     // --help and --version arrive here with code 0; every other parse error is bad input.
     return app.exit(error) == 0 ? exit_ok : exit_bad_input;
   } catch (const InputError& error) {
+    fmt::print(stderr, "error: {}\n", error.what());
+    return exit_bad_input;
+  } catch (const soils::LabDataError& error) {
     fmt::print(stderr, "error: {}\n", error.what());
     return exit_bad_input;
   } catch (const std::invalid_argument& error) {

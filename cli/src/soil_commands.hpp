@@ -12,5 +12,8 @@ void add_soil_commands(CLI::App& app);
 void add_permeameter_command(CLI::App& soil);
 void add_infiltrometer_command(CLI::App& soil);
 void add_texture_command(CLI::App& soil);
+void add_cores_command(CLI::App& soil);
+void add_retention_command(CLI::App& soil);
+void add_layer_command(CLI::App& soil);
 
 }  // namespace wetfront::cli

@@ -72,3 +72,33 @@ wetfront_cli_check(bad_disc_positive_head 1 "disc-positive-head\\.csv:6: column 
 wetfront_cli_check(bad_field_count 1 "wrong-field-count\\.csv:3: expected 4 comma-separated fields"
                    soil infiltrometer ${bad_dir}/wrong-field-count.csv ${disc_options})
 wetfront_cli_check(bad_unknown_command 1 "" soil sprinkle)
+
+# Laboratory data (file formats of wetfront/soils/lab_csv.hpp). Ring A, 100 cm3, oven-dry
+# 231.0 g, tare 82.0 g: bulk density 149.0 / 100 = 1.49 g/cm3 (hand arithmetic).
+wetfront_cli_check(cores_bulk_density 0 "ring A +0\\.15 +0\\.1007 +1\\.49 +0\\.4377"
+                   soil cores ${example_dir}/cores.csv)
+wetfront_cli_check(cores_steps 0 "ring A +336\\.5 +33 +0\\.149"
+                   soil cores ${example_dir}/cores.csv --steps ${example_dir}/suction-steps.csv)
+# Pooled fit of the 22 invented points; scipy.optimize.curve_fit on the same points gives
+# theta_r 0.05579, theta_s 0.41952, alpha 0.029844 1/cm, n 1.58135.
+wetfront_cli_check(retention_pooled 0 "theta_r = 0\\.05579, theta_s = 0\\.4195 cm3/cm3, alpha = 0\\.02984 1/cm, n = 1\\.581"
+                   soil retention ${example_dir}/retention-points.csv)
+wetfront_cli_check(retention_fixed_residual 0 "theta_r = 0\\.06, .*theta_r held fixed"
+                   soil retention --cores ${example_dir}/cores.csv --steps ${example_dir}/suction-steps.csv
+                   --fix-residual 0.06 --sample "ring A")
+wetfront_cli_check(layer_block 0 "saturated_conductivity = \"30\\.11 cm/d\"\n# pore connectivity l: default of Mualem \\(1976\\)\npore_connectivity = 0\\.5"
+                   soil layer --name "loam topsoil" --top "0 cm" --bottom "30 cm"
+                   --retention ${example_dir}/retention-points.csv
+                   --permeameter ${example_dir}/well-permeameter.csv ${well_options})
+wetfront_cli_check(layer_texture 0 "# theta_r, theta_s, alpha, n: class average for loam \\(Carsel & Parrish 1988\\)\nresidual_water_content = 0\\.078"
+                   soil layer --name subsoil --top "30 cm" --bottom "1 m" --texture loam
+                   --infiltrometer ${example_dir}/tension-disc.csv ${disc_options})
+wetfront_cli_check(bad_layer_two_conductivities 1 "give exactly one of --permeameter"
+                   soil layer --name x --top "0 cm" --bottom "30 cm" --texture loam
+                   --saturated-conductivity "2 cm/h" --infiltrometer ${example_dir}/tension-disc.csv ${disc_options})
+wetfront_cli_check(bad_layer_depths 1 "bottom lies below the top"
+                   soil layer --name x --top "30 cm" --bottom "10 cm" --texture loam --saturated-conductivity "2 cm/h")
+wetfront_cli_check(bad_retention_rising 1 "retention-rising\\.csv"
+                   soil retention ${bad_dir}/retention-rising.csv)
+wetfront_cli_check(bad_cores_mass 1 "cores-dry-above-wet\\.csv:2: core sample .ring X.: wet mass"
+                   soil cores ${bad_dir}/cores-dry-above-wet.csv)

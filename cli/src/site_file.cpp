@@ -1,0 +1,579 @@
+#include "site_file.hpp"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <fstream>
+#include <sstream>
+
+#include <fmt/format.h>
+#include <toml++/toml.h>
+
+#include "input_error.hpp"
+#include "site_keys.hpp"
+#include "wetfront/soils/parameter_checks.hpp"
+#include "wetfront/soils/texture_classes.hpp"
+
+namespace wetfront::cli {
+namespace {
+
+using Keys = std::span<const std::string_view>;
+
+constexpr std::array<std::string_view, 11> top_keys = {"site",  "run",     "layer",  "grid",   "initial", "bottom",
+                                                       "surface", "weather", "pan", "crop", "sensor"};
+constexpr std::array<std::string_view, 2> tail_keys = {"recharge", "solver"};
+
+std::vector<std::string_view> all_top_keys() {
+  std::vector<std::string_view> keys(top_keys.begin(), top_keys.end());
+  keys.insert(keys.end(), tail_keys.begin(), tail_keys.end());
+  return keys;
+}
+
+forcing::TimePoint date_value(const SiteTable& table, std::string_view key, const std::string& text) {
+  const auto time = forcing::parse_timestamp(trim(text));
+  if (!time) {
+    table.fail(key, fmt::format("'{}' is not a date; write YYYY-MM-DD or YYYY-MM-DDThh:mm[:ss]", text));
+  }
+  return *time;
+}
+
+forcing::TimePoint date_of(const SiteTable& table, std::string_view key) {
+  return date_value(table, key, table.text(key));
+}
+
+std::vector<double> day_list(const SiteTable& table, std::string_view key, forcing::TimePoint start) {
+  std::vector<double> days;
+  for (const auto& text : table.text_list(key)) days.push_back(forcing::days_since(start, date_value(table, key, text)));
+  for (std::size_t i = 1; i < days.size(); ++i) {
+    if (!(days[i] > days[i - 1])) {
+      table.fail(key, fmt::format("entry {} is not later than entry {}; dates must increase", i + 1, i));
+    }
+  }
+  return days;
+}
+
+// "2.5 m/s" style values with a short list of units of our own.
+double value_in_units(const SiteTable& table, std::string_view key,
+                      std::span<const std::pair<std::string_view, double>> units) {
+  std::string accepted;
+  for (const auto& [unit, factor] : units) accepted += (accepted.empty() ? "" : " or ") + std::string(unit);
+  if (!table.has(key)) table.text(key);  // throws "missing key"
+  std::string text;
+  try {
+    text = table.text(key);
+  } catch (const InputError&) {
+    table.fail(key, fmt::format("expected a string with a unit ({}), e.g. \"2 {}\"", accepted, units[0].first));
+  }
+  const std::string trimmed = trim(text);
+  const auto space = trimmed.find_first_not_of("0123456789.+-eE");
+  const std::string number_text = trimmed.substr(0, space);
+  const std::string unit = space == std::string::npos ? std::string() : trim(trimmed.substr(space));
+  double value = 0;
+  try {
+    value = parse_number(number_text, "value");
+  } catch (const InputError&) {
+    table.fail(key, fmt::format("expected a number with a unit ({}), got '{}'", accepted, trimmed));
+  }
+  for (const auto& [name, factor] : units) {
+    if (name == unit) return value * factor;
+  }
+  if (unit.empty()) table.fail(key, fmt::format("'{}' has no unit; write it with one of {}", trimmed, accepted));
+  table.fail(key, fmt::format("unit '{}' is not accepted here; use {}", unit, accepted));
+}
+
+std::filesystem::path existing_file(const SiteTable& table, std::string_view key, const std::filesystem::path& folder) {
+  const std::string text = table.text(key);
+  const std::filesystem::path path = folder / text;
+  std::error_code error;
+  if (!std::filesystem::is_regular_file(path, error)) {
+    table.fail(key, fmt::format("file '{}' not found (paths are relative to the site file's folder)", path.string()));
+  }
+  return path;
+}
+
+forcing::GapPolicy gap_policy(const SiteTable& table, std::string_view key, forcing::GapPolicy fallback) {
+  static constexpr std::array<std::string_view, 3> choices = {"error", "no water", "end run"};
+  const auto choice = table.optional_choice(key, choices);
+  if (!choice) return fallback;
+  if (*choice == "no water") return forcing::GapPolicy::fill_with_zero;
+  if (*choice == "end run") return forcing::GapPolicy::stop_run_at_gap;
+  return forcing::GapPolicy::error;
+}
+
+ForcingFile forcing_file(const SiteTable& table, std::string_view key, std::string_view gaps_key,
+                         const std::filesystem::path& folder, forcing::GapPolicy fallback) {
+  ForcingFile file;
+  file.path = existing_file(table, key, folder);
+  file.gaps = gap_policy(table, gaps_key, fallback);
+  file.line = table.line_of(key);
+  file.key = table.key_name(key);
+  return file;
+}
+
+// --- [[layer]] ---------------------------------------------------------------------------
+
+soils::HydraulicModel layer_model(const SiteTable& layer) {
+  static constexpr std::array<std::string_view, 4> models = {"van genuchten", "van genuchten air entry",
+                                                             "brooks corey", "gardner"};
+  if (layer.has("texture")) {
+    if (layer.has("model")) layer.fail("model", "give either 'texture' (class defaults) or 'model' with parameters, not both");
+    const std::string name = layer.text("texture");
+    try {
+      return soils::texture_class_parameters(name);
+    } catch (const std::invalid_argument& error) {
+      layer.fail("texture", error.what());
+    }
+  }
+  if (!layer.has("model")) {
+    layer.fail("", "a layer needs either 'texture' (a USDA texture class) or 'model' (" +
+                       std::string("van genuchten, van genuchten air entry, brooks corey or gardner) with its parameters"));
+  }
+  const std::string model = layer.choice("model", models);
+  const double theta_r = layer.quantity("residual_water_content", Dimension::water_content);
+  const double theta_s = layer.quantity("saturated_water_content", Dimension::water_content);
+  const double ks = layer.quantity("saturated_conductivity", Dimension::conductivity);
+  if (model == "van genuchten" || model == "van genuchten air entry") {
+    soils::VanGenuchtenMualem vg;
+    vg.residual_water_content = theta_r;
+    vg.saturated_water_content = theta_s;
+    vg.alpha_per_cm = layer.quantity("alpha", Dimension::inverse_length);
+    vg.n = layer.number("n");
+    vg.saturated_conductivity_cm_per_d = ks;
+    vg.pore_connectivity = layer.optional_number("pore_connectivity").value_or(0.5);
+    if (model == "van genuchten") return vg;
+    return soils::VanGenuchtenAirEntry{vg, layer.quantity("air_entry_head", Dimension::pressure_head)};
+  }
+  if (model == "brooks corey") {
+    soils::BrooksCorey bc;
+    bc.residual_water_content = theta_r;
+    bc.saturated_water_content = theta_s;
+    bc.bubbling_head_cm = layer.quantity("bubbling_head", Dimension::pressure_head);
+    bc.pore_size_index = layer.number("pore_size_index");
+    bc.saturated_conductivity_cm_per_d = ks;
+    return bc;
+  }
+  soils::GardnerExponential g;
+  g.residual_water_content = theta_r;
+  g.saturated_water_content = theta_s;
+  g.sorptive_number_per_cm = layer.quantity("sorptive_number", Dimension::inverse_length);
+  g.saturated_conductivity_cm_per_d = ks;
+  return g;
+}
+
+std::vector<soils::SoilLayer> read_layers(const SiteTable& root) {
+  static constexpr std::array<std::string_view, 16> keys = {
+      "name", "top", "bottom", "texture", "model", "residual_water_content", "saturated_water_content", "alpha", "n",
+      "saturated_conductivity", "pore_connectivity", "air_entry_head", "bubbling_head", "pore_size_index",
+      "sorptive_number", "note"};
+  const auto tables = root.table_array("layer");
+  if (tables.empty()) root.fail("layer", "the site needs at least one [[layer]] table (soil layers from the surface down)");
+  std::vector<soils::SoilLayer> layers;
+  for (const auto& table : tables) {
+    table.only_keys(keys);
+    soils::SoilLayer layer;
+    layer.name = table.optional_text("name").value_or(table.key_name(""));
+    layer.top_depth_cm = table.quantity("top", Dimension::length);
+    layer.bottom_depth_cm = table.quantity("bottom", Dimension::length);
+    if (layers.empty() && std::abs(layer.top_depth_cm) > 1e-9) {
+      table.fail("top", fmt::format("the first layer must start at the surface (0 cm), not at {} cm", layer.top_depth_cm));
+    }
+    if (!layers.empty()) {
+      const double above = layers.back().bottom_depth_cm;
+      if (layer.top_depth_cm < above - 1e-9) {
+        table.fail("top", fmt::format("layer overlaps the one above: it starts at {} cm but the layer above ends at {} cm",
+                                      layer.top_depth_cm, above));
+      }
+      if (layer.top_depth_cm > above + 1e-9) {
+        table.fail("top", fmt::format("gap between layers: the layer above ends at {} cm but this one starts at {} cm",
+                                      above, layer.top_depth_cm));
+      }
+    }
+    if (!(layer.bottom_depth_cm > layer.top_depth_cm)) {
+      table.fail("bottom", fmt::format("bottom ({} cm) must be deeper than top ({} cm)", layer.bottom_depth_cm,
+                                       layer.top_depth_cm));
+    }
+    layer.model = layer_model(table);
+    try {
+      soils::check_hydraulic_model(layer.model, layer.name);
+    } catch (const std::invalid_argument& error) {
+      table.fail("", error.what());
+    }
+    layers.push_back(std::move(layer));
+  }
+  return layers;
+}
+
+// --- [initial] and [bottom] --------------------------------------------------------------
+
+void read_initial(const SiteTable& root, double column_depth_cm, SiteSetup& site) {
+  static constexpr std::array<std::string_view, 3> kinds = {"water table", "uniform head", "head table"};
+  static constexpr std::array<std::string_view, 5> keys = {"kind", "water_table_depth", "head", "depths", "heads"};
+  const auto table = root.subtable("initial");
+  if (!table) root.fail("initial", "missing table [initial] (the water in the column at the run start)");
+  table->only_keys(keys);
+  const std::string kind = table->choice("kind", kinds);
+  if (kind == "water table") {
+    const double depth = table->quantity("water_table_depth", Dimension::length);
+    site.initial = solver::Hydrostatic{depth};
+    site.initial_text = fmt::format("at rest over a water table at {} cm", depth);
+  } else if (kind == "uniform head") {
+    const double head = table->quantity("head", Dimension::pressure_head);
+    site.initial = solver::UniformHead{head};
+    site.initial_text = fmt::format("uniform pressure head {} cm", head);
+  } else {
+    solver::HeadTable head_table{table->quantity_list("depths", Dimension::length),
+                                 table->quantity_list("heads", Dimension::pressure_head)};
+    if (head_table.depth_cm.size() != head_table.head_cm.size() || head_table.depth_cm.empty()) {
+      table->fail("heads", fmt::format("needs one head per depth ({} depths, {} heads)", head_table.depth_cm.size(),
+                                       head_table.head_cm.size()));
+    }
+    for (std::size_t i = 0; i < head_table.depth_cm.size(); ++i) {
+      if (head_table.depth_cm[i] < 0 || head_table.depth_cm[i] > column_depth_cm + 1e-9) {
+        table->fail("depths", fmt::format("entry {} ({} cm) is outside the column (0 to {} cm)", i + 1,
+                                          head_table.depth_cm[i], column_depth_cm));
+      }
+      if (i > 0 && !(head_table.depth_cm[i] > head_table.depth_cm[i - 1])) {
+        table->fail("depths", fmt::format("entry {} is not deeper than entry {}; depths must increase", i + 1, i));
+      }
+    }
+    site.initial_text = fmt::format("pressure heads at {} depths, interpolated", head_table.depth_cm.size());
+    site.initial = std::move(head_table);
+  }
+}
+
+void read_bottom(const SiteTable& root, double column_depth_cm, SiteSetup& site) {
+  static constexpr std::array<std::string_view, 4> kinds = {"water table", "free drainage", "no flow", "seepage face"};
+  static constexpr std::array<std::string_view, 3> keys = {"kind", "water_table_depth", "head"};
+  const auto table = root.subtable("bottom");
+  if (!table) root.fail("bottom", "missing table [bottom] (the boundary at the column bottom)");
+  table->only_keys(keys);
+  const std::string kind = table->choice("kind", kinds);
+  if (kind == "water table") {
+    if (table->has("water_table_depth") == table->has("head")) {
+      table->fail("kind", "a water table bottom needs exactly one of 'water_table_depth' or 'head' (pressure head at the column bottom)");
+    }
+    double head = 0;
+    if (table->has("head")) {
+      head = table->quantity("head", Dimension::pressure_head);
+    } else {
+      const double depth = table->quantity("water_table_depth", Dimension::length);
+      head = column_depth_cm - depth;
+      if (depth < 0) table->fail("water_table_depth", "must be at or below the surface (positive)");
+    }
+    site.bottom = solver::FixedHead{head};
+    site.bottom_text = fmt::format("fixed pressure head {} cm at {} cm (water table at {} cm)", head, column_depth_cm,
+                                   column_depth_cm - head);
+  } else if (kind == "free drainage") {
+    site.bottom = solver::FreeDrainage{};
+    site.bottom_text = "free drainage (unit gradient)";
+  } else if (kind == "no flow") {
+    site.bottom = solver::ZeroFlux{};
+    site.bottom_text = "no flow";
+  } else {
+    site.bottom = solver::SeepageFace{};
+    site.bottom_text = "seepage face (outflow only when the bottom saturates)";
+  }
+}
+
+// --- [crop] ------------------------------------------------------------------------------
+
+forcing::DatedTable dated_table(const SiteTable& table, std::string quantity, std::string_view values_key,
+                                std::optional<Dimension> dimension, forcing::TimePoint start, double lowest,
+                                double highest) {
+  static constexpr std::array<std::string_view, 4> keys = {"dates", "values", "depths", "note"};
+  table.only_keys(keys);
+  forcing::DatedTable out;
+  out.quantity = std::move(quantity);
+  out.days = day_list(table, "dates", start);
+  out.values = dimension ? table.quantity_list(values_key, *dimension) : table.number_list(values_key);
+  if (out.days.size() != out.values.size() || out.days.empty()) {
+    table.fail(values_key, fmt::format("needs one value per date ({} dates, {} values)", out.days.size(), out.values.size()));
+  }
+  for (std::size_t i = 0; i < out.values.size(); ++i) {
+    if (out.values[i] < lowest || out.values[i] > highest) {
+      table.fail(values_key, fmt::format("entry {} ({}) is outside {} to {}", i + 1, out.values[i], lowest, highest));
+    }
+  }
+  return out;
+}
+
+void read_crop(const SiteTable& root, SiteSetup& site) {
+  static constexpr std::array<std::string_view, 17> keys = {
+      "name", "planting", "initial_stage", "development_stage", "mid_season_stage", "late_season_stage",
+      "kc_initial", "kc_mid", "kc_end", "kc_bare_soil", "evaporation_split", "extinction_coefficient",
+      "leaf_area_index", "soil_cover", "root_depth", "note", "max_root_depth"};
+  const auto table = root.subtable("crop");
+  if (!table) root.fail("crop", "missing table [crop] (crop stages and coefficients; describe bare soil as a crop with kc values)");
+  table->only_keys(keys);
+  CropSetup& crop = site.crop;
+  crop.name = table->optional_text("name").value_or("crop");
+  auto& curve = crop.kc_curve;
+  curve.planting_day = forcing::days_since(site.run_start, date_of(*table, "planting"));
+  curve.stages.initial_days = table->quantity("initial_stage", Dimension::time);
+  curve.stages.development_days = table->quantity("development_stage", Dimension::time);
+  curve.stages.mid_season_days = table->quantity("mid_season_stage", Dimension::time);
+  curve.stages.late_season_days = table->quantity("late_season_stage", Dimension::time);
+  curve.kc_initial = table->number("kc_initial");
+  curve.kc_mid = table->number("kc_mid");
+  curve.kc_end = table->number("kc_end");
+  curve.kc_bare_soil = table->number("kc_bare_soil");
+  try {
+    forcing::check_crop_curve(curve);
+  } catch (const std::invalid_argument& error) {
+    table->fail("", error.what());
+  }
+  static constexpr std::array<std::string_view, 2> splits = {"leaf area index", "soil cover"};
+  const std::string split = table->optional_choice("evaporation_split", splits).value_or("leaf area index");
+  crop.split.method = split == "soil cover" ? forcing::CanopySplit::Method::soil_cover
+                                            : forcing::CanopySplit::Method::leaf_area_index;
+  crop.split.extinction_coefficient =
+      table->optional_number("extinction_coefficient").value_or(forcing::default_extinction_coefficient);
+  if (!(crop.split.extinction_coefficient > 0 && crop.split.extinction_coefficient <= 2)) {
+    table->fail("extinction_coefficient", "must lie in (0, 2]");
+  }
+  if (const auto lai = table->subtable("leaf_area_index")) {
+    crop.split.leaf_area_index = dated_table(*lai, "leaf area index", "values", std::nullopt, site.run_start, 0, 15);
+  } else if (crop.split.method == forcing::CanopySplit::Method::leaf_area_index) {
+    table->fail("leaf_area_index", "missing table [crop.leaf_area_index] with 'dates' and 'values' (m2/m2), needed by the leaf area index split");
+  }
+  if (const auto cover = table->subtable("soil_cover")) {
+    crop.split.soil_cover = dated_table(*cover, "soil cover fraction", "values", std::nullopt, site.run_start, 0, 1);
+  } else if (crop.split.method == forcing::CanopySplit::Method::soil_cover) {
+    table->fail("soil_cover", "missing table [crop.soil_cover] with 'dates' and 'values' (fraction 0 to 1)");
+  }
+  if (const auto roots = table->subtable("root_depth")) {
+    const double column = site.layers.back().bottom_depth_cm;
+    crop.root_depth_cm = dated_table(*roots, "root depth", "depths", Dimension::length, site.run_start, 0, column);
+  }
+}
+
+// --- [pan] -------------------------------------------------------------------------------
+
+void read_pan(const SiteTable& root, const std::filesystem::path& folder, SiteSetup& site) {
+  static constexpr std::array<std::string_view, 9> keys = {"readings", "daily_evaporation", "gaps", "coefficient",
+                                                           "coefficient_method", "surroundings", "wind_speed",
+                                                           "relative_humidity", "fetch"};
+  const auto table = root.subtable("pan");
+  if (!table) root.fail("pan", "missing table [pan] (Class A pan records and pan coefficient)");
+  table->only_keys(keys);
+  if (table->has("readings") == table->has("daily_evaporation")) {
+    table->fail("readings", "give exactly one of 'readings' (hook-gauge readings CSV) or 'daily_evaporation' (pan evaporation CSV)");
+  }
+  if (table->has("readings")) {
+    site.pan.readings = forcing_file(*table, "readings", "gaps", folder, forcing::GapPolicy::error);
+  } else {
+    site.pan.daily_evaporation = forcing_file(*table, "daily_evaporation", "gaps", folder, forcing::GapPolicy::error);
+  }
+  static constexpr std::array<std::string_view, 3> methods = {"value", "table", "regression"};
+  const std::string method = table->optional_choice("coefficient_method", methods).value_or("value");
+  auto& choice = site.pan.coefficient;
+  if (method == "value") {
+    choice.method = forcing::PanCoefficientChoice::Method::user_value;
+    choice.user_value = table->number("coefficient");
+    if (!(choice.user_value > 0 && choice.user_value <= 1.2)) table->fail("coefficient", "must lie in (0, 1.2]");
+    return;
+  }
+  if (table->has("coefficient")) table->fail("coefficient", fmt::format("not used with coefficient_method = \"{}\"; remove it", method));
+  choice.method = method == "table" ? forcing::PanCoefficientChoice::Method::table
+                                    : forcing::PanCoefficientChoice::Method::regression;
+  static constexpr std::array<std::string_view, 2> surroundings = {"green crop", "dry fallow"};
+  choice.site.surroundings = table->choice("surroundings", surroundings) == "green crop"
+                                 ? forcing::PanSurroundings::green_fetch
+                                 : forcing::PanSurroundings::dry_fetch;
+  static constexpr std::array<std::pair<std::string_view, double>, 2> speed = {{{"m/s", 1.0}, {"km/h", 1.0 / 3.6}}};
+  static constexpr std::array<std::pair<std::string_view, double>, 1> percent = {{{"%", 1.0}}};
+  choice.site.wind_speed_2m_m_per_s = value_in_units(*table, "wind_speed", speed);
+  choice.site.mean_relative_humidity_pct = value_in_units(*table, "relative_humidity", percent);
+  choice.site.fetch_m = table->quantity("fetch", Dimension::length) / 100.0;
+  try {
+    (void)forcing::pan_coefficient(choice);
+  } catch (const std::invalid_argument& error) {
+    table->fail("coefficient_method", error.what());
+  }
+}
+
+// --- [[sensor]] --------------------------------------------------------------------------
+
+void read_sensors(const SiteTable& root, const std::filesystem::path& folder, double column_depth_cm, SiteSetup& site) {
+  static constexpr std::array<std::string_view, 5> keys = {"name", "kind", "depth", "readings", "note"};
+  static constexpr std::array<std::string_view, 2> kinds = {"tensiometer", "water content probe"};
+  for (const auto& table : root.table_array("sensor")) {
+    table.only_keys(keys);
+    SensorSetup sensor;
+    sensor.name = table.text("name");
+    sensor.kind = table.choice("kind", kinds);
+    sensor.depth_cm = table.quantity("depth", Dimension::length);
+    if (!(sensor.depth_cm > 0 && sensor.depth_cm < column_depth_cm)) {
+      table.fail("depth", fmt::format("{} cm is not inside the column (0 to {} cm, the bottom of the last layer)",
+                                      sensor.depth_cm, column_depth_cm));
+    }
+    sensor.readings = existing_file(table, "readings", folder);
+    for (const auto& other : site.sensors) {
+      if (other.name == sensor.name) table.fail("name", fmt::format("sensor name '{}' is used twice", sensor.name));
+    }
+    site.sensors.push_back(std::move(sensor));
+  }
+}
+
+// --- [solver], [grid], [surface] ---------------------------------------------------------
+
+void read_numerics(const SiteTable& root, SiteSetup& site) {
+  if (const auto grid = root.subtable("grid")) {
+    static constexpr std::array<std::string_view, 3> keys = {"surface_cell", "growth_factor", "max_cell"};
+    grid->only_keys(keys);
+    site.grid.surface_cell_cm = grid->optional_quantity("surface_cell", Dimension::length).value_or(site.grid.surface_cell_cm);
+    site.grid.growth_factor = grid->optional_number("growth_factor").value_or(site.grid.growth_factor);
+    site.grid.max_cell_cm = grid->optional_quantity("max_cell", Dimension::length).value_or(site.grid.max_cell_cm);
+    if (!(site.grid.surface_cell_cm > 0)) grid->fail("surface_cell", "must be positive");
+    if (!(site.grid.growth_factor >= 1 && site.grid.growth_factor <= 2)) grid->fail("growth_factor", "must lie in [1, 2]");
+    if (!(site.grid.max_cell_cm >= site.grid.surface_cell_cm)) grid->fail("max_cell", "must be at least surface_cell");
+  }
+  if (const auto surface = root.subtable("surface")) {
+    static constexpr std::array<std::string_view, 2> keys = {"dry_limit", "max_ponding"};
+    surface->only_keys(keys);
+    site.dry_limit_head_cm = surface->optional_quantity("dry_limit", Dimension::pressure_head).value_or(site.dry_limit_head_cm);
+    site.max_ponded_depth_cm = surface->optional_quantity("max_ponding", Dimension::length).value_or(0.0);
+    if (!(site.dry_limit_head_cm < 0)) surface->fail("dry_limit", "must be a negative pressure head, e.g. \"-1500 kPa\"");
+    if (site.max_ponded_depth_cm < 0) surface->fail("max_ponding", "must not be negative");
+  }
+  if (const auto solver = root.subtable("solver")) {
+    static constexpr std::array<std::string_view, 4> keys = {"relative_tolerance", "storage_tolerance", "max_step",
+                                                             "face_conductivity"};
+    solver->only_keys(keys);
+    auto& s = site.settings;
+    s.relative_tolerance = solver->optional_number("relative_tolerance").value_or(s.relative_tolerance);
+    s.absolute_tolerance_storage_cm =
+        solver->optional_quantity("storage_tolerance", Dimension::length).value_or(s.absolute_tolerance_storage_cm);
+    s.max_step_days = solver->optional_quantity("max_step", Dimension::time).value_or(s.max_step_days);
+    if (!(s.relative_tolerance > 0 && s.relative_tolerance < 0.1)) solver->fail("relative_tolerance", "must lie in (0, 0.1)");
+    if (!(s.absolute_tolerance_storage_cm > 0)) solver->fail("storage_tolerance", "must be positive");
+    if (!(s.max_step_days > 0)) solver->fail("max_step", "must be positive");
+    static constexpr std::array<std::string_view, 3> means = {"arithmetic", "geometric", "harmonic"};
+    if (const auto mean = solver->optional_choice("face_conductivity", means)) {
+      site.face_conductivity = *mean == "harmonic"    ? solver::FaceConductivity::harmonic
+                               : *mean == "geometric" ? solver::FaceConductivity::geometric
+                                                      : solver::FaceConductivity::arithmetic;
+    }
+  }
+}
+
+}  // namespace
+
+SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOverride& period) {
+  const std::string file = site_file.string();
+  std::ifstream stream(site_file, std::ios::binary);
+  if (!stream) throw InputError(file, 0, "", "cannot open the site file (missing or unreadable)");
+  std::stringstream buffer;
+  buffer << stream.rdbuf();
+  toml::table document;
+  try {
+    document = toml::parse(buffer.str(), file);
+  } catch (const toml::parse_error& error) {
+    throw InputError(file, error.source().begin.line, "", fmt::format("not valid TOML: {}", error.description()));
+  }
+  const SiteTable root(document, "", file);
+  const auto top = all_top_keys();
+  root.only_keys(top);
+  const std::filesystem::path folder = site_file.parent_path().empty() ? "." : site_file.parent_path();
+
+  SiteSetup site;
+  site.site_file = site_file;
+  {
+    const auto table = root.subtable("site");
+    if (!table) root.fail("site", "missing table [site] with at least 'name'");
+    static constexpr std::array<std::string_view, 3> keys = {"name", "location", "description"};
+    table->only_keys(keys);
+    site.name = table->text("name");
+    site.location = table->optional_text("location").value_or("");
+    site.description = table->optional_text("description").value_or("");
+  }
+  const auto run = root.subtable("run");
+  if (!run) root.fail("run", "missing table [run] with 'start' and 'end' dates");
+  static constexpr std::array<std::string_view, 4> run_keys = {"start", "end", "output_interval", "visits"};
+  run->only_keys(run_keys);
+  std::string start_text = trim(run->text("start"));
+  std::string end_text = trim(run->text("end"));
+  forcing::TimePoint start = date_of(*run, "start");
+  forcing::TimePoint end = date_of(*run, "end");
+  const bool overridden = !period.from.empty() || !period.to.empty();
+  if (!period.from.empty()) {
+    const auto t = forcing::parse_timestamp(period.from);
+    if (!t) throw InputError(fmt::format("option --from: '{}' is not a date; write YYYY-MM-DD", period.from));
+    start = *t;
+    start_text = trim(period.from);
+  }
+  if (!period.to.empty()) {
+    const auto t = forcing::parse_timestamp(period.to);
+    if (!t) throw InputError(fmt::format("option --to: '{}' is not a date; write YYYY-MM-DD", period.to));
+    end = *t;
+    end_text = trim(period.to);
+  }
+  site.run_start = start;
+  site.run_start_text = start_text;
+  site.run_end_text = end_text;
+  site.run_length_days = forcing::days_since(start, end);
+  if (!(site.run_length_days > 0)) {
+    if (overridden) throw InputError(fmt::format("the run period {} to {} is empty; --to must be after --from", start_text, end_text));
+    run->fail("end", fmt::format("the run must end after it starts ({} to {})", start_text, end_text));
+  }
+  site.output_interval_days = run->optional_quantity("output_interval", Dimension::time).value_or(1.0);
+  if (!(site.output_interval_days > 0)) run->fail("output_interval", "must be positive");
+  if (run->has("visits")) {
+    const auto texts = run->text_list("visits");
+    double previous = -1;
+    for (std::size_t i = 0; i < texts.size(); ++i) {
+      const double day = forcing::days_since(start, date_value(*run, "visits", texts[i]));
+      if (day <= previous) run->fail("visits", fmt::format("entry {} ({}) is not later than the entry before", i + 1, texts[i]));
+      previous = day;
+      if (day < 0 || day > site.run_length_days + 1e-9) {
+        if (overridden) continue;  // a shorter period keeps the visits inside it
+        run->fail("visits", fmt::format("entry {} ({}) is outside the run ({} to {})", i + 1, texts[i], start_text, end_text));
+      }
+      site.visit_days.push_back(day);
+      site.visit_dates.push_back(trim(texts[i]));
+    }
+  }
+
+  site.layers = read_layers(root);
+  const double column_depth = site.layers.back().bottom_depth_cm;
+  read_initial(root, column_depth, site);
+  read_bottom(root, column_depth, site);
+
+  {
+    const auto weather = root.subtable("weather");
+    if (!weather) root.fail("weather", "missing table [weather] with at least 'rain' (a CSV file of rain depths)");
+    static constexpr std::array<std::string_view, 4> keys = {"rain", "rain_gaps", "irrigation", "irrigation_gaps"};
+    weather->only_keys(keys);
+    site.rain = forcing_file(*weather, "rain", "rain_gaps", folder, forcing::GapPolicy::error);
+    if (weather->has("irrigation")) {
+      site.irrigation = forcing_file(*weather, "irrigation", "irrigation_gaps", folder, forcing::GapPolicy::fill_with_zero);
+    }
+  }
+  read_pan(root, folder, site);
+  read_crop(root, site);
+  read_sensors(root, folder, column_depth, site);
+
+  {
+    const auto recharge = root.subtable("recharge");
+    if (!recharge) root.fail("recharge", "missing table [recharge] with 'plane_depth' (where recharge is counted)");
+    static constexpr std::array<std::string_view, 1> keys = {"plane_depth"};
+    recharge->only_keys(keys);
+    site.recharge_plane_depth_cm = recharge->quantity("plane_depth", Dimension::length);
+    if (!(site.recharge_plane_depth_cm > 0 && site.recharge_plane_depth_cm <= column_depth + 1e-9)) {
+      recharge->fail("plane_depth", fmt::format("{} cm is not inside the column (0 to {} cm)", site.recharge_plane_depth_cm,
+                                                column_depth));
+    }
+  }
+  read_numerics(root, site);
+
+  site.grid.depth_cm = column_depth;
+  auto& faces = site.grid.required_face_depths_cm;
+  for (const auto& layer : site.layers) faces.push_back(layer.bottom_depth_cm);
+  for (const auto& sensor : site.sensors) faces.push_back(sensor.depth_cm);
+  faces.push_back(site.recharge_plane_depth_cm);
+  std::sort(faces.begin(), faces.end());
+  faces.erase(std::unique(faces.begin(), faces.end(), [](double a, double b) { return std::abs(a - b) < 1e-9; }), faces.end());
+  return site;
+}
+
+}  // namespace wetfront::cli
