@@ -69,6 +69,7 @@ double saturated_conductivity(const HydraulicModel& model) {
 }
 
 HydraulicState evaluate(const HydraulicModel& model, double h) {
+  if (const auto* vg = std::get_if<VanGenuchtenMualem>(&model)) return detail::state(*vg, h);
   return std::visit(
       [h](const auto& m) {
         const auto s = detail::saturation(m, h);

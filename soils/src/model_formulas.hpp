@@ -23,6 +23,8 @@ struct MualemFactor {
   double slope_per_cm;
 };
 MualemFactor mualem_factor(const VanGenuchtenMualem& m, double h);
+// theta, C, K and dK/dh of the van Genuchten-Mualem model in one pass (the solver's hot path).
+HydraulicState state(const VanGenuchtenMualem& m, double h);
 ConductivityAndSlope conductivity(const VanGenuchtenMualem& m, double h);
 double head_at_saturation(const VanGenuchtenMualem& m, double se);
 

@@ -48,8 +48,33 @@ ConductivityAndSlope conductivity(const VanGenuchtenMualem& p, double h) {
 double head_at_saturation(const VanGenuchtenMualem& p, double se) {
   if (se >= 1.0) return 0.0;
   const double m = 1.0 - 1.0 / p.n;
-  const double x = std::pow(std::pow(se, -1.0 / m) - 1.0, 1.0 / p.n);
-  return -x / p.alpha_per_cm;
+  // x^n = Se^(-1/m) - 1, formed with expm1 so that it keeps its precision near saturation.
+  const double xn = std::expm1(-std::log(se) / m);
+  return -std::exp(std::log(xn) / p.n) / p.alpha_per_cm;
+}
+
+// The same formulas as saturation(), mualem_factor() and conductivity(), sharing the
+// logarithms: L = log(1 + x^n), Se = exp(-m L), log u = n log x - L.
+HydraulicState state(const VanGenuchtenMualem& p, double h) {
+  const double range = p.saturated_water_content - p.residual_water_content;
+  const double ks = p.saturated_conductivity_cm_per_d;
+  if (h >= 0.0) return {p.saturated_water_content, 0.0, ks, 0.0};
+  const double m = 1.0 - 1.0 / p.n;
+  const double l = p.pore_connectivity;
+  const double x = -p.alpha_per_cm * h;
+  const double log_x = std::log(x);
+  const double xn = std::exp(p.n * log_x);
+  const double log_1p_xn = std::log1p(xn);
+  const double se = std::exp(-m * log_1p_xn);
+  const double dse = m * p.n * p.alpha_per_cm * (xn / x) * se / (1.0 + xn);
+  const double theta = p.residual_water_content + range * se;
+  if (se <= 0.0) return {theta, range * dse, 0.0, 0.0};
+  const double log_u = xn < 1.0 ? p.n * log_x - log_1p_xn : -std::log1p(1.0 / xn);
+  const double um = std::exp(m * log_u);
+  const double f = -std::expm1(m * log_u);
+  const double df = m * p.n * p.alpha_per_cm * (um * (1.0 + xn) / xn) * (xn / x) / ((1.0 + xn) * (1.0 + xn));
+  const double se_l = std::exp(-l * m * log_1p_xn);
+  return {theta, range * dse, ks * se_l * f * f, ks * (l * se_l / se * f * f * dse + se_l * 2.0 * f * df)};
 }
 
 }  // namespace wetfront::soils::detail

@@ -89,6 +89,7 @@ ColumnModel::ColumnModel(const ColumnProblem& problem)
 }
 
 void ColumnModel::begin_period(double t) {
+  period_start_ = t;
   if (const auto* lf = std::get_if<LimitedFlux>(&top_)) {
     water_input_ = lf->water_input_cm_per_d.at(t);
     potential_evaporation_ = lf->potential_evaporation_cm_per_d.at(t);
@@ -148,7 +149,12 @@ void ColumnModel::initial_state(std::span<double> y) const {
   }
 }
 
-void ColumnModel::evaluate_cells(double t, std::span<const double> y) {
+// Heads, conductivities and sink of every cell at state y. IDA asks for the residual, the
+// roots and the quadrature rates at the same state, so the last evaluation is kept.
+void ColumnModel::evaluate_cells(double, std::span<const double> y) {
+  const bool same_state = evaluated_state_.size() == y.size() && evaluated_period_ == period_start_ &&
+                          std::equal(y.begin(), y.end(), evaluated_state_.begin());
+  if (same_state) return;
   for (std::size_t i = 0; i < cells(); ++i) {
     const double h = head_for_storage(i, y[storage_index(i)]);
     head_[i] = h;
@@ -157,9 +163,11 @@ void ColumnModel::evaluate_cells(double t, std::span<const double> y) {
     conductivity_slope_[i] = s.conductivity_slope;
     capacity_[i] = s.moisture_capacity;
   }
-  if (sink_) {
-    sink_->evaluate(t, grid_.cell_depths_cm(), head_, sink_rate_, sink_slope_);
-  }
+  // Sinks are constant in time over a forcing period (their changes are breakpoints), so they
+  // see the period start: a residual evaluated exactly at the period end keeps this period's values.
+  if (sink_) sink_->evaluate(period_start_, grid_.cell_depths_cm(), head_, sink_rate_, sink_slope_);
+  evaluated_state_.assign(y.begin(), y.end());
+  evaluated_period_ = period_start_;
 }
 
 double ColumnModel::surface_head(std::span<const double> y) const {

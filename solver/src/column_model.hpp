@@ -121,6 +121,9 @@ class ColumnModel {
   // Workspace, refreshed by evaluate_cells().
   std::vector<double> head_, conductivity_, conductivity_slope_, capacity_, sink_rate_, sink_slope_;
   std::vector<double> head_per_storage_;  // dh/dS per cell in jacobian()
+  std::vector<double> evaluated_state_;   // the y of the cached cell evaluation
+  double evaluated_period_ = 0;
+  double period_start_ = 0;
 };
 
 }  // namespace wetfront::solver::detail

@@ -60,8 +60,9 @@ using InitialCondition = std::variant<Hydrostatic, UniformHead, HeadTable>;
 class CellSink {
  public:
   virtual ~CellSink() = default;
-  // rate_per_day[i] >= 0 is the volume removed per unit cell volume per day from cell i, at
-  // time t with heads head_cm; rate_slope[i] = d rate_per_day[i] / d head_cm[i].
+  // rate_per_day[i] >= 0 is the volume removed per unit cell volume per day from cell i with
+  // heads head_cm; rate_slope[i] = d rate_per_day[i] / d head_cm[i]. A sink is constant in
+  // time between its breakpoints: t_days is the start of the current forcing period.
   virtual void evaluate(double t_days, std::span<const double> cell_depths_cm, std::span<const double> head_cm,
                         std::span<double> rate_per_day, std::span<double> rate_slope) const = 0;
   // Times at which the sink changes abruptly (the integrator stops there).
