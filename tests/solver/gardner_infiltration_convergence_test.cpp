@@ -45,7 +45,6 @@ solver::ColumnProblem gardner_column(std::size_t cells, solver::FaceConductivity
   problem.output_days.assign(std::begin(kOutputDays), std::end(kOutputDays));
   problem.settings.relative_tolerance = relative_tolerance;
   problem.settings.absolute_tolerance_storage_cm = 1e-12;
-  problem.settings.absolute_tolerance_head_cm = 1e-9;
   problem.settings.max_step_days = 0.1;
   return problem;
 }
