@@ -135,5 +135,24 @@ TEST(SteadyFluxProfile, VanGenuchtenProfileObeysDarcysLaw) {
   EXPECT_THROW(SteadyFluxProfile(loam(), 30.0), std::domain_error);
 }
 
+TEST(LayeredSteadyFluxProfile, MatchesTheGardnerClosedFormAcrossAnInterface) {
+  // In a Gardner layer dK/dz = a (q - K) (Darcy, z up), so K = q + (K0 - q) e^(-a z) from the
+  // head h0 at the layer base (Srivastava & Yeh 1991, steady part, with a general base); the
+  // head is continuous across the interface.
+  const soils::GardnerExponential lower{0.05, 0.35, 0.2, 20.0};  // coarse: a = 0.2 /cm, Ks 20 cm/d
+  const soils::GardnerExponential upper{0.06, 0.40, 0.05, 2.0};  // fine: a = 0.05 /cm, Ks 2 cm/d
+  const double q = 0.8;
+  const LayeredSteadyFluxProfile profile({{30.0, lower}, {70.0, upper}}, q);
+  auto lower_head = [&](double z) { return std::log(q / 20.0 + (1.0 - q / 20.0) * std::exp(-0.2 * z)) / 0.2; };
+  const double interface_head = lower_head(30.0);
+  const double interface_k = 2.0 * std::exp(0.05 * interface_head);
+  auto upper_head = [&](double z) { return std::log((q + (interface_k - q) * std::exp(-0.05 * (z - 30.0))) / 2.0) / 0.05; };
+  for (const double z : {1.0, 15.0, 29.9}) EXPECT_NEAR(profile.pressure_head_cm(z), lower_head(z), 1e-8) << z;
+  for (const double z : {30.0, 30.1, 50.0, 99.0}) EXPECT_NEAR(profile.pressure_head_cm(z), upper_head(z), 1e-8) << z;
+  // One layer reproduces the single-layer profile.
+  const LayeredSteadyFluxProfile single({{100.0, loam()}}, 0.5);
+  EXPECT_NEAR(single.pressure_head_cm(70.0), SteadyFluxProfile(loam(), 0.5).pressure_head_cm(70.0), 1e-12);
+}
+
 }  // namespace
 }  // namespace wetfront::reference
