@@ -149,12 +149,6 @@ RootUptake::RootUptake(RootUptakeSettings settings, const Grid& grid) : settings
     fractions_per_depth_period_.push_back(root_fractions_per_cell(settings_.distribution, root_depth, faces));
 }
 
-double RootUptake::period_value(const StepSeries& series, double t) {
-  const auto it = std::lower_bound(series.start_days.begin(), series.start_days.end(), t);
-  const auto index = it == series.start_days.begin() ? 0 : static_cast<std::size_t>(it - series.start_days.begin()) - 1;
-  return series.values[index];
-}
-
 void RootUptake::evaluate(double t, std::span<const double> cell_depths_cm, std::span<const double> head_cm,
                           std::span<double> rate_per_day, std::span<double> rate_slope) const {
   const std::size_t n = cell_thickness_cm_.size();
@@ -162,10 +156,10 @@ void RootUptake::evaluate(double t, std::span<const double> cell_depths_cm, std:
     throw std::invalid_argument(
         fmt::format("root uptake was set up for {} cells but is evaluated on {}", n, cell_depths_cm.size()));
   const auto& depth_starts = settings_.root_depth_cm.start_days;
-  const auto it = std::lower_bound(depth_starts.begin(), depth_starts.end(), t);
+  const auto it = std::upper_bound(depth_starts.begin(), depth_starts.end(), t);
   const auto period = it == depth_starts.begin() ? 0 : static_cast<std::size_t>(it - depth_starts.begin()) - 1;
   const auto& fractions = fractions_per_depth_period_[period];
-  const double tp = period_value(settings_.potential_transpiration_cm_per_d, t);
+  const double tp = settings_.potential_transpiration_cm_per_d.at(t);
   for (std::size_t i = 0; i < n; ++i) {
     if (fractions[i] == 0.0 || tp == 0.0) {
       rate_per_day[i] = rate_slope[i] = 0.0;

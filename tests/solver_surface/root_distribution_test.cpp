@@ -126,17 +126,29 @@ TEST(RootUptakeSink, RemovesThePotentialTranspirationWhenUnstressed) {
   }
 }
 
-TEST(RootUptakeSink, ABreakpointBelongsToThePeriodItEnds) {
-  const solver::StepSeries series{{0.0, 5.0}, {1.0, 2.0}};
-  EXPECT_EQ(solver::RootUptake::period_value(series, -1.0), 1.0);
-  EXPECT_EQ(solver::RootUptake::period_value(series, 0.0), 1.0);
-  EXPECT_EQ(solver::RootUptake::period_value(series, 5.0), 1.0);
-  EXPECT_EQ(solver::RootUptake::period_value(series, 5.0 + 1e-9), 2.0);
+// The solver evaluates a sink at the start of the forcing period in progress, so a period start
+// must give that period's demand and root depth.
+TEST(RootUptakeSink, APeriodStartBelongsToThePeriodItBegins) {
   solver::RootUptakeSettings settings;
+  settings.response = solver::feddes_maize();
   settings.root_depth_cm = {{0.0, 10.0}, {20.0, 30.0}};
   settings.potential_transpiration_cm_per_d = {{0.0, 3.0, 10.0}, {0.1, 0.2, 0.3}};
-  const solver::RootUptake sink(settings, solver::uniform_grid(50.0, 10));
+  const auto grid = solver::uniform_grid(50.0, 10);  // 5 cm cells
+  const solver::RootUptake sink(settings, grid);
   EXPECT_EQ(sink.breakpoints_days(), (std::vector<double>{0.0, 3.0, 10.0}));
+  std::vector<double> head(10, -100.0), rate(10), slope(10);
+  auto total = [&](double t) {
+    sink.evaluate(t, grid.cell_depths_cm(), head, rate, slope);
+    return std::accumulate(rate.begin(), rate.end(), 0.0) * 5.0;
+  };
+  EXPECT_NEAR(total(0.0), 0.1, 1e-15);
+  EXPECT_NEAR(total(3.0), 0.2, 1e-15);
+  EXPECT_NEAR(total(10.0), 0.3, 1e-15);
+  sink.evaluate(10.0, grid.cell_depths_cm(), head, rate, slope);
+  EXPECT_GT(rate[5], 0.0);  // 25-30 cm: rooted from day 10 (30 cm roots)
+  EXPECT_EQ(rate[6], 0.0);
+  sink.evaluate(9.99, grid.cell_depths_cm(), head, rate, slope);
+  EXPECT_EQ(rate[4], 0.0);  // 20-25 cm: not rooted before day 10 (20 cm roots)
 }
 
 }  // namespace

@@ -112,13 +112,12 @@ class RootUptake final : public CellSink {
 
   void evaluate(double t_days, std::span<const double> cell_depths_cm, std::span<const double> head_cm,
                 std::span<double> rate_per_day, std::span<double> rate_slope) const override;
+  // Root depth and potential transpiration are taken at t as StepSeries::at does: a period
+  // start belongs to the period it begins (the solver evaluates sinks at the start of the
+  // forcing period in progress).
   // The start times of the root depth and potential transpiration series.
   std::vector<double> breakpoints_days() const override;
 
-  // The series value that holds at t, taking a breakpoint as the end of the period before it:
-  // the integrator stops exactly at each breakpoint, so its last step of a period ends there,
-  // and every later step lies strictly after it.
-  static double period_value(const StepSeries& series, double t_days);
 
  private:
   RootUptakeSettings settings_;
