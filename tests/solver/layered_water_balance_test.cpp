@@ -5,7 +5,9 @@
 // preserves linear invariants).
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
+#include <variant>
 #include <cstdio>
 
 #include "solver_test_soils.hpp"
@@ -22,11 +24,11 @@ solver::StepSeries potential_evaporation() {
   return {{0.0, 2.0, 10.0, 11.0, 25.0, 28.0, 45.0, 46.0}, {0.0, 0.6, 0.0, 0.8, 0.0, 0.7, 0.0, 0.9}};
 }
 
-solver::ColumnProblem rain_and_dry_spells(solver::FaceConductivity face) {
+solver::ColumnProblem rain_and_dry_spells(solver::FaceConductivity face, soils::HydraulicModel clay_model = clay()) {
   solver::GridRequest request;
   request.depth_cm = 150.0;
   request.required_face_depths_cm = {30.0, 70.0};
-  solver::ColumnProblem problem = make_column(sand_loam_clay(), solver::graded_grid(request));
+  solver::ColumnProblem problem = make_column(sand_loam_clay(std::move(clay_model)), solver::graded_grid(request));
   problem.top = solver::LimitedFlux{rain(), potential_evaporation(), -15000.0, 0.0};
   problem.bottom = solver::FixedHead{0.0};
   problem.initial = solver::Hydrostatic{150.0};
@@ -61,13 +63,19 @@ void expect_balanced(const solver::ColumnRun& run, const solver::ColumnProblem& 
     // Rain is delivered as given.
     EXPECT_NEAR(b.water_input_cm, rain().integral(0.0, b.time_days), 1e-9 * (1.0 + b.water_input_cm));
   }
-  // The stored water matches the water contents of the profile (no cell is saturated enough
-  // for the specific-storage term to matter at this tolerance).
+  // The stored water is the water content plus the specific-storage term above the head at
+  // which each soil saturates (0, or the air-entry head): S = sum dz (theta + Ss max(h - h_s, 0)).
   for (std::size_t k = 0; k < run.profiles.size(); ++k) {
     double from_profile = 0.0;
-    for (std::size_t i = 0; i < run.cell_depths_cm.size(); ++i)
-      from_profile += run.profiles[k].water_content[i] * (run.face_depths_cm[i + 1] - run.face_depths_cm[i]);
-    EXPECT_NEAR(run.balances[k].soil_storage_cm, from_profile, 1e-4) << "day " << run.balances[k].time_days;
+    for (std::size_t i = 0; i < run.cell_depths_cm.size(); ++i) {
+      const auto& model = problem.soil.model_at(run.cell_depths_cm[i]);
+      const auto* air_entry = std::get_if<soils::VanGenuchtenAirEntry>(&model);
+      const double saturation_head = air_entry ? air_entry->air_entry_head_cm : 0.0;
+      const double over = std::max(run.profiles[k].head_cm[i] - saturation_head, 0.0);
+      from_profile += (run.profiles[k].water_content[i] + problem.specific_storage_per_cm * over) *
+                      (run.face_depths_cm[i + 1] - run.face_depths_cm[i]);
+    }
+    EXPECT_NEAR(run.balances[k].soil_storage_cm, from_profile, 1e-6) << "day " << run.balances[k].time_days;
   }
   const auto& last = run.balances.back();
   std::printf("60 days: rain %.3f, evaporation %.3f (potential %.3f), runoff %.3f, bottom %.3f, storage change %.4f cm; "
@@ -87,6 +95,13 @@ TEST(LayeredWaterBalance, RainAndDrySpellsOverAWaterTableConserveWater) {
 
 TEST(LayeredWaterBalance, ConservesWaterWithTheHarmonicMeanToo) {
   const solver::ColumnProblem problem = rain_and_dry_spells(solver::FaceConductivity::harmonic);
+  expect_balanced(solver::simulate(problem), problem);
+}
+
+TEST(LayeredWaterBalance, ConservesWaterWithAnAirEntryClay) {
+  // The clay's K slope is unbounded at saturation for n = 1.09; with an air-entry head the
+  // same forcing tests the balance bookkeeping apart from that difficulty.
+  const solver::ColumnProblem problem = rain_and_dry_spells(solver::FaceConductivity::arithmetic, clay_with_air_entry());
   expect_balanced(solver::simulate(problem), problem);
 }
 

@@ -20,11 +20,15 @@ inline soils::LayeredProfile single_layer(double depth_cm, soils::HydraulicModel
   return soils::LayeredProfile({soils::SoilLayer{"test soil", 0.0, depth_cm, std::move(model)}});
 }
 
+// The same clay with an air-entry head of -2 cm (Ippisch, Vogel & Bastian 2006), which keeps
+// the slope of K finite at saturation.
+inline soils::VanGenuchtenAirEntry clay_with_air_entry() { return {clay(), -2.0}; }
+
 // Sand over loam over clay, boundaries at 30 cm and 70 cm, bottom at 150 cm.
-inline soils::LayeredProfile sand_loam_clay() {
+inline soils::LayeredProfile sand_loam_clay(soils::HydraulicModel clay_model = clay()) {
   return soils::LayeredProfile({soils::SoilLayer{"sand", 0.0, 30.0, sand()},
                                 soils::SoilLayer{"loam", 30.0, 70.0, loam()},
-                                soils::SoilLayer{"clay", 70.0, 150.0, clay()}});
+                                soils::SoilLayer{"clay", 70.0, 150.0, std::move(clay_model)}});
 }
 
 // A column with every other setting at its documented default (named in full so that the
