@@ -8,6 +8,7 @@
 #include <cstdio>
 
 #include "solver_test_soils.hpp"
+#include "steady_flux_profile.hpp"
 #include "wetfront/solver/column_run.hpp"
 
 namespace wetfront::solver_tests {
@@ -87,6 +88,34 @@ TEST(HardCases, RainAboveKsOnLoamPondsAndRecovers) {
   EXPECT_GT(last.runoff_cm, 0.0);
   EXPECT_NEAR(last.water_input_cm, 30.0, 1e-9);
   EXPECT_LT(last.infiltration_cm, 30.0);
+}
+
+// 4 cm/d (Ks = 4.8 cm/d) into 20 cm of clay on a water table: every cell sits within a few
+// centimetres of saturation, where the Mualem K of a soil with n = 1.09 changes fastest. The
+// run must reach the steady profile dz/dh = 1 / (q/K - 1) (Darcy; tests/reference).
+void expect_wet_clay_reaches_steady_profile(const soils::HydraulicModel& model) {
+  const double flux = 4.0;
+  solver::ColumnProblem problem = make_column(single_layer(20.0, model), solver::uniform_grid(20.0, 40));
+  problem.top = solver::PrescribedFlux{solver::StepSeries::constant(flux)};
+  problem.bottom = solver::FixedHead{0.0};
+  problem.initial = solver::Hydrostatic{20.0};
+  problem.end_day = 10.0;
+  problem.output_days = {1.0, 10.0};
+  const solver::ColumnRun run = solver::simulate(problem);
+  expect_complete_and_balanced(run);
+  if (!run.complete) return;
+  const auto& profile = run.profiles.back();
+  for (const double f : profile.face_flux_cm_per_d) EXPECT_NEAR(f, flux, 1e-4);
+  const reference::SteadyFluxProfile exact(model, flux);
+  for (std::size_t i = 0; i < run.cell_depths_cm.size(); ++i)
+    EXPECT_NEAR(profile.head_cm[i], exact.pressure_head_cm(20.0 - run.cell_depths_cm[i]), 0.1)
+        << "depth " << run.cell_depths_cm[i];
+}
+
+TEST(HardCases, FineClayWettedNearSaturation) { expect_wet_clay_reaches_steady_profile(clay()); }
+
+TEST(HardCases, FineClayWithAirEntryWettedNearSaturation) {
+  expect_wet_clay_reaches_steady_profile(clay_with_air_entry());
 }
 
 }  // namespace
