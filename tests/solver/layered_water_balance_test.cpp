@@ -35,6 +35,9 @@ solver::ColumnProblem rain_and_dry_spells(solver::FaceConductivity face, soils::
   problem.face_conductivity = face;
   problem.end_day = 60.0;
   for (int day = 0; day <= 60; ++day) problem.output_days.push_back(day);
+  // A day of this forcing needs a few hundred steps; a run that needs 20000 has stalled, and
+  // should say so quickly rather than after the default 200000.
+  problem.settings.max_steps_per_output = 20000;
   return problem;
 }
 
