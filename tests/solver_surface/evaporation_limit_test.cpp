@@ -30,11 +30,13 @@ solver::ColumnProblem drying_sand(double dry_limit_head_cm) {
   return problem;
 }
 
-void check_drying(double dry_limit_head_cm) {
+// Checks the run and returns the first output time at which evaporation falls below potential.
+double check_drying(double dry_limit_head_cm) {
   SCOPED_TRACE(fmt::format("dry limit {} cm", dry_limit_head_cm));
   const auto problem = drying_sand(dry_limit_head_cm);
   const auto run = solver::simulate(problem);
-  ASSERT_TRUE(run.complete) << (run.failure ? run.failure->reason : "");
+  EXPECT_TRUE(run.complete) << (run.failure ? run.failure->reason : "");
+  if (!run.complete) return -1.0;
   // The first output at which the surface no longer supplies the potential rate.
   double limited_from = -1.0;
   for (const auto& b : run.balances)
@@ -42,7 +44,8 @@ void check_drying(double dry_limit_head_cm) {
       limited_from = b.time_days;
       break;
     }
-  ASSERT_GT(limited_from, 0.25) << "the wet sand should first evaporate at the potential rate";
+  EXPECT_GT(limited_from, 0.25) << "the wet sand should first evaporate at the potential rate";
+  if (limited_from <= 0.0) return -1.0;
   double previous_rate = potential_rate;
   for (std::size_t k = 1; k < run.balances.size(); ++k) {
     const auto& b = run.balances[k];
@@ -71,16 +74,18 @@ void check_drying(double dry_limit_head_cm) {
   // One switch to the dry limit; allow one more pair for a brief return, no chattering.
   EXPECT_GE(run.statistics.surface_switches, 1);
   EXPECT_LE(run.statistics.surface_switches, 3);
+  return limited_from;
 }
 
 TEST(EvaporationLimit, WetSandEvaporatesAtPotentialThenFallsOff) { check_drying(-15000.0); }
 
+// A surface that cannot dry beyond -1000 cm reaches its limit sooner (or at the same output).
 TEST(EvaporationLimit, AMilderDryLimitEndsStageOneSooner) {
-  check_drying(-1000.0);
-  const auto strict = solver::simulate(drying_sand(-15000.0));
-  const auto mild = solver::simulate(drying_sand(-1000.0));
-  ASSERT_TRUE(strict.complete && mild.complete);
-  EXPECT_LT(mild.balances.back().actual_evaporation_cm, strict.balances.back().actual_evaporation_cm);
+  const double strict = check_drying(-15000.0);
+  const double mild = check_drying(-1000.0);
+  ASSERT_GT(strict, 0.0);
+  ASSERT_GT(mild, 0.0);
+  EXPECT_LE(mild, strict);
 }
 
 }  // namespace
