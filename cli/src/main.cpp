@@ -2,6 +2,7 @@
 #include <CLI/CLI.hpp>
 
 #include "run_app.hpp"
+#include "season_commands.hpp"
 #include "soil_commands.hpp"
 
 int main(int argc, char** argv) {
@@ -11,5 +12,6 @@ int main(int argc, char** argv) {
   app.set_version_flag("--version", std::string("wetfront ") + WETFRONT_VERSION);
   app.require_subcommand(1);
   wetfront::cli::add_soil_commands(app);
+  wetfront::cli::add_season_commands(app);
   return wetfront::cli::run_app(app, argc, argv);
 }

@@ -13,6 +13,9 @@ namespace wetfront::cli {
 int run_app(CLI::App& app, int argc, char** argv) {
   try {
     app.parse(argc, argv);
+  } catch (const CLI::RuntimeError& error) {
+    // Thrown by a command that has already reported, to set the exit code (2: solver failure).
+    return error.get_exit_code();
   } catch (const CLI::ParseError& error) {
     // --help and --version arrive here with code 0; every other parse error is bad input.
     return app.exit(error) == 0 ? exit_ok : exit_bad_input;

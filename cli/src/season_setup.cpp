@@ -5,6 +5,8 @@
 #include <cstdint>
 #include <fstream>
 #include <iterator>
+#include <memory>
+#include <optional>
 
 #include <fmt/format.h>
 
@@ -15,6 +17,7 @@
 #include "wetfront/profiles/layer_table.hpp"
 #include "wetfront/profiles/visit_balance.hpp"
 #include "wetfront/solver/grid.hpp"
+#include "wetfront/solver/root_uptake.hpp"
 
 namespace wetfront::cli {
 namespace {
@@ -56,11 +59,15 @@ forcing::CoveredSeries depth_file_rate(const ForcingFile& file, std::string_view
   try {
     const auto series = forcing::read_depth_series_csv(file.path, quantity, site.run_start);
     const auto conversion = forcing::depth_series_to_rate(series, site.run_length_days, file.gaps);
-    for (const auto& gap : conversion.gaps) {
-      notes.push_back(file.gaps == forcing::GapPolicy::fill_with_zero
-                          ? fmt::format("{}: no record {}, taken as no water", file.path.string(), gap_text(gap, site.run_start))
-                          : fmt::format("{}: records stop at {}; the run ends there", file.path.string(),
-                                        gap_text(gap, site.run_start)));
+    if (file.gaps == forcing::GapPolicy::fill_with_zero && !conversion.gaps.empty()) {
+      double days = 0;
+      for (const auto& gap : conversion.gaps) days += gap.end_day - gap.start_day;
+      notes.push_back(fmt::format("{}: {} stretches without a record ({:.1f} d in all, first {}) taken as no water",
+                                  file.path.string(), conversion.gaps.size(), days, gap_text(conversion.gaps.front(), site.run_start)));
+    } else {
+      for (const auto& gap : conversion.gaps) {
+        notes.push_back(fmt::format("{}: records stop at {}; the run ends there", file.path.string(), gap_text(gap, site.run_start)));
+      }
     }
     const auto& rate = conversion.rate_cm_per_day;
     total_cm = rate.series.integral(0.0, rate.end_day);
@@ -109,10 +116,19 @@ std::vector<double> output_days(const SiteSetup& site, double end_day) {
   return days;
 }
 
+// The parts of a Season gathered before its column problem can be built.
+struct Seasonal {
+  SiteSetup site;
+  double pan_coefficient = 0;
+  forcing::SurfaceDemand demand;
+  ForcingTotals totals;
+  std::vector<std::string> notes;
+};
+
 }  // namespace
 
 Season prepare_season(SiteSetup site_setup) {
-  Season season;
+  Seasonal season;
   season.site = std::move(site_setup);
   const SiteSetup& site = season.site;
   const std::string site_file = site.site_file.string();
@@ -151,26 +167,47 @@ Season prepare_season(SiteSetup site_setup) {
   }
   season.totals.potential_transpiration_cm = season.demand.potential_transpiration_cm_per_day.integral(0.0, end_day);
 
-  solver::ColumnProblem& problem = season.problem;
+  std::optional<soils::LayeredProfile> soil;
+  std::optional<solver::Grid> grid;
   try {
-    problem.soil = soils::LayeredProfile(site.layers);
-    problem.grid = solver::graded_grid(site.grid);
+    soil.emplace(site.layers);
+    grid.emplace(solver::graded_grid(site.grid));
   } catch (const std::invalid_argument& error) {
     throw InputError(site_file, 0, "", fmt::format("[[layer]] / [grid]: {}", error.what()));
   }
-  problem.top = solver::LimitedFlux{to_solver(season.demand.water_input_cm_per_day),
-                                    to_solver(season.demand.potential_evaporation_cm_per_day), site.dry_limit_head_cm,
-                                    site.max_ponded_depth_cm};
-  problem.bottom = site.bottom;
-  problem.initial = site.initial;
-  problem.flux_plane_depths_cm = {site.recharge_plane_depth_cm};
-  problem.face_conductivity = site.face_conductivity;
-  problem.settings = site.settings;
-  problem.start_day = 0;
-  problem.end_day = end_day;
-  problem.output_days = output_days(site, end_day);
-  season.input_hash = digest.hex();
-  return season;
+  std::shared_ptr<const solver::CellSink> roots;
+  try {
+    solver::RootUptakeSettings uptake{site.crop.uptake_response, site.crop.root_shape,
+                                      to_solver(season.demand.root_depth_cm),
+                                      to_solver(season.demand.potential_transpiration_cm_per_day)};
+    roots = std::make_shared<solver::RootUptake>(std::move(uptake), *grid);
+  } catch (const std::invalid_argument& error) {
+    throw InputError(site_file, 0, "", fmt::format("[crop] root uptake: {}", error.what()));
+  }
+  solver::ColumnProblem problem{
+      .soil = std::move(*soil),
+      .grid = std::move(*grid),
+      .top = solver::LimitedFlux{to_solver(season.demand.water_input_cm_per_day),
+                                 to_solver(season.demand.potential_evaporation_cm_per_day), site.dry_limit_head_cm,
+                                 site.max_ponded_depth_cm},
+      .bottom = site.bottom,
+      .initial = site.initial,
+      .sink = std::move(roots),
+      .flux_plane_depths_cm = {site.recharge_plane_depth_cm},
+      .specific_storage_per_cm = site.specific_storage_per_cm,
+      .face_conductivity = site.face_conductivity,
+      .start_day = 0,
+      .end_day = end_day,
+      .output_days = output_days(site, end_day),
+      .settings = site.settings};
+  return Season{.site = std::move(season.site),
+                .pan_coefficient = season.pan_coefficient,
+                .demand = std::move(season.demand),
+                .problem = std::move(problem),
+                .totals = season.totals,
+                .roots_simulated = true,
+                .notes = std::move(season.notes),
+                .input_hash = digest.hex()};
 }
 
 profiles::RunRecord make_record(const Season& season, solver::ColumnRun run, const std::string& program_version) {

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <array>
+#include <cctype>
 #include <cmath>
 #include <fstream>
 #include <sstream>
@@ -19,8 +20,8 @@ namespace {
 
 using Keys = std::span<const std::string_view>;
 
-constexpr std::array<std::string_view, 11> top_keys = {"site",  "run",     "layer",  "grid",   "initial", "bottom",
-                                                       "surface", "weather", "pan", "crop", "sensor"};
+constexpr std::array<std::string_view, 11> top_keys = {"site",    "run",     "layers", "grid", "initial", "bottom",
+                                                       "surface", "weather", "pan",    "crop", "sensors"};
 constexpr std::array<std::string_view, 2> tail_keys = {"recharge", "solver"};
 
 std::vector<std::string_view> all_top_keys() {
@@ -110,11 +111,25 @@ ForcingFile forcing_file(const SiteTable& table, std::string_view key, std::stri
   return file;
 }
 
-// --- [[layer]] ---------------------------------------------------------------------------
+// --- [[layers]] --------------------------------------------------------------------------
+
+// A water content is a volume fraction: a bare number in [0, 1], or a value with a unit
+// (cm3/cm3, m3/m3 or %).
+double water_content(const SiteTable& layer, std::string_view key) {
+  if (layer.has(key)) {
+    if (const auto bare = layer.optional_number_if_plain(key)) {
+      if (*bare < 0 || *bare > 1) {
+        layer.fail(key, fmt::format("{} is not a volume fraction in [0, 1]; for a percentage write \"{} %\"", *bare, *bare));
+      }
+      return *bare;
+    }
+  }
+  return layer.quantity(key, Dimension::water_content);
+}
 
 soils::HydraulicModel layer_model(const SiteTable& layer) {
-  static constexpr std::array<std::string_view, 4> models = {"van genuchten", "van genuchten air entry",
-                                                             "brooks corey", "gardner"};
+  static constexpr std::array<std::string_view, 5> models = {"van genuchten", "van genuchten-mualem",
+                                                             "van genuchten air entry", "brooks corey", "gardner"};
   if (layer.has("texture")) {
     if (layer.has("model")) layer.fail("model", "give either 'texture' (class defaults) or 'model' with parameters, not both");
     const std::string name = layer.text("texture");
@@ -129,10 +144,10 @@ soils::HydraulicModel layer_model(const SiteTable& layer) {
                        std::string("van genuchten, van genuchten air entry, brooks corey or gardner) with its parameters"));
   }
   const std::string model = layer.choice("model", models);
-  const double theta_r = layer.quantity("residual_water_content", Dimension::water_content);
-  const double theta_s = layer.quantity("saturated_water_content", Dimension::water_content);
+  const double theta_r = water_content(layer, "residual_water_content");
+  const double theta_s = water_content(layer, "saturated_water_content");
   const double ks = layer.quantity("saturated_conductivity", Dimension::conductivity);
-  if (model == "van genuchten" || model == "van genuchten air entry") {
+  if (model == "van genuchten" || model == "van genuchten-mualem" || model == "van genuchten air entry") {
     soils::VanGenuchtenMualem vg;
     vg.residual_water_content = theta_r;
     vg.saturated_water_content = theta_s;
@@ -140,7 +155,7 @@ soils::HydraulicModel layer_model(const SiteTable& layer) {
     vg.n = layer.number("n");
     vg.saturated_conductivity_cm_per_d = ks;
     vg.pore_connectivity = layer.optional_number("pore_connectivity").value_or(0.5);
-    if (model == "van genuchten") return vg;
+    if (model != "van genuchten air entry") return vg;
     return soils::VanGenuchtenAirEntry{vg, layer.quantity("air_entry_head", Dimension::pressure_head)};
   }
   if (model == "brooks corey") {
@@ -165,8 +180,8 @@ std::vector<soils::SoilLayer> read_layers(const SiteTable& root) {
       "name", "top", "bottom", "texture", "model", "residual_water_content", "saturated_water_content", "alpha", "n",
       "saturated_conductivity", "pore_connectivity", "air_entry_head", "bubbling_head", "pore_size_index",
       "sorptive_number", "note"};
-  const auto tables = root.table_array("layer");
-  if (tables.empty()) root.fail("layer", "the site needs at least one [[layer]] table (soil layers from the surface down)");
+  const auto tables = root.table_array("layers");
+  if (tables.empty()) root.fail("layers", "the site needs at least one [[layers]] table (soil layers from the surface down)");
   std::vector<soils::SoilLayer> layers;
   for (const auto& table : tables) {
     table.only_keys(keys);
@@ -298,10 +313,10 @@ forcing::DatedTable dated_table(const SiteTable& table, std::string quantity, st
 }
 
 void read_crop(const SiteTable& root, SiteSetup& site) {
-  static constexpr std::array<std::string_view, 17> keys = {
-      "name", "planting", "initial_stage", "development_stage", "mid_season_stage", "late_season_stage",
+  static constexpr std::array<std::string_view, 19> keys = {
+      "name", "uptake_response", "root_shape", "root_length_scale", "planting", "initial_stage", "development_stage", "mid_season_stage", "late_season_stage",
       "kc_initial", "kc_mid", "kc_end", "kc_bare_soil", "evaporation_split", "extinction_coefficient",
-      "leaf_area_index", "soil_cover", "root_depth", "note", "max_root_depth"};
+      "leaf_area_index", "soil_cover", "root_depth", "note"};
   const auto table = root.subtable("crop");
   if (!table) root.fail("crop", "missing table [crop] (crop stages and coefficients; describe bare soil as a crop with kc values)");
   table->only_keys(keys);
@@ -341,9 +356,43 @@ void read_crop(const SiteTable& root, SiteSetup& site) {
   } else if (crop.split.method == forcing::CanopySplit::Method::soil_cover) {
     table->fail("soil_cover", "missing table [crop.soil_cover] with 'dates' and 'values' (fraction 0 to 1)");
   }
-  if (const auto roots = table->subtable("root_depth")) {
-    const double column = site.layers.back().bottom_depth_cm;
-    crop.root_depth_cm = dated_table(*roots, "root depth", "depths", Dimension::length, site.run_start, 0, column);
+  const auto roots = table->subtable("root_depth");
+  if (!roots) table->fail("root_depth", "missing table [crop.root_depth] with 'dates' and 'depths' (give 0 cm for bare soil)");
+  const double column = site.layers.back().bottom_depth_cm;
+  crop.root_depth_cm = dated_table(*roots, "root depth", "depths", Dimension::length, site.run_start, 0, column);
+
+  // Water-stress response of root uptake (Feddes et al. 1978), parameter sets by crop.
+  static constexpr std::array<std::string_view, 5> responses = {"maize", "wheat", "grass", "potatoes", "sugar beet"};
+  if (table->has("uptake_response")) {
+    crop.uptake_response_name = table->choice("uptake_response", responses);
+  } else {
+    std::string name = trim(crop.name);
+    for (char& ch : name) ch = static_cast<char>(std::tolower(static_cast<unsigned char>(ch)));
+    if (std::find(responses.begin(), responses.end(), name) == responses.end()) {
+      table->fail("uptake_response", fmt::format("missing; crop '{}' has no built-in root water-stress response, choose one of "
+                                                 "maize, wheat, grass, potatoes, sugar beet", crop.name));
+    }
+    crop.uptake_response_name = name;
+  }
+  const std::string& r = crop.uptake_response_name;
+  crop.uptake_response = r == "maize"        ? solver::feddes_maize()
+                         : r == "wheat"      ? solver::feddes_wheat()
+                         : r == "grass"      ? solver::feddes_grass()
+                         : r == "potatoes"   ? solver::feddes_potatoes()
+                                             : solver::feddes_sugar_beet();
+  static constexpr std::array<std::string_view, 3> shapes = {"uniform", "linear", "exponential"};
+  const std::string shape = table->optional_choice("root_shape", shapes).value_or("linear");
+  if (shape == "uniform") {
+    crop.root_shape = solver::UniformRoots{};
+  } else if (shape == "linear") {
+    crop.root_shape = solver::LinearRoots{};
+  } else {
+    const double length = table->quantity("root_length_scale", Dimension::length);
+    if (!(length > 0)) table->fail("root_length_scale", "must be positive");
+    crop.root_shape = solver::ExponentialRoots{length};
+  }
+  if (shape != "exponential" && table->has("root_length_scale")) {
+    table->fail("root_length_scale", "only used with root_shape = \"exponential\"");
   }
 }
 
@@ -397,7 +446,7 @@ void read_pan(const SiteTable& root, const std::filesystem::path& folder, SiteSe
 void read_sensors(const SiteTable& root, const std::filesystem::path& folder, double column_depth_cm, SiteSetup& site) {
   static constexpr std::array<std::string_view, 5> keys = {"name", "kind", "depth", "readings", "note"};
   static constexpr std::array<std::string_view, 2> kinds = {"tensiometer", "water content probe"};
-  for (const auto& table : root.table_array("sensor")) {
+  for (const auto& table : root.table_array("sensors")) {
     table.only_keys(keys);
     SensorSetup sensor;
     sensor.name = table.text("name");
@@ -437,8 +486,8 @@ void read_numerics(const SiteTable& root, SiteSetup& site) {
     if (site.max_ponded_depth_cm < 0) surface->fail("max_ponding", "must not be negative");
   }
   if (const auto solver = root.subtable("solver")) {
-    static constexpr std::array<std::string_view, 4> keys = {"relative_tolerance", "storage_tolerance", "max_step",
-                                                             "face_conductivity"};
+    static constexpr std::array<std::string_view, 5> keys = {"relative_tolerance", "storage_tolerance", "max_step",
+                                                             "face_conductivity", "specific_storage"};
     solver->only_keys(keys);
     auto& s = site.settings;
     s.relative_tolerance = solver->optional_number("relative_tolerance").value_or(s.relative_tolerance);
@@ -448,6 +497,11 @@ void read_numerics(const SiteTable& root, SiteSetup& site) {
     if (!(s.relative_tolerance > 0 && s.relative_tolerance < 0.1)) solver->fail("relative_tolerance", "must lie in (0, 0.1)");
     if (!(s.absolute_tolerance_storage_cm > 0)) solver->fail("storage_tolerance", "must be positive");
     if (!(s.max_step_days > 0)) solver->fail("max_step", "must be positive");
+    site.specific_storage_per_cm =
+        solver->optional_quantity("specific_storage", Dimension::inverse_length).value_or(site.specific_storage_per_cm);
+    if (!(site.specific_storage_per_cm > 0 && site.specific_storage_per_cm < 0.01)) {
+      solver->fail("specific_storage", "must lie in (0, 0.01) 1/cm");
+    }
     static constexpr std::array<std::string_view, 3> means = {"arithmetic", "geometric", "harmonic"};
     if (const auto mean = solver->optional_choice("face_conductivity", means)) {
       site.face_conductivity = *mean == "harmonic"    ? solver::FaceConductivity::harmonic

@@ -19,6 +19,7 @@
 #include "wetfront/soils/layers.hpp"
 #include "wetfront/solver/column_problem.hpp"
 #include "wetfront/solver/grid.hpp"
+#include "wetfront/solver/root_uptake.hpp"
 
 namespace wetfront::cli {
 
@@ -43,6 +44,9 @@ struct CropSetup {
   forcing::CropCoefficientCurve kc_curve;        // planting_day in days since run start
   forcing::CanopySplit split;
   forcing::DatedTable root_depth_cm = forcing::DatedTable::constant("root depth", 0.0);
+  std::string uptake_response_name;            // Feddes parameter set, e.g. "maize"
+  solver::FeddesResponse uptake_response;
+  solver::RootDistribution root_shape = solver::UniformRoots{};
 };
 
 struct SensorSetup {
@@ -90,6 +94,7 @@ struct SiteSetup {
   double recharge_plane_depth_cm = 0;
 
   solver::SolverSettings settings;
+  double specific_storage_per_cm = 1e-5;  // Ss: keeps saturated cells well posed
   solver::FaceConductivity face_conductivity = solver::FaceConductivity::arithmetic;
 };
 

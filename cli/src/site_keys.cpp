@@ -171,6 +171,12 @@ std::optional<double> SiteTable::optional_number(std::string_view key) const {
   return number(key);
 }
 
+std::optional<double> SiteTable::optional_number_if_plain(std::string_view key) const {
+  const toml::node* node = table_->get(key);
+  if (node == nullptr || !(node->is_integer() || node->is_floating_point())) return std::nullopt;
+  return node->value<double>();
+}
+
 std::vector<std::string> SiteTable::text_list(std::string_view key) const {
   const toml::node& node = require(key);
   const toml::array* array = node.as_array();

@@ -46,6 +46,8 @@ class SiteTable {
   // Dimensionless number (integer or float in TOML, or a string holding one).
   double number(std::string_view key) const;
   std::optional<double> optional_number(std::string_view key) const;
+  // The value when it is a bare TOML number (integer or float); empty otherwise.
+  std::optional<double> optional_number_if_plain(std::string_view key) const;
   // Arrays.
   std::vector<std::string> text_list(std::string_view key) const;
   std::vector<double> quantity_list(std::string_view key, Dimension dimension) const;

@@ -1,0 +1,18 @@
+# The site-file loader and the season commands (`wetfront run`, `check`, `show`).
+# wetfront_site turns a site file and its field records into the plain structs the libraries
+# take; it has no command-line code, so tests link it directly. It carries its own copy of the
+# unit parser and error type objects (quantity.cpp, input_error.cpp) so it links on its own;
+# in the program the executable's objects of the same sources are used.
+add_library(wetfront_site STATIC
+  src/site_keys.cpp
+  src/site_file.cpp
+  src/season_setup.cpp
+  src/quantity.cpp
+  src/input_error.cpp)
+target_include_directories(wetfront_site PUBLIC src)
+target_link_libraries(wetfront_site
+  PUBLIC wetfront_soils wetfront_forcing wetfront_solver wetfront_profiles tomlplusplus::tomlplusplus fmt::fmt
+  PRIVATE wetfront_warnings)
+
+target_sources(wetfront PRIVATE src/season_commands.cpp src/season_report.cpp)
+target_link_libraries(wetfront PRIVATE wetfront_site wetfront_forcing wetfront_solver wetfront_profiles Threads::Threads)

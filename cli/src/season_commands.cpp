@@ -1,0 +1,239 @@
+#include "season_commands.hpp"
+
+#include <chrono>
+#include <cstdio>
+#include <future>
+#include <memory>
+#include <variant>
+
+#include <fmt/format.h>
+
+#include "input_error.hpp"
+#include "report_table.hpp"
+#include "season_report.hpp"
+#include "season_setup.hpp"
+#include "site_file.hpp"
+#include "wetfront/profiles/run_file.hpp"
+#include "wetfront/soils/texture_classes.hpp"
+#include "wetfront/solver/column_run.hpp"
+
+namespace wetfront::cli {
+namespace {
+
+std::filesystem::path default_output(const std::filesystem::path& site_file) {
+  std::filesystem::path out = site_file;
+  out.replace_extension(".h5");
+  return out;
+}
+
+std::filesystem::path visits_csv_path(const std::filesystem::path& run_file) {
+  std::filesystem::path csv = run_file;
+  csv.replace_filename(run_file.stem().string() + "-visits.csv");
+  return csv;
+}
+
+// Runs the solver on a worker thread; prints a progress line on stderr once it has taken
+// longer than a second.
+solver::ColumnRun simulate_with_progress(const solver::ColumnProblem& problem, bool quiet, const std::string& label) {
+  const auto started = std::chrono::steady_clock::now();
+  auto future = std::async(std::launch::async, [&problem] { return solver::simulate(problem); });
+  bool printed = false;
+  while (future.wait_for(std::chrono::milliseconds(1000)) != std::future_status::ready) {
+    if (quiet) continue;
+    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+    fmt::print(stderr, "\rwetfront: simulating {} ... {:.0f} s", label, seconds);
+    std::fflush(stderr);
+    printed = true;
+  }
+  if (printed) fmt::print(stderr, "\n");
+  return future.get();
+}
+
+std::string layer_text(const soils::SoilLayer& layer) {
+  return std::visit(
+      [](const auto& m) -> std::string {
+        using M = std::decay_t<decltype(m)>;
+        if constexpr (std::is_same_v<M, soils::VanGenuchtenMualem>) {
+          return fmt::format("van Genuchten-Mualem: theta_r {} theta_s {} alpha {} 1/cm n {} Ks {} cm/d l {}",
+                             number(m.residual_water_content), number(m.saturated_water_content), number(m.alpha_per_cm),
+                             number(m.n), number(m.saturated_conductivity_cm_per_d), number(m.pore_connectivity));
+        } else if constexpr (std::is_same_v<M, soils::VanGenuchtenAirEntry>) {
+          return fmt::format("van Genuchten-Mualem with air entry {} cm: theta_r {} theta_s {} alpha {} 1/cm n {} Ks {} cm/d",
+                             number(m.air_entry_head_cm), number(m.base.residual_water_content),
+                             number(m.base.saturated_water_content), number(m.base.alpha_per_cm), number(m.base.n),
+                             number(m.base.saturated_conductivity_cm_per_d));
+        } else if constexpr (std::is_same_v<M, soils::BrooksCorey>) {
+          return fmt::format("Brooks-Corey: theta_r {} theta_s {} h_b {} cm lambda {} Ks {} cm/d", number(m.residual_water_content),
+                             number(m.saturated_water_content), number(m.bubbling_head_cm), number(m.pore_size_index),
+                             number(m.saturated_conductivity_cm_per_d));
+        } else {
+          return fmt::format("Gardner: theta_r {} theta_s {} a {} 1/cm Ks {} cm/d", number(m.residual_water_content),
+                             number(m.saturated_water_content), number(m.sorptive_number_per_cm),
+                             number(m.saturated_conductivity_cm_per_d));
+        }
+      },
+      layer.model);
+}
+
+std::string resolved_setup(const Season& season) {
+  const SiteSetup& s = season.site;
+  std::string out;
+  out += fmt::format("Site file: {}\nSite: {}\n", s.site_file.string(), s.name);
+  if (!s.location.empty()) out += fmt::format("Location: {}\n", s.location);
+  if (!s.description.empty()) out += fmt::format("Description: {}\n", s.description);
+  out += fmt::format("Period: {} to {} ({} d), output every {} d, {} output times\n", s.run_start_text, s.run_end_text,
+                     number(s.run_length_days), number(s.output_interval_days), season.problem.output_days.size());
+  out += fmt::format("Visits: {}\n", s.visit_dates.empty() ? std::string("none") : fmt::format("{}", fmt::join(s.visit_dates, ", ")));
+  out += "Layers (depths in cm):\n";
+  for (const auto& layer : s.layers) {
+    out += fmt::format("  {:>6} - {:<6} {}: {}\n", number(layer.top_depth_cm), number(layer.bottom_depth_cm), layer.name,
+                       layer_text(layer));
+  }
+  const auto& grid = season.problem.grid;
+  double thinnest = 1e300, thickest = 0;
+  for (std::size_t i = 0; i < grid.cell_count(); ++i) {
+    thinnest = std::min(thinnest, grid.cell_thickness_cm(i));
+    thickest = std::max(thickest, grid.cell_thickness_cm(i));
+  }
+  out += fmt::format("Grid: {} cells, {} to {} cm thick, faces kept at {} cm\n", grid.cell_count(), number(thinnest),
+                     number(thickest), fmt::join(s.grid.required_face_depths_cm, ", "));
+  out += fmt::format("Initial state: {}\nBottom: {}\n", s.initial_text, s.bottom_text);
+  out += fmt::format("Surface: dry limit {} cm, ponding up to {} cm before runoff\n", number(s.dry_limit_head_cm),
+                     number(s.max_ponded_depth_cm));
+  out += fmt::format("Rain: {} ({} mm)\n", s.rain.path.string(), number(season.totals.rain_cm * 10));
+  if (s.irrigation) out += fmt::format("Irrigation: {} ({} mm)\n", s.irrigation->path.string(), number(season.totals.irrigation_cm * 10));
+  out += fmt::format("Pan: {} ({} mm Class A pan evaporation), pan coefficient Kp {}\n",
+                     (s.pan.readings ? s.pan.readings->path : s.pan.daily_evaporation->path).string(),
+                     number(season.totals.pan_evaporation_cm * 10), number(season.pan_coefficient, 3));
+  const auto& c = s.crop.kc_curve;
+  out += fmt::format("Crop: {}, planted day {}, stages {} / {} / {} / {} d, Kc {} / {} / {}, bare soil {}\n", s.crop.name,
+                     number(c.planting_day), number(c.stages.initial_days), number(c.stages.development_days),
+                     number(c.stages.mid_season_days), number(c.stages.late_season_days), number(c.kc_initial),
+                     number(c.kc_mid), number(c.kc_end), number(c.kc_bare_soil));
+  out += fmt::format("Potential transpiration over the run: {} mm ({})\n", number(season.totals.potential_transpiration_cm * 10),
+                     season.roots_simulated ? "taken up by roots where the soil allows"
+                                            : "NOT taken from the soil: root uptake is not simulated in this version");
+  out += "Sensors:\n";
+  if (s.sensors.empty()) out += "  none\n";
+  for (const auto& sensor : s.sensors) {
+    out += fmt::format("  {} ({}) at {} cm: {}\n", sensor.name, sensor.kind, number(sensor.depth_cm), sensor.readings.string());
+  }
+  out += fmt::format("Recharge plane: {} cm\n", number(s.recharge_plane_depth_cm));
+  out += fmt::format("Solver: relative tolerance {}, storage tolerance {} cm, max step {} d\n",
+                     s.settings.relative_tolerance, s.settings.absolute_tolerance_storage_cm, number(s.settings.max_step_days));
+  for (const auto& note : season.notes) out += fmt::format("note: {}\n", note);
+  return out;
+}
+
+std::vector<std::string> season_notes(const Season& season) {
+  std::vector<std::string> notes = season.notes;
+  if (!season.roots_simulated) {
+    notes.push_back(fmt::format("root water uptake is not simulated in this version: the {} mm of potential transpiration "
+                                "were not taken from the soil, so drainage is overestimated",
+                                number(season.totals.potential_transpiration_cm * 10)));
+  }
+  return notes;
+}
+
+void add_run_command(CLI::App& app) {
+  struct Options {
+    std::string site;
+    std::string out;
+    std::string from;
+    std::string to;
+    bool quiet = false;
+  };
+  auto options = std::make_shared<Options>();
+  CLI::App* cmd = app.add_subcommand("run", "Simulate the season at a site and report its water balance");
+  cmd->add_option("SITE", options->site, "site file (TOML); see docs/site-file.md")->required();
+  cmd->add_option("--out", options->out, "HDF5 run file to write (default: the site file's name with .h5)");
+  cmd->add_option("--from", options->from, "start the run on this date instead (YYYY-MM-DD)");
+  cmd->add_option("--to", options->to, "end the run on this date instead (YYYY-MM-DD)");
+  cmd->add_flag("--quiet", options->quiet, "print only errors; no report and no progress line");
+  cmd->footer(
+      "Writes the run file and, next to it, NAME-visits.csv with the balance per visit interval.\n"
+      "Exit codes: 0 done, 1 bad input (nothing written), 2 solver failure (partial run file marked incomplete).\n"
+      "Example:\n  wetfront run examples/demo/site.toml --out season.h5");
+  cmd->callback([options] {
+    const std::filesystem::path site_file = options->site;
+    Season season = prepare_season(load_site_file(site_file, {options->from, options->to}));
+    const std::filesystem::path out = options->out.empty() ? default_output(site_file) : std::filesystem::path(options->out);
+    const auto started = std::chrono::steady_clock::now();
+    solver::ColumnRun run = simulate_with_progress(season.problem, options->quiet,
+                                                   fmt::format("{} to {}", season.site.run_start_text, season.site.run_end_text));
+    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+    const bool complete = run.complete;
+    const profiles::RunRecord record = make_record(season, std::move(run), WETFRONT_VERSION);
+    try {
+      profiles::write_run(out, record);
+    } catch (const profiles::RunFileError& error) {
+      throw InputError(error.what());
+    }
+    write_csv(visit_balance_table(record), visits_csv_path(out).string());
+    if (!options->quiet) {
+      fmt::print("{}", season_report(record, season_notes(season)));
+      fmt::print("\nRun time {:.2f} s. Wrote {} and {}\n", seconds, out.string(), visits_csv_path(out).string());
+    }
+    if (!complete) {
+      const auto& failure = record.run.failure;
+      fmt::print(stderr, "error: the solver failed{}; partial results written to {} (marked incomplete)\n",
+                 failure ? fmt::format(" at day {:.4f} near {} cm: {}", failure->time_days, number(failure->depth_cm),
+                                       failure->reason)
+                         : std::string(),
+                 out.string());
+      throw CLI::RuntimeError(exit_solver_failure);
+    }
+  });
+}
+
+void add_check_command(CLI::App& app) {
+  struct Options {
+    std::string site;
+    std::string from;
+    std::string to;
+  };
+  auto options = std::make_shared<Options>();
+  CLI::App* cmd = app.add_subcommand("check", "Check a site file and its field records, and print the resolved setup without running");
+  cmd->add_option("SITE", options->site, "site file (TOML); see docs/site-file.md")->required();
+  cmd->add_option("--from", options->from, "check for a run starting on this date instead (YYYY-MM-DD)");
+  cmd->add_option("--to", options->to, "check for a run ending on this date instead (YYYY-MM-DD)");
+  cmd->footer("Exit codes: 0 the site is usable, 1 it is not (the message names the file, line and key).\n"
+              "Example:\n  wetfront check examples/demo/site.toml");
+  cmd->callback([options] {
+    const Season season = prepare_season(load_site_file(options->site, {options->from, options->to}));
+    fmt::print("{}", resolved_setup(season));
+    fmt::print("Site file is usable.\n");
+  });
+}
+
+void add_show_command(CLI::App& app) {
+  struct Options {
+    std::string run_file;
+    std::string csv;
+  };
+  auto options = std::make_shared<Options>();
+  CLI::App* cmd = app.add_subcommand("show", "Print the report of a finished run again from its HDF5 run file");
+  cmd->add_option("RUN", options->run_file, "run file written by `wetfront run`")->required();
+  cmd->add_option("--csv", options->csv, "also write the balance per visit interval to this CSV file");
+  cmd->footer("Example:\n  wetfront show examples/demo/site.h5");
+  cmd->callback([options] {
+    profiles::RunRecord record;
+    try {
+      record = profiles::read_run(options->run_file);
+    } catch (const profiles::RunFileError& error) {
+      throw InputError(error.what());
+    }
+    fmt::print("{}", season_report(record, {}));
+    if (!options->csv.empty()) write_csv(visit_balance_table(record), options->csv);
+  });
+}
+
+}  // namespace
+
+void add_season_commands(CLI::App& app) {
+  add_run_command(app);
+  add_check_command(app);
+  add_show_command(app);
+}
+
+}  // namespace wetfront::cli
