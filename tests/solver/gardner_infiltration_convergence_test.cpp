@@ -95,7 +95,9 @@ TEST(GardnerInfiltrationToWaterTable, DefaultTolerancesStayCloseToTheExactSoluti
   problem.settings = solver::SolverSettings{};
   const solver::ColumnRun run = solver::simulate(problem);
   ASSERT_TRUE(run.complete) << (run.failure ? run.failure->reason : "");
-  EXPECT_LT(max_head_error(run), 0.1);
+  const double error = max_head_error(run);
+  std::printf("default tolerances, 100 cells: max head error %.3e cm, %ld steps\n", error, run.statistics.steps);
+  EXPECT_LT(error, 0.1);
   // The flux at the surface is the prescribed qB = 0.9 cm/d.
   for (const auto& profile : run.profiles) EXPECT_NEAR(profile.face_flux_cm_per_d.front(), 0.9, 1e-9);
 }
