@@ -82,7 +82,10 @@ TEST(HardCases, RainAboveKsOnLoamPondsAndRecovers) {
   const solver::ColumnRun run = solver::simulate(problem);
   expect_complete_and_balanced(run);
   if (!run.complete) return;
-  EXPECT_GE(run.statistics.surface_switches, 1);
+  // Expected: flux -> ponded (runoff) early on, back to flux when the rain stops at 0.5 d,
+  // and to the dry limit late in the run if the surface dries to -15000 cm: 2 or 3 switches;
+  // one spare allows for the dry limit being left and reached once more.
+  EXPECT_GE(run.statistics.surface_switches, 2);
   EXPECT_LE(run.statistics.surface_switches, 4);
   const auto& last = run.balances.back();
   EXPECT_GT(last.runoff_cm, 0.0);
