@@ -44,10 +44,13 @@ forcing::TimePoint date_of(const SiteTable& table, std::string_view key) {
 
 std::vector<double> day_list(const SiteTable& table, std::string_view key, forcing::TimePoint start) {
   std::vector<double> days;
-  for (const auto& text : table.text_list(key)) days.push_back(forcing::days_since(start, date_value(table, key, text)));
-  for (std::size_t i = 1; i < days.size(); ++i) {
-    if (!(days[i] > days[i - 1])) {
-      table.fail(key, fmt::format("entry {} is not later than entry {}; dates must increase", i + 1, i));
+  const auto texts = table.text_list(key);
+  for (std::size_t i = 0; i < texts.size(); ++i) {
+    const auto time = forcing::parse_timestamp(trim(texts[i]));
+    if (!time) table.fail_entry(key, i, fmt::format("entry {} '{}' is not a date; write YYYY-MM-DD", i + 1, texts[i]));
+    days.push_back(forcing::days_since(start, *time));
+    if (i > 0 && !(days[i] > days[i - 1])) {
+      table.fail_entry(key, i, fmt::format("entry {} is not later than entry {}; dates must increase", i + 1, i));
     }
   }
   return days;
@@ -574,14 +577,18 @@ SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOve
   if (!(site.output_interval_days > 0)) run->fail("output_interval", "must be positive");
   if (run->has("visits")) {
     const auto texts = run->text_list("visits");
-    double previous = -1;
+    std::optional<double> previous;
     for (std::size_t i = 0; i < texts.size(); ++i) {
-      const double day = forcing::days_since(start, date_value(*run, "visits", texts[i]));
-      if (day <= previous) run->fail("visits", fmt::format("entry {} ({}) is not later than the entry before", i + 1, texts[i]));
+      const auto time = forcing::parse_timestamp(trim(texts[i]));
+      if (!time) run->fail_entry("visits", i, fmt::format("entry {} '{}' is not a date; write YYYY-MM-DD", i + 1, texts[i]));
+      const double day = forcing::days_since(start, *time);
+      if (previous && day <= *previous) {
+        run->fail_entry("visits", i, fmt::format("entry {} ({}) is not later than the entry before", i + 1, texts[i]));
+      }
       previous = day;
       if (day < 0 || day > site.run_length_days + 1e-9) {
         if (overridden) continue;  // a shorter period keeps the visits inside it
-        run->fail("visits", fmt::format("entry {} ({}) is outside the run ({} to {})", i + 1, texts[i], start_text, end_text));
+        run->fail_entry("visits", i, fmt::format("entry {} ({}) is outside the run ({} to {})", i + 1, texts[i], start_text, end_text));
       }
       site.visit_days.push_back(day);
       site.visit_dates.push_back(trim(texts[i]));

@@ -91,6 +91,19 @@ void SiteTable::fail(std::string_view key, const std::string& problem) const {
                    name.empty() ? problem : fmt::format("key '{}': {}", name, problem));
 }
 
+std::size_t SiteTable::entry_line(std::string_view key, std::size_t index) const {
+  if (const toml::array* array = table_->get_as<toml::array>(key)) {
+    if (const toml::node* entry = array->get(index); entry != nullptr && entry->source().begin.line > 0) {
+      return entry->source().begin.line;
+    }
+  }
+  return line_of(key);
+}
+
+void SiteTable::fail_entry(std::string_view key, std::size_t index, const std::string& problem) const {
+  throw InputError(file_, entry_line(key, index), "", fmt::format("key '{}': {}", key_name(key), problem));
+}
+
 void SiteTable::only_keys(std::span<const std::string_view> allowed) const {
   for (auto&& [key, value] : *table_) {
     const std::string_view name = key.str();

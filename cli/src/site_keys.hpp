@@ -34,8 +34,13 @@ class SiteTable {
   std::size_t line_of(std::string_view key) const;
   const std::string& file() const { return file_; }
 
+  // Line of entry `index` (0-based) of the array under `key`; the key's line when unknown.
+  std::size_t entry_line(std::string_view key, std::size_t index) const;
+
   // Throws InputError naming file, line and key with `problem`.
   [[noreturn]] void fail(std::string_view key, const std::string& problem) const;
+  // The same, for entry `index` (0-based) of the array under `key`, at that entry's line.
+  [[noreturn]] void fail_entry(std::string_view key, std::size_t index, const std::string& problem) const;
 
   // A required value (throws when missing) or an optional one.
   std::string text(std::string_view key) const;
