@@ -62,7 +62,7 @@ forcing::CoveredSeries depth_file_rate(const ForcingFile& file, std::string_view
     if (file.gaps == forcing::GapPolicy::fill_with_zero && !conversion.gaps.empty()) {
       double days = 0;
       for (const auto& gap : conversion.gaps) days += gap.end_day - gap.start_day;
-      notes.push_back(fmt::format("{}: {} stretches without a record ({:.1f} d in all, first {}) taken as no water",
+      notes.push_back(fmt::format("{}: {} stretch(es) without a record ({:.1f} d in all, first {}) taken as no water",
                                   file.path.string(), conversion.gaps.size(), days, gap_text(conversion.gaps.front(), site.run_start)));
     } else {
       for (const auto& gap : conversion.gaps) {

@@ -81,6 +81,26 @@ TEST(RunAndShow, DefaultOutputSitsNextToTheSiteFile) {
   EXPECT_NEAR(record.run.balances.back().time_days, 14.0, 1e-9);
 }
 
+// A step limit far too small for the integrator's step budget makes the solver give up within
+// the first day: exit code 2, and the partial run is written and marked incomplete.
+TEST(RunAndShow, SolverFailureExitsWithTwoAndKeepsThePartialRun) {
+  ScratchSite site("failure");
+  site.replace("site.toml", "max_step = \"1 d\"", "max_step = \"1e-7 d\"");
+  const auto out = site.folder() / "failed.h5";
+  const auto run = run_program(fmt::format("run '{}' --out '{}' --quiet --to 2025-04-03", site.site_file().string(), out.string()),
+                               site.folder());
+  EXPECT_EQ(run.exit_code, 2) << run.err;
+  EXPECT_NE(run.err.find("solver failed"), std::string::npos) << run.err;
+  ASSERT_TRUE(std::filesystem::exists(out));
+  const auto record = profiles::read_run(out);
+  EXPECT_FALSE(record.run.complete);
+  ASSERT_TRUE(record.run.failure.has_value());
+  EXPECT_LT(record.run.failure->time_days, 2.0);
+  const auto show = run_program(fmt::format("show '{}'", out.string()), site.folder());
+  EXPECT_EQ(show.exit_code, 0);
+  EXPECT_NE(show.out.find("RUN INCOMPLETE"), std::string::npos);
+}
+
 TEST(RunAndShow, CheckPrintsTheResolvedSetup) {
   ScratchSite site("check");
   const auto check = run_program(fmt::format("check '{}'", site.site_file().string()), site.folder());
