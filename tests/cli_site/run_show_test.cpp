@@ -119,6 +119,29 @@ TEST(RunAndShow, ShowRefusesAFileThatIsNotARun) {
   EXPECT_NE(show.err.find("rain.csv"), std::string::npos) << show.err;
 }
 
+// The [[layers]] block printed by `wetfront soil layer` pastes into a site file unchanged.
+TEST(RunAndShow, SoilLayerBlockLoadsAsASiteLayer) {
+  ScratchSite site("layerblock");
+  const auto layer = run_program(
+      fmt::format("soil layer --name 'loam subsoil' --top '40 cm' --bottom '250 cm' --texture loam "
+                  "--permeameter '{0}/examples/soil-data/well-permeameter.csv' --well-radius '3 cm' --reservoir-area '35.4 cm2'",
+                  WETFRONT_SOURCE_DIR),
+      site.folder());
+  ASSERT_EQ(layer.exit_code, 0) << layer.err;
+  const auto block_start = layer.out.find("[[layers]]");
+  ASSERT_NE(block_start, std::string::npos) << layer.out;
+  const std::string block = layer.out.substr(block_start);
+  std::string text = site.read("site.toml");
+  const auto from = text.find("[[layers]]\nname = \"loam subsoil\"");
+  const auto to = text.find("[grid]");
+  ASSERT_NE(from, std::string::npos);
+  text.replace(from, to - from, block + "\n");
+  site.write("site.toml", text);
+  const auto check = run_program(fmt::format("check '{}'", site.site_file().string()), site.folder());
+  EXPECT_EQ(check.exit_code, 0) << check.err;
+  EXPECT_NE(check.out.find("loam subsoil: van Genuchten-Mualem"), std::string::npos) << check.out;
+}
+
 TEST(RunAndShow, HelpGivesAnExample) {
   ScratchSite site("help");
   for (const std::string command : {"run", "check", "show"}) {
