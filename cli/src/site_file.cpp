@@ -135,6 +135,9 @@ soils::HydraulicModel layer_model(const SiteTable& layer) {
                                                              "van genuchten air entry", "brooks corey", "gardner"};
   if (layer.has("texture")) {
     if (layer.has("model")) layer.fail("model", "give either 'texture' (class defaults) or 'model' with parameters, not both");
+    // Class averages come as a set; parameters beside them would be silently overridden or ignored.
+    static constexpr std::array<std::string_view, 5> texture_keys = {"name", "top", "bottom", "note", "texture"};
+    layer.only_keys(texture_keys);
     const std::string name = layer.text("texture");
     try {
       return soils::texture_class_parameters(name);
@@ -147,6 +150,28 @@ soils::HydraulicModel layer_model(const SiteTable& layer) {
                        std::string("van genuchten, van genuchten air entry, brooks corey or gardner) with its parameters"));
   }
   const std::string model = layer.choice("model", models);
+  // Each model takes its own parameters; a parameter of another model is an error, not ignored.
+  static constexpr std::array<std::string_view, 11> van_genuchten_keys = {
+      "name", "top", "bottom", "note", "model", "residual_water_content", "saturated_water_content", "alpha", "n",
+      "saturated_conductivity", "pore_connectivity"};
+  static constexpr std::array<std::string_view, 12> air_entry_keys = {
+      "name", "top", "bottom", "note", "model", "residual_water_content", "saturated_water_content", "alpha", "n",
+      "saturated_conductivity", "pore_connectivity", "air_entry_head"};
+  static constexpr std::array<std::string_view, 10> brooks_corey_keys = {
+      "name", "top", "bottom", "note", "model", "residual_water_content", "saturated_water_content", "bubbling_head",
+      "pore_size_index", "saturated_conductivity"};
+  static constexpr std::array<std::string_view, 9> gardner_keys = {
+      "name", "top", "bottom", "note", "model", "residual_water_content", "saturated_water_content", "sorptive_number",
+      "saturated_conductivity"};
+  if (model == "brooks corey") {
+    layer.only_keys(brooks_corey_keys);
+  } else if (model == "gardner") {
+    layer.only_keys(gardner_keys);
+  } else if (model == "van genuchten air entry") {
+    layer.only_keys(air_entry_keys);
+  } else {
+    layer.only_keys(van_genuchten_keys);
+  }
   const double theta_r = water_content(layer, "residual_water_content");
   const double theta_s = water_content(layer, "saturated_water_content");
   const double ks = layer.quantity("saturated_conductivity", Dimension::conductivity);

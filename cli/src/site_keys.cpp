@@ -109,8 +109,11 @@ void SiteTable::only_keys(std::span<const std::string_view> allowed) const {
     const std::string_view name = key.str();
     if (std::find(allowed.begin(), allowed.end(), name) != allowed.end()) continue;
     std::string message = fmt::format("unknown key '{}'", key_name(name));
-    if (const auto near = did_you_mean(name, allowed)) message += fmt::format("; did you mean '{}'?", *near);
-    message += fmt::format(" Allowed here: {}", join(allowed));
+    if (const auto near = did_you_mean(name, allowed)) {
+      message += fmt::format("; did you mean '{}'? Allowed here: {}", *near, join(allowed));
+    } else {
+      message += fmt::format(". Allowed here: {}", join(allowed));
+    }
     const std::size_t line = key.source().begin.line > 0 ? key.source().begin.line : value.source().begin.line;
     throw InputError(file_, line, "", message);
   }

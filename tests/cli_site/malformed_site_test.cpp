@@ -111,6 +111,10 @@ std::vector<MalformedCase> malformed_cases() {
       make("texture and model together", {{"site.toml", "texture = \"sandy loam\" ", "model = \"gardner\"\ntexture = \"sandy loam\" "}},
        "site.toml", {"layers[1].model", "not both"}),
       make("negative pan level", {{"pan-readings.csv", "2025-04-09T08:00,", "2025-04-09T08:00,-1"}}, "pan-readings.csv", {}),
+      make("parameter beside a texture class", {{"site.toml", "texture = \"sandy loam\" ", "n = 1.3\ntexture = \"sandy loam\" "}},
+           "site.toml", {"unknown key 'layers[1].n'. Allowed here: name, top, bottom, note, texture"}),
+      make("parameter of another model", {{"site.toml", "n = 1.5", "n = 1.5\nbubbling_head = \"-20 cm\""}}, "site.toml",
+           {"unknown key 'layers[2].bubbling_head'. Allowed here:"}, 39),
       make("sensor name used twice", {{"site.toml", "name = \"T60\"", "name = \"T30\""}}, "site.toml",
        {"sensors[2].name", "used twice"}),
   };
