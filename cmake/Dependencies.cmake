@@ -1,5 +1,5 @@
 # Every dependency comes from a Debian 12 package; .ci/install-deps installs them.
-find_package(SUNDIALS 6.4 REQUIRED COMPONENTS idas nvecserial sunmatrixband sunlinsolband)
+find_package(SUNDIALS 6.4 REQUIRED COMPONENTS ida nvecserial sunmatrixband sunlinsolband)
 find_package(Eigen3 3.4 REQUIRED NO_MODULE)
 find_package(HDF5 1.10 REQUIRED COMPONENTS C HL)
 find_package(CLI11 REQUIRED)

@@ -1,18 +1,22 @@
-// The semi-discrete Richards equation on the column, as a DAE for IDA(S).
+// The semi-discrete Richards equation on the column, as a DAE for IDA.
 //
-// Unknowns (the Jacobian is tridiagonal):
-//   y[0]       ponded depth P on the surface (cm)
-//   y[1 + i]   stored water S_i of cell i (cm)
-// Residuals:
-//   ponding:  P' - (water input - evaporation - q_0)   while water is ponded, else P' = 0
-//   storage:  S_i' - (q_i - q_(i+1) - r_i dz_i) = 0    finite-volume balance of cell i
-// with q_j the Darcy flux on face j (face 0 the surface) and r_i the sink rate. The head of
-// each cell is the inverse of its storage function,
+// Unknowns, all cumulative amounts in cm since the last restart (the Jacobian is banded,
+// 2 lower and 5 upper diagonals):
+//   y[0] W  water input        y[1] V  potential evaporation   y[2] E  actual evaporation
+//   y[3] R  runoff             y[4] P  ponded depth
+//   y[5 + 2j] F_j  water that crossed face j (face 0 the surface, face N the bottom), down +
+//   y[6 + 2i] U_i  water taken from cell i by the sink
+// The stored water of cell i is then a linear function of the unknowns,
+//   S_i = S_i(restart) + F_i - F_(i+1) - U_i,
+// so conservation holds exactly, whatever the accuracy of the nonlinear solve. Residuals:
+//   F_j' - q_j(h) = 0        Darcy flux on face j (Darcy-Buckingham, q = K (1 - dh/dd))
+//   U_i' - r_i(h_i) dz_i = 0 sink
+//   surface rows, linear in the rates: W' = rain + irrigation, V' = potential evaporation,
+//   and per mode E' = V' or W' - F_0', R' = 0 or W' - V' - F_0', P' = 0 or W' - V' - F_0'.
+// Each cell's head is the inverse of its storage function,
 //   S_i = dz_i [theta(h_i) + Ss max(h_i - h_sat, 0)],
 // in closed form (h(theta) of the soil model; linear above saturation, where the specific
-// storage Ss keeps it one-to-one). Because the S_i are the integrated variables, BDF
-// conserves the total of S_i plus the integrated boundary fluxes exactly up to the
-// nonlinear-solver tolerance.
+// storage Ss keeps it one-to-one).
 #pragma once
 
 #include <span>
@@ -33,44 +37,50 @@ enum class SurfaceMode {
 };
 enum class BottomMode { normal, seepage_closed, seepage_open };
 
-// Quadrature (cumulative amount) slots.
-enum Quadrature : int {
-  q_water_input, q_potential_evaporation, q_actual_evaporation, q_runoff, q_infiltration, q_transpiration,
-  q_bottom, q_first_plane
+// Cumulative totals carried across restarts (the unknowns restart from zero).
+struct Totals {
+  double water_input = 0, potential_evaporation = 0, actual_evaporation = 0, runoff = 0, transpiration = 0;
+  std::vector<double> face;  // per face
 };
 
 class ColumnModel {
  public:
   explicit ColumnModel(const ColumnProblem& problem);
 
+  static constexpr std::size_t water_input_index = 0, potential_index = 1, evaporation_index = 2, runoff_index = 3,
+                               pond_index = 4;
+  static std::size_t face_index(std::size_t face) { return 5 + 2 * face; }
+  static std::size_t uptake_index(std::size_t cell) { return 6 + 2 * cell; }
+  static constexpr int lower_bandwidth = 2, upper_bandwidth = 5;
+
   std::size_t cells() const { return grid_.cell_count(); }
-  std::size_t unknowns() const { return 1 + cells(); }
-  std::size_t quadratures() const { return q_first_plane + plane_faces_.size(); }
-  static std::size_t storage_index(std::size_t cell) { return 1 + cell; }
+  std::size_t unknowns() const { return 6 + 2 * cells(); }
 
   // Holds the forcing of the period that starts at t (piecewise-constant series).
   void begin_period(double t_days);
   std::vector<double> breakpoints() const;
 
-  void initial_state(std::span<double> y) const;
+  void initial_state(std::span<double> y);
+  // Moves the cumulative unknowns into the totals and the cell storages, and zeroes them.
+  void rebase(std::span<double> y);
   // y' consistent with y under the current modes.
   void consistent_rates(double t, std::span<const double> y, std::span<double> yp);
   void residual(double t, std::span<const double> y, std::span<const double> yp, std::span<double> r);
   void jacobian(double t, double cj, std::span<const double> y, SUNMatrix band);
-  void quadrature_rates(double t, std::span<const double> y, std::span<double> rates);
 
   // Events: one root function per possible switch, used in the current modes.
   int root_count() const { return 3; }
   void roots(double t, std::span<const double> y, std::span<double> g);
-  std::vector<int> root_directions() const;
+  std::vector<int> root_directions() const { return {-1, -1, -1}; }
   // After a root in slot k: move to the next mode. Returns true for a surface switch.
-  bool switch_mode(int root_slot, std::span<const double> y);
+  bool switch_mode(int root_slot);
   // At a period start: choose the modes that fit the state (new forcing may change them).
   void choose_modes(std::span<const double> y);
   SurfaceMode surface_mode() const { return surface_; }
-  BottomMode bottom_mode() const { return bottom_; }
 
   // Diagnostics at a state.
+  double cell_storage(std::size_t cell, std::span<const double> y) const;
+  const Totals& totals() const { return totals_; }
   void face_fluxes(double t, std::span<const double> y, std::span<double> flux);
   void cell_properties(std::span<const double> y, std::span<double> head, std::span<double> theta,
                        std::span<double> k) const;
@@ -90,14 +100,14 @@ class ColumnModel {
     double flux;        // q_N, cm/d positive down
     double slope_head;  // dq_N / dh_(N-1)
   };
-  void evaluate_cells(double t, std::span<const double> y);
+  void evaluate_cells(std::span<const double> y);
   SurfaceFlux surface_flux(std::span<const double> y) const;
   SurfaceFlux head_limited_flux(double surface_head_cm) const;
   BottomFlux bottom_flux() const;
   double surface_head(std::span<const double> y) const;
   double net_input() const { return water_input_ - potential_evaporation_; }
-  double pond_rate(std::span<const double> y, const SurfaceFlux& top) const;
   double capacity_total(std::size_t cell) const;
+  void surface_residuals(std::span<const double> yp, std::span<double> r) const;
 
   Grid grid_;
   std::vector<const soils::HydraulicModel*> cell_model_;
@@ -105,7 +115,6 @@ class ColumnModel {
   TopBoundary top_;
   BottomBoundary bottom_boundary_;
   std::shared_ptr<const CellSink> sink_;
-  std::vector<std::size_t> plane_faces_;
   double specific_storage_;
   FaceConductivity face_kind_;
   double dry_limit_head_ = -15000.0;
@@ -115,15 +124,19 @@ class ColumnModel {
 
   // Forcing held over the current period.
   double water_input_ = 0, potential_evaporation_ = 0, prescribed_flux_ = 0, prescribed_head_ = 0;
+  double period_start_ = 0;
   SurfaceMode surface_ = SurfaceMode::flux;
   BottomMode bottom_ = BottomMode::normal;
 
-  // Workspace, refreshed by evaluate_cells().
+  std::vector<double> base_storage_;      // S_i at the last restart
+  Totals totals_;
+
+  // Workspace, refreshed by evaluate_cells() (kept while the state is unchanged).
   std::vector<double> head_, conductivity_, conductivity_slope_, capacity_, sink_rate_, sink_slope_;
   std::vector<double> head_per_storage_;  // dh/dS per cell in jacobian()
-  std::vector<double> evaluated_state_;   // the y of the cached cell evaluation
-  double evaluated_period_ = 0;
-  double period_start_ = 0;
+  std::vector<double> evaluated_state_;
+  double evaluated_period_ = -1;
+  std::vector<double> faces_scratch_;
 };
 
 }  // namespace wetfront::solver::detail

@@ -1,11 +1,11 @@
-// Owning handles for the SUNDIALS objects one IDAS integration needs.
+// Owning handles for the SUNDIALS objects one IDA integration needs.
 #pragma once
 
 #include <memory>
 #include <stdexcept>
 #include <string>
 
-#include <idas/idas.h>
+#include <ida/ida.h>
 #include <nvector/nvector_serial.h>
 #include <sundials/sundials_context.h>
 #include <sunlinsol/sunlinsol_band.h>

@@ -1,7 +1,7 @@
-// Time integration of the column DAE with IDAS (BDF, variable order and step), a banded
+// Time integration of the column DAE with IDA (BDF, variable order and step), a banded
 // analytic Jacobian, exact stops at forcing breakpoints and located boundary switches.
-// IDAS rather than IDA for its quadrature states: the cumulative boundary and plane fluxes
-// are integrated by the same BDF formula as the stored water, so the balance closes.
+// Every restart (new forcing period or boundary mode) moves the cumulative unknowns into
+// running totals, so they stay small and the error test sees per-period amounts.
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
@@ -45,11 +45,6 @@ int root_fn(double t, N_Vector y, N_Vector, double* g, void* user) {
   return 0;
 }
 
-int quadrature_fn(double t, N_Vector y, N_Vector, N_Vector rates, void* user) {
-  static_cast<ColumnModel*>(user)->quadrature_rates(t, view(y), view(rates));
-  return 0;
-}
-
 void validate(const ColumnProblem& p) {
   if (!(p.end_day > p.start_day)) throw std::invalid_argument("the run must end after it starts");
   for (std::size_t i = 0; i < p.output_days.size(); ++i) {
@@ -65,37 +60,47 @@ class Integrator {
  public:
   Integrator(const ColumnProblem& problem, ColumnModel& model)
       : problem_(problem), model_(model), ctx_(detail::make_context()) {
+    for (double d : problem.flux_plane_depths_cm) plane_faces_.push_back(model.grid().face_at(d));
     const std::size_t n = model.unknowns();
     y_ = detail::make_vector(n, ctx_.get());
     yp_ = detail::make_vector(n, ctx_.get());
-    quad_ = detail::make_vector(model.quadratures(), ctx_.get());
-    N_VConst(0.0, quad_.get());
     model.initial_state(view(y_.get()));
     model.begin_period(problem.start_day);
     model.choose_modes(view(y_.get()));
     model.consistent_rates(problem.start_day, view(y_.get()), view(yp_.get()));
     initial_storage_ = soil_storage();
+    initial_pond_ = 0.0;
 
     mem_.reset(detail::check_ptr(IDACreate(ctx_.get()), "IDACreate"));
     void* mem = mem_.get();
     detail::check_flag(IDAInit(mem, residual_fn, problem.start_day, y_.get(), yp_.get()), "IDAInit");
     detail::check_flag(IDASetUserData(mem, &model), "IDASetUserData");
     const auto& s = problem.settings;
+    // The unknowns are water amounts moved since the last restart; what the error test should
+    // guard is each cell's stored water, so a face or sink amount may err by the relative
+    // tolerance of the stored water next to it (plus the absolute tolerance).
     auto weights = detail::make_vector(n, ctx_.get());
     N_VConst(s.absolute_tolerance_storage_cm, weights.get());
+    auto w = view(weights.get());
+    const auto y0 = view(y_.get());
+    for (std::size_t i = 0; i < model.cells(); ++i) {
+      const double local = s.relative_tolerance * model.cell_storage(i, y0);
+      w[ColumnModel::uptake_index(i)] += local;
+      w[ColumnModel::face_index(i)] += local;
+      if (i + 1 == model.cells()) w[ColumnModel::face_index(i + 1)] += local;
+    }
     detail::check_flag(IDASVtolerances(mem, s.relative_tolerance, weights.get()), "IDASVtolerances");
     detail::check_flag(IDASetMaxStep(mem, s.max_step_days), "IDASetMaxStep");
     detail::check_flag(IDASetMaxNumSteps(mem, s.max_steps_per_output), "IDASetMaxNumSteps");
-    matrix_.reset(detail::check_ptr(SUNBandMatrix(static_cast<sunindextype>(n), 1, 1, ctx_.get()), "SUNBandMatrix"));
+    matrix_.reset(detail::check_ptr(SUNBandMatrix(static_cast<sunindextype>(n), ColumnModel::upper_bandwidth, ColumnModel::lower_bandwidth, ctx_.get()), "SUNBandMatrix"));
     solver_.reset(detail::check_ptr(SUNLinSol_Band(y_.get(), matrix_.get(), ctx_.get()), "SUNLinSol_Band"));
     detail::check_flag(IDASetLinearSolver(mem, solver_.get(), matrix_.get()), "IDASetLinearSolver");
     detail::check_flag(IDASetJacFn(mem, jacobian_fn), "IDASetJacFn");
     detail::check_flag(IDASetNonlinConvCoef(mem, s.nonlinear_convergence_factor), "IDASetNonlinConvCoef");
+    detail::check_flag(IDASetMaxNonlinIters(mem, s.max_nonlinear_iterations), "IDASetMaxNonlinIters");
     detail::check_flag(IDARootInit(mem, model.root_count(), root_fn), "IDARootInit");
     auto directions = model.root_directions();
     detail::check_flag(IDASetRootDirection(mem, directions.data()), "IDASetRootDirection");
-    detail::check_flag(IDAQuadInit(mem, quadrature_fn, quad_.get()), "IDAQuadInit");
-    detail::check_flag(IDASetQuadErrCon(mem, SUNFALSE), "IDASetQuadErrCon");
   }
 
   ColumnRun run() {
@@ -127,7 +132,7 @@ class Integrator {
         }
         t = reached;
         if (flag == IDA_ROOT_RETURN) {
-          switch_modes(result);
+          switch_modes(t);
           restart(t);
           detail::check_flag(IDASetStopTime(mem_.get(), stop), "IDASetStopTime");
         }
@@ -152,19 +157,27 @@ class Integrator {
   double soil_storage() const {
     const auto y = view(y_.get());
     double total = 0;
-    for (std::size_t i = 0; i < model_.cells(); ++i) total += y[ColumnModel::storage_index(i)];
+    for (std::size_t i = 0; i < model_.cells(); ++i) total += model_.cell_storage(i, y);
     return total;
   }
 
-  void switch_modes(ColumnRun&) {
+  // A root moves the boundary to its next mode. A switch undone at the same instant (the
+  // root function only touched zero: a tangency that the step's interpolant showed as a
+  // crossing) leaves the mode as it was and is not counted.
+  void switch_modes(double t) {
     std::vector<int> found(static_cast<std::size_t>(model_.root_count()));
     detail::check_flag(IDAGetRootInfo(mem_.get(), found.data()), "IDAGetRootInfo");
     for (int k = 0; k < model_.root_count(); ++k) {
       if (found[static_cast<std::size_t>(k)] == 0) continue;
-      if (model_.switch_mode(k, view(y_.get())))
-        ++stats_.surface_switches;
-      else
+      const auto before = model_.surface_mode();
+      if (model_.switch_mode(k)) {
+        const bool undone = std::abs(t - last_switch_time_) <= 1e-9 && model_.surface_mode() == mode_before_last_switch_;
+        stats_.surface_switches += undone ? -1 : 1;
+        mode_before_last_switch_ = before;
+        last_switch_time_ = undone ? -1.0 : t;
+      } else {
         ++stats_.bottom_switches;
+      }
       break;  // one switch at a time; a second one is found again at once if still due
     }
   }
@@ -173,11 +186,9 @@ class Integrator {
   // so the rates are discontinuous and the BDF history is dropped.
   void restart(double t) {
     collect_statistics();
-    double tq = t;
-    detail::check_flag(IDAGetQuad(mem_.get(), &tq, quad_.get()), "IDAGetQuad");
+    model_.rebase(view(y_.get()));
     model_.consistent_rates(t, view(y_.get()), view(yp_.get()));
     detail::check_flag(IDAReInit(mem_.get(), t, y_.get(), yp_.get()), "IDAReInit");
-    detail::check_flag(IDAQuadReInit(mem_.get(), quad_.get()), "IDAQuadReInit");
     counted_ = {};  // IDAReInit restarts the integrator's counters
   }
 
@@ -211,24 +222,24 @@ class Integrator {
     model_.cell_properties(y, snap.head_cm, snap.water_content, snap.conductivity_cm_per_d);
     model_.sink_rates(t, y, snap.sink_rate_per_day);
     model_.face_fluxes(t, y, snap.face_flux_cm_per_d);
-    snap.ponded_depth_cm = y[0];
+    snap.ponded_depth_cm = y[ColumnModel::pond_index];
 
-    double tq = t;
-    if (t > problem_.start_day) detail::check_flag(IDAGetQuad(mem_.get(), &tq, quad_.get()), "IDAGetQuad");
-    const auto q = view(quad_.get());
+    const auto& totals = model_.totals();
+    auto face_total = [&](std::size_t face) { return totals.face[face] + y[ColumnModel::face_index(face)]; };
     CumulativeBalance b;
     b.time_days = t;
-    b.water_input_cm = q[detail::q_water_input];
-    b.potential_evaporation_cm = q[detail::q_potential_evaporation];
-    b.actual_evaporation_cm = q[detail::q_actual_evaporation];
-    b.runoff_cm = q[detail::q_runoff];
-    b.infiltration_cm = q[detail::q_infiltration];
-    b.transpiration_cm = q[detail::q_transpiration];
-    b.bottom_flux_cm = q[detail::q_bottom];
-    b.plane_flux_cm.assign(q.begin() + detail::q_first_plane, q.end());
-    b.ponded_depth_cm = y[0];
+    b.water_input_cm = totals.water_input + y[ColumnModel::water_input_index];
+    b.potential_evaporation_cm = totals.potential_evaporation + y[ColumnModel::potential_index];
+    b.actual_evaporation_cm = totals.actual_evaporation + y[ColumnModel::evaporation_index];
+    b.runoff_cm = totals.runoff + y[ColumnModel::runoff_index];
+    b.infiltration_cm = face_total(0);
+    b.transpiration_cm = totals.transpiration;
+    for (std::size_t i = 0; i < n; ++i) b.transpiration_cm += y[ColumnModel::uptake_index(i)];
+    b.bottom_flux_cm = face_total(n);
+    for (std::size_t face : plane_faces_) b.plane_flux_cm.push_back(face_total(face));
+    b.ponded_depth_cm = y[ColumnModel::pond_index];
     b.soil_storage_cm = soil_storage();
-    const double change = b.soil_storage_cm - initial_storage_ + b.ponded_depth_cm;
+    const double change = b.soil_storage_cm - initial_storage_ + b.ponded_depth_cm - initial_pond_;
     const double net_in =
         b.water_input_cm - b.actual_evaporation_cm - b.runoff_cm - b.transpiration_cm - b.bottom_flux_cm;
     b.balance_error_cm = change - net_in;
@@ -252,8 +263,10 @@ class Integrator {
       const auto e = view(errors.get());
       std::size_t worst = 0;
       double largest = -1;
-      for (std::size_t k = 1; k < w.size(); ++k)
-        if (std::abs(w[k] * e[k]) > largest) largest = std::abs(w[k] * e[k]), worst = k - 1;
+      // The unknown with the largest weighted error: a face or a cell's uptake; name the cell.
+      for (std::size_t k = ColumnModel::face_index(0); k < w.size(); ++k)
+        if (std::abs(w[k] * e[k]) > largest)
+          largest = std::abs(w[k] * e[k]), worst = std::min((k - ColumnModel::face_index(0)) / 2, model_.cells() - 1);
       f.depth_cm = model_.grid().cell_depths_cm()[worst];
     }
     char* name = IDAGetReturnFlagName(flag);
@@ -264,7 +277,7 @@ class Integrator {
     f.reason = fmt::format("{} at {:.6g} d: the integrator could not continue (last head there {:.6g} cm)",
                            name ? name : "IDA failure", t,
                            model_.head_for_storage(std::min(cell, model_.cells() - 1),
-                                                   y[ColumnModel::storage_index(std::min(cell, model_.cells() - 1))]));
+                                                   model_.cell_storage(std::min(cell, model_.cells() - 1), y)));
     std::free(name);
     result.failure = f;
   }
@@ -272,11 +285,14 @@ class Integrator {
   const ColumnProblem& problem_;
   ColumnModel& model_;
   detail::ContextHandle ctx_;
-  detail::VectorHandle y_, yp_, quad_;
+  detail::VectorHandle y_, yp_;
+  std::vector<std::size_t> plane_faces_;
   detail::MatrixHandle matrix_;
   detail::SolverHandle solver_;
   detail::IdaHandle mem_;
-  double initial_storage_ = 0;
+  double initial_storage_ = 0, initial_pond_ = 0;
+  double last_switch_time_ = -1.0;
+  detail::SurfaceMode mode_before_last_switch_ = detail::SurfaceMode::flux;
   RunStatistics stats_, counted_;
 };
 

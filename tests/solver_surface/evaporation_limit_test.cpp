@@ -60,7 +60,9 @@ double check_drying(double dry_limit_head_cm) {
       // Surface held at the dry limit: the rate falls (stage-two drying) and stays below potential.
       EXPECT_LT(rate, potential_rate) << "day " << b.time_days;
       EXPECT_LE(rate, previous_rate * (1 + 1e-3) + 1e-9) << "day " << b.time_days;
-      EXPECT_LT(run.profiles[k].head_cm.front(), -100.0) << "day " << b.time_days;
+      // and the top cell keeps drying, never below the dry limit held at the surface.
+      EXPECT_LE(run.profiles[k].head_cm.front(), run.profiles[k - 1].head_cm.front() + 1e-9) << "day " << b.time_days;
+      EXPECT_GT(run.profiles[k].head_cm.front(), dry_limit_head_cm) << "day " << b.time_days;
     }
     previous_rate = rate;
   }

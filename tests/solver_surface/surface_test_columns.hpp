@@ -30,7 +30,7 @@ inline solver::ColumnProblem make_column(soils::LayeredProfile soil, solver::Gri
                                solver::UniformHead{-100.0},
                                nullptr,
                                {},
-                               1e-5,
+                               1e-4,
                                solver::FaceConductivity::arithmetic,
                                0.0,
                                1.0,
