@@ -19,7 +19,10 @@ double effective_saturation(const HydraulicModel& model, double h) {
   return std::visit([h](const auto& m) { return detail::saturation(m, h).saturation; }, model);
 }
 
+// The van Genuchten-Mualem properties come from one shared evaluation (detail::state), so the
+// single functions and evaluate() agree to the last bit.
 double water_content(const HydraulicModel& model, double h) {
+  if (const auto* vg = std::get_if<VanGenuchtenMualem>(&model)) return detail::state(*vg, h).water_content;
   return std::visit(
       [h](const auto& m) {
         return water_content_from_saturation(detail::theta_r(m), detail::theta_s(m), detail::saturation(m, h).saturation);
@@ -28,16 +31,19 @@ double water_content(const HydraulicModel& model, double h) {
 }
 
 double moisture_capacity(const HydraulicModel& model, double h) {
+  if (const auto* vg = std::get_if<VanGenuchtenMualem>(&model)) return detail::state(*vg, h).moisture_capacity;
   return std::visit(
       [h](const auto& m) { return (detail::theta_s(m) - detail::theta_r(m)) * detail::saturation(m, h).slope_per_cm; },
       model);
 }
 
 double conductivity(const HydraulicModel& model, double h) {
+  if (const auto* vg = std::get_if<VanGenuchtenMualem>(&model)) return detail::state(*vg, h).conductivity;
   return std::visit([h](const auto& m) { return detail::conductivity(m, h).conductivity; }, model);
 }
 
 double conductivity_slope(const HydraulicModel& model, double h) {
+  if (const auto* vg = std::get_if<VanGenuchtenMualem>(&model)) return detail::state(*vg, h).conductivity_slope;
   return std::visit([h](const auto& m) { return detail::conductivity(m, h).slope; }, model);
 }
 

@@ -64,10 +64,11 @@ HydraulicState state(const VanGenuchtenMualem& p, double h) {
   const double x = -p.alpha_per_cm * h;
   const double log_x = std::log(x);
   const double xn = std::exp(p.n * log_x);
+  if (!(xn > 0.0)) return {p.saturated_water_content, 0.0, ks, 0.0};  // x^n underflows: saturated to machine precision
   const double log_1p_xn = std::log1p(xn);
   const double se = std::exp(-m * log_1p_xn);
   const double dse = m * p.n * p.alpha_per_cm * (xn / x) * se / (1.0 + xn);
-  const double theta = p.residual_water_content + range * se;
+  const double theta = se >= 1.0 ? p.saturated_water_content : p.residual_water_content + range * se;
   if (se <= 0.0) return {theta, range * dse, 0.0, 0.0};
   const double log_u = xn < 1.0 ? p.n * log_x - log_1p_xn : -std::log1p(1.0 / xn);
   const double um = std::exp(m * log_u);
