@@ -12,6 +12,7 @@
 
 #include "input_error.hpp"
 #include "site_keys.hpp"
+#include "wetfront/forcing/dry_limit.hpp"
 #include "wetfront/soils/parameter_checks.hpp"
 #include "wetfront/soils/texture_classes.hpp"
 
@@ -494,6 +495,37 @@ void read_sensors(const SiteTable& root, const std::filesystem::path& folder, do
 
 // --- [solver], [grid], [surface] ---------------------------------------------------------
 
+// Air temperature as "20 degC", "20 C" or "293.15 K", in degrees Celsius.
+double air_temperature_c(const SiteTable& table, std::string_view key) {
+  const auto text = table.optional_text(key);
+  if (!text) table.fail(key, "expected a temperature with its unit, e.g. \"20 degC\" or \"293.15 K\"");
+  std::istringstream in(*text);
+  double value = 0;
+  std::string unit;
+  if (!(in >> value) || !(in >> unit) || !(in >> std::ws).eof())
+    table.fail(key, fmt::format("expected a temperature with its unit (degC, C or K), got '{}'", *text));
+  if (unit == "degC" || unit == "C") return value;
+  if (unit == "K") return value - 273.15;
+  table.fail(key, fmt::format("unit '{}' is not a temperature unit: use degC, C or K", unit));
+}
+
+// The dry limit from the air: the Kelvin equation with the given humidity and temperature
+// (forcing/dry_limit.hpp). Exclusive with an explicit dry_limit head.
+void read_dry_limit_from_air(const SiteTable& surface, SiteSetup& site) {
+  const bool humidity = surface.has("dry_limit_air_humidity");
+  const bool temperature = surface.has("dry_limit_air_temperature");
+  if (!humidity && !temperature) return;
+  if (surface.has("dry_limit"))
+    surface.fail("dry_limit_air_humidity", "give either dry_limit or the air humidity and temperature, not both");
+  if (!humidity) surface.fail("dry_limit_air_temperature", "needs dry_limit_air_humidity beside it");
+  if (!temperature) surface.fail("dry_limit_air_humidity", "needs dry_limit_air_temperature beside it");
+  const double fraction = surface.quantity("dry_limit_air_humidity", Dimension::water_content);
+  if (!(fraction > 0 && fraction < 1))
+    surface.fail("dry_limit_air_humidity", "must lie strictly between 0 and 100 %, e.g. \"45 %\"");
+  site.dry_limit_head_cm =
+      forcing::dry_limit_head_from_humidity(fraction, air_temperature_c(surface, "dry_limit_air_temperature"));
+}
+
 void read_numerics(const SiteTable& root, SiteSetup& site) {
   if (const auto grid = root.subtable("grid")) {
     static constexpr std::array<std::string_view, 3> keys = {"surface_cell", "growth_factor", "max_cell"};
@@ -506,9 +538,11 @@ void read_numerics(const SiteTable& root, SiteSetup& site) {
     if (!(site.grid.max_cell_cm >= site.grid.surface_cell_cm)) grid->fail("max_cell", "must be at least surface_cell");
   }
   if (const auto surface = root.subtable("surface")) {
-    static constexpr std::array<std::string_view, 2> keys = {"dry_limit", "max_ponding"};
+    static constexpr std::array<std::string_view, 4> keys = {"dry_limit", "max_ponding", "dry_limit_air_humidity",
+                                                             "dry_limit_air_temperature"};
     surface->only_keys(keys);
     site.dry_limit_head_cm = surface->optional_quantity("dry_limit", Dimension::pressure_head).value_or(site.dry_limit_head_cm);
+    read_dry_limit_from_air(*surface, site);
     site.max_ponded_depth_cm = surface->optional_quantity("max_ponding", Dimension::length).value_or(0.0);
     if (!(site.dry_limit_head_cm < 0)) surface->fail("dry_limit", "must be a negative pressure head, e.g. \"-1500 kPa\"");
     if (site.max_ponded_depth_cm < 0) surface->fail("max_ponding", "must not be negative");

@@ -6,6 +6,7 @@
 #include <sstream>
 #include <variant>
 
+#include "input_error.hpp"
 #include "season_setup.hpp"
 #include "site_file.hpp"
 #include "site_keys.hpp"
@@ -86,6 +87,22 @@ TEST(SiteLoader, DemoBoundariesSensorsAndGrid) {
   EXPECT_EQ(site.grid.required_face_depths_cm, faces);
   // -1500 kPa in cm of water with standard gravity and 1000 kg/m3 (common practice).
   EXPECT_NEAR(site.dry_limit_head_cm, -1500.0 * 100000.0 / (1000.0 * 9.80665), 1e-6);
+}
+
+TEST(SiteLoader, DryLimitFromAirHumidity) {
+  testing::ScratchSite site("kelvin");
+  site.replace("site.toml", "dry_limit = \"-1500 kPa\"",
+               "dry_limit_air_humidity = \"50 %\"\ndry_limit_air_temperature = \"293.15 K\"");
+  // Kelvin equation, h = R T ln(RH) / (M g) (forcing/dry_limit.hpp; as in Hillel 1998, from
+  // memory): 13796.3 m * ln(0.5) = -9562.9 m at 20 degC.
+  EXPECT_NEAR(load_site_file(site.site_file()).dry_limit_head_cm, -956286.0, 5.0);
+  site.replace("site.toml", "\"293.15 K\"", "\"20 F\"");
+  try {
+    load_site_file(site.site_file());
+    ADD_FAILURE() << "a temperature in F was accepted";
+  } catch (const InputError& e) {
+    EXPECT_NE(std::string(e.what()).find("dry_limit_air_temperature"), std::string::npos) << e.what();
+  }
 }
 
 TEST(SiteLoader, DemoCropAndPan) {
