@@ -15,7 +15,7 @@ inline solver::ColumnProblem year200_column(const std::string& flux_csv) {
   const soils::VanGenuchtenMualem sandy_loam{0.065, 0.41, 0.075, 1.89, 106.1, 0.5};
   const soils::VanGenuchtenMualem loam{0.078, 0.43, 0.036, 1.56, 24.96, 0.5};
   soils::LayeredProfile soil({{"sandy loam", 0, 60, sandy_loam}, {"loam", 60, 200, loam}});
-  solver::ColumnProblem problem{soil, solver::uniform_grid(200.0, 200)};
+  solver::ColumnProblem problem{.soil = soil, .grid = solver::uniform_grid(200.0, 200)};
 
   std::ifstream in(flux_csv);
   if (!in) throw std::runtime_error("cannot open " + flux_csv);

@@ -1,8 +1,7 @@
 # The site-file loader and the season commands (`wetfront run`, `check`, `show`).
 # wetfront_site turns a site file and its field records into the plain structs the libraries
-# take; it has no command-line code, so tests link it directly. It carries its own copy of the
-# unit parser and error type objects (quantity.cpp, input_error.cpp) so it links on its own;
-# in the program the executable's objects of the same sources are used.
+# take; it has no command-line code, so tests link it directly. It also holds the unit parser
+# and the input-error type (quantity.cpp, input_error.cpp) that the soil commands use.
 add_library(wetfront_site STATIC
   src/site_keys.cpp
   src/site_file.cpp

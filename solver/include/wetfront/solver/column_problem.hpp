@@ -96,8 +96,8 @@ struct ColumnProblem {
   TopBoundary top = PrescribedFlux{StepSeries::constant(0.0)};
   BottomBoundary bottom = FreeDrainage{};
   InitialCondition initial = UniformHead{-100.0};
-  std::shared_ptr<const CellSink> sink;       // optional
-  std::vector<double> flux_plane_depths_cm;   // each on a grid face; cumulative flux recorded
+  std::shared_ptr<const CellSink> sink{};     // optional
+  std::vector<double> flux_plane_depths_cm{}; // each on a grid face; cumulative flux recorded
   // Ss (1/cm): compressibility storage above saturation, fading below it (column_model.hpp).
   // It also bounds dh/dS near saturation, where the Mualem K of soils with n < 2 has an
   // infinite slope; 1e-5 makes ponded runs on loam 25 times slower than 1e-4.
@@ -105,8 +105,8 @@ struct ColumnProblem {
   FaceConductivity face_conductivity = FaceConductivity::arithmetic;
   double start_day = 0.0;
   double end_day = 1.0;
-  std::vector<double> output_days;            // increasing, within [start_day, end_day]
-  SolverSettings settings;
+  std::vector<double> output_days{};          // increasing, within [start_day, end_day]
+  SolverSettings settings{};
 };
 
 }  // namespace wetfront::solver
