@@ -1,0 +1,41 @@
+// Probe readings to water content: Topp et al. (1980) polynomial or a site calibration.
+#include "wetfront/observations/water_content.hpp"
+
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+namespace wetfront::observations {
+
+double topp_water_content(double apparent_permittivity) {
+  const double ka = apparent_permittivity;
+  if (!(ka >= 1.0))
+    throw std::domain_error(fmt::format(
+        "apparent permittivity {} is below 1 (vacuum); check the probe output", ka));
+  // Topp, Davis & Annan (1980): theta = -5.3e-2 + 2.92e-2 Ka - 5.5e-4 Ka^2 + 4.3e-6 Ka^3
+  return -5.3e-2 + ka * (2.92e-2 + ka * (-5.5e-4 + ka * 4.3e-6));
+}
+
+double calibrated_water_content(const PolynomialCalibration& calibration, double reading) {
+  if (calibration.coefficients.empty())
+    throw std::invalid_argument("a probe calibration needs at least one coefficient");
+  double theta = 0;  // Horner's scheme from the highest power down
+  for (auto c = calibration.coefficients.rbegin(); c != calibration.coefficients.rend(); ++c)
+    theta = theta * reading + *c;
+  return theta;
+}
+
+namespace {
+struct Convert {
+  double reading;
+  double operator()(const ReadsVolumeFraction&) const { return reading; }
+  double operator()(const ToppPermittivity&) const { return topp_water_content(reading); }
+  double operator()(const PolynomialCalibration& c) const { return calibrated_water_content(c, reading); }
+};
+}  // namespace
+
+double water_content_from_probe(const ProbeConversion& conversion, double reading) {
+  return std::visit(Convert{reading}, conversion);
+}
+
+}  // namespace wetfront::observations
