@@ -6,12 +6,20 @@ add_library(wetfront_site STATIC
   src/site_keys.cpp
   src/site_file.cpp
   src/season_setup.cpp
+  src/sensor_readings.cpp
+  src/sensor_check.cpp
+  src/csv_table.cpp
   src/quantity.cpp
   src/input_error.cpp)
 target_include_directories(wetfront_site PUBLIC src)
 target_link_libraries(wetfront_site
-  PUBLIC wetfront_soils wetfront_forcing wetfront_solver wetfront_profiles tomlplusplus::tomlplusplus fmt::fmt
+  PUBLIC wetfront_soils wetfront_forcing wetfront_solver wetfront_profiles wetfront_observations tomlplusplus::tomlplusplus fmt::fmt
   PRIVATE wetfront_warnings)
 
 target_sources(wetfront PRIVATE src/season_commands.cpp src/season_report.cpp)
 target_link_libraries(wetfront PRIVATE wetfront_site wetfront_forcing wetfront_solver wetfront_profiles Threads::Threads)
+# The CSV reader is now part of wetfront_site (the sensor readings need it); take it out of
+# the program's own source list (cli/CMakeLists.txt) so it is compiled once.
+get_target_property(wetfront_program_sources wetfront SOURCES)
+list(REMOVE_ITEM wetfront_program_sources src/csv_table.cpp)
+set_property(TARGET wetfront PROPERTY SOURCES ${wetfront_program_sources})

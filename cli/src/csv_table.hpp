@@ -33,6 +33,7 @@ class CsvTable {
 
   const std::string& path() const { return path_; }
   std::size_t row_count() const { return rows_.size(); }
+  std::size_t header_line() const { return header_line_; }
   std::size_t line_of(std::size_t row) const { return rows_[row].line; }
 
   // Column lookup by name, case-insensitive, ignoring the unit.

@@ -12,6 +12,7 @@
 #include "report_table.hpp"
 #include "season_report.hpp"
 #include "season_setup.hpp"
+#include "sensor_check.hpp"
 #include "site_file.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/soils/texture_classes.hpp"
@@ -164,14 +165,15 @@ void add_run_command(CLI::App& app) {
     const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
     const bool complete = run.complete;
     const profiles::RunRecord record = make_record(season, std::move(run), WETFRONT_VERSION);
+    const SensorCheck sensors = check_sensors(season, season.sensor_readings, record);
     try {
       profiles::write_run(out, record);
     } catch (const profiles::RunFileError& error) {
       throw InputError(error.what());
     }
-    write_csv(visit_balance_table(record), visits_csv_path(out).string());
+    write_csv(visit_balance_table(record, &sensors), visits_csv_path(out).string());
     if (!options->quiet) {
-      fmt::print("{}", season_report(record, season_notes(season)));
+      fmt::print("{}", season_report(record, season_notes(season), &sensors));
       fmt::print("\nRun time {:.2f} s. Wrote {} and {}\n", seconds, out.string(), visits_csv_path(out).string());
     }
     if (!complete) {

@@ -1,5 +1,6 @@
 #include "season_report.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include <fmt/format.h>
@@ -48,22 +49,97 @@ ReportTable season_table(const profiles::RunRecord& record, const profiles::Inte
 
 }  // namespace
 
-ReportTable visit_balance_table(const profiles::RunRecord& record) {
+ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorCheck* sensors) {
+  const DarcyCheck* darcy = sensors && sensors->darcy ? &*sensors->darcy : nullptr;
   ReportTable table;
   table.title = "Water balance per visit interval [mm] (fluxes positive downward; evaporation, transpiration, runoff positive leaving)";
   table.headers = {"from",           "to",           "rain + irrigation [mm]", "runoff [mm]",
                    "evaporation [mm]", "transpiration [mm]", "storage change [mm]",
                    fmt::format("{} [mm]", plane_label(record)), "bottom flux [mm]", "balance error [mm]"};
-  for (const auto& b : record.visit_balance) {
-    table.add_row({date_after(record.run_start_date, b.start_day), date_after(record.run_start_date, b.end_day),
+  if (darcy) {
+    table.headers.push_back(fmt::format("Darcy {}-{} [mm]", darcy->upper_name, darcy->lower_name));
+    table.headers.push_back("model and Darcy");
+  }
+  for (std::size_t i = 0; i < record.visit_balance.size(); ++i) {
+    const auto& b = record.visit_balance[i];
+    std::vector<std::string> row({date_after(record.run_start_date, b.start_day), date_after(record.run_start_date, b.end_day),
                    mm(b.water_input_cm), mm(b.runoff_cm), mm(b.actual_evaporation_cm), mm(b.transpiration_cm),
                    mm(b.storage_change_cm + b.ponded_change_cm), mm(recharge_cm(b)), mm(b.bottom_flux_cm),
                    fmt::format("{:.4f}", b.balance_error_change_cm * mm_per_cm)});
+    if (darcy) {
+      const DarcyInterval* d = i < darcy->intervals.size() ? &darcy->intervals[i] : nullptr;
+      row.push_back(d && d->darcy_cm ? mm(*d->darcy_cm) : "");
+      row.push_back(!d || !d->darcy_cm ? "no estimate" : d->disagree ? "differ" : "agree");
+    }
+    table.add_row(std::move(row));
   }
   return table;
 }
 
-std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes) {
+std::string sensor_section(const SensorCheck& sensors) {
+  std::string out = "Sensors against the model\n";
+  if (sensors.sensors.empty()) return out + "  no sensor readings inside the run\n\n";
+  out += "  Simulated values at each reading's time and depth (reading times are solver output times; linear in depth\n"
+         "  between cell centres). Bias = mean(model - reading): positive means the model is wetter (higher head) or\n"
+         "  holds more water. Heads in cm of water at the cup; water content in cm3/cm3.\n";
+  ReportTable table;
+  table.headers = {"sensor", "depth [cm]", "quantity [unit]", "used", "left out", "bias", "RMSE", "NSE", "KGE"};
+  auto value = [](double v, int digits) { return std::isnan(v) ? std::string("n/a") : fmt::format("{:.{}f}", v, digits); };
+  auto add = [&](const SensorFitRow& r) {
+    const int digits = r.unit == "cm" ? 1 : 3;
+    table.add_row({r.name, std::isnan(r.depth_cm) ? std::string("") : number(r.depth_cm),
+                   fmt::format("{} [{}]", r.quantity, r.unit), fmt::format("{}", r.metrics.count),
+                   fmt::format("{}", r.beyond_working_limit + r.outside_run), value(r.metrics.bias, digits),
+                   value(r.metrics.root_mean_square_error, digits), value(r.metrics.nash_sutcliffe, 2),
+                   value(r.metrics.kling_gupta, 2)});
+  };
+  for (const auto& r : sensors.sensors) add(r);
+  for (const auto& r : sensors.pooled) add(r);
+  out += format_table(table);
+  int limit = 0, outside = 0;
+  for (const auto& r : sensors.pooled) {
+    if (r.unit == "cm") limit += r.beyond_working_limit;
+    outside += r.outside_run;
+  }
+  out += fmt::format("  Left out: {} tensiometer reading(s) beyond the working limit (the water column cavitates at high tension,\n"
+                     "  so the reading no longer gives the soil's head); {} reading(s) outside the time the run covers.\n",
+                     limit, outside);
+  out += "  Pooled rows combine all sensors of one kind; heads and water contents are never pooled together.\n"
+         "  NSE and KGE are n/a where the readings have no spread.\n";
+  if (sensors.darcy) {
+    const auto& d = *sensors.darcy;
+    out += fmt::format("\n  Recharge from tensiometers {} ({} cm) and {} ({} cm) by Darcy's law, per visit interval, beside the\n"
+                       "  model's drainage; {}. Readings within {} d of a visit count as read at it. Estimates\n"
+                       "  differ when their signs differ or one exceeds the other by more than a factor of {}\n"
+                       "  (both below {} mm agree). See the visit table for every interval.\n",
+                       d.upper_name, number(d.upper_depth_cm), d.lower_name, number(d.lower_depth_cm), d.soil_note,
+                       kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * mm_per_cm);
+    double model = 0, darcy = 0;
+    int estimated = 0, differ = 0;
+    std::vector<std::string> reasons;
+    for (const auto& i : d.intervals) {
+      if (!i.darcy_cm) continue;
+      ++estimated;
+      model += i.model_cm;
+      darcy += *i.darcy_cm;
+      if (i.disagree) {
+        ++differ;
+        for (const auto& reason : i.reasons) {
+          if (std::find(reasons.begin(), reasons.end(), reason) == reasons.end()) reasons.push_back(reason);
+        }
+      }
+    }
+    out += fmt::format("  Intervals with an estimate: {} of {}; over them the model drained {} mm, Darcy gives {} mm;\n"
+                       "  they differ in {} interval(s).\n", estimated, d.intervals.size(), mm(model), mm(darcy), differ);
+    if (!reasons.empty()) {
+      out += "  Where they differ, consider:\n";
+      for (const auto& reason : reasons) out += fmt::format("    - {}\n", reason);
+    }
+  }
+  return out + "\n";
+}
+
+std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes, const SensorCheck* sensors) {
   const auto& run = record.run;
   std::string out;
   out += fmt::format("Site: {}\n", record.site_name);
@@ -91,8 +167,9 @@ std::string season_report(const profiles::RunRecord& record, const std::vector<s
                          std::abs(total.balance_error_change_cm) / throughflow);
     }
     out += "\n";
-    out += format_table(visit_balance_table(record));
+    out += format_table(visit_balance_table(record, sensors));
     out += "\n";
+    if (sensors) out += sensor_section(*sensors);
   } else {
     out += "No water balance: the run did not reach its first output time.\n\n";
   }

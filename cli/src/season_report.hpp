@@ -7,15 +7,22 @@
 #include <vector>
 
 #include "report_table.hpp"
+#include "sensor_check.hpp"
 #include "wetfront/profiles/run_record.hpp"
 
 namespace wetfront::cli {
 
 // Per visit interval: dates, every balance term in mm, one row per interval. Also the CSV.
-ReportTable visit_balance_table(const profiles::RunRecord& record);
+// With a sensor check holding a Darcy estimate: also that estimate and its agreement.
+ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorCheck* sensors = nullptr);
+
+// "Sensors against the model": metrics per sensor and pooled, readings left out and why, and
+// the Darcy estimates beside the model's drainage.
+std::string sensor_section(const SensorCheck& sensors);
 
 // The whole report as text (tables, statements of units and signs, statistics, cautions).
 // notes: extra lines about the inputs (gaps filled, shortened run, processes not simulated).
-std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes);
+std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes,
+                          const SensorCheck* sensors = nullptr);
 
 }  // namespace wetfront::cli

@@ -104,12 +104,19 @@ forcing::CoveredSeries pan_rate(const SiteSetup& site, std::vector<std::string>&
 
 solver::StepSeries to_solver(const forcing::StepSeries& series) { return {series.start_days, series.values}; }
 
-std::vector<double> output_days(const SiteSetup& site, double end_day) {
+// The regular output times, the visits and every sensor reading time inside the run, so that
+// readings are compared with the integrator's dense output rather than a time interpolation.
+std::vector<double> output_days(const SiteSetup& site, double end_day, const std::vector<SensorRecord>& sensors) {
   std::vector<double> days;
   for (double t = 0; t < end_day - 1e-9; t += site.output_interval_days) days.push_back(t);
   days.push_back(end_day);
   for (const double visit : site.visit_days) {
     if (visit <= end_day + 1e-9) days.push_back(std::min(visit, end_day));
+  }
+  for (const auto& sensor : sensors) {
+    for (const auto& o : sensor.series.observations) {
+      if (o.day >= 0 && o.day <= end_day) days.push_back(o.day);
+    }
   }
   std::sort(days.begin(), days.end());
   days.erase(std::unique(days.begin(), days.end(), [](double a, double b) { return std::abs(a - b) < 1e-6; }), days.end());
@@ -148,6 +155,7 @@ Season prepare_season(SiteSetup site_setup) {
   inputs.pan_evaporation = pan_rate(site, season.notes, season.totals.pan_evaporation_cm);
   digest.add_file(site.pan.readings ? site.pan.readings->path : site.pan.daily_evaporation->path);
   for (const auto& sensor : site.sensors) digest.add_file(sensor.readings);
+  std::vector<SensorRecord> sensor_readings = read_sensor_readings(site);
 
   try {
     season.pan_coefficient = forcing::pan_coefficient(site.pan.coefficient);
@@ -198,7 +206,7 @@ Season prepare_season(SiteSetup site_setup) {
       .face_conductivity = site.face_conductivity,
       .start_day = 0,
       .end_day = end_day,
-      .output_days = output_days(site, end_day),
+      .output_days = output_days(site, end_day, sensor_readings),
       .settings = site.settings};
   return Season{.site = std::move(season.site),
                 .pan_coefficient = season.pan_coefficient,
@@ -207,7 +215,8 @@ Season prepare_season(SiteSetup site_setup) {
                 .totals = season.totals,
                 .roots_simulated = true,
                 .notes = std::move(season.notes),
-                .input_hash = digest.hex()};
+                .input_hash = digest.hex(),
+                .sensor_readings = std::move(sensor_readings)};
 }
 
 profiles::RunRecord make_record(const Season& season, solver::ColumnRun run, const std::string& program_version) {

@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "sensor_readings.hpp"
 #include "site_file.hpp"
 #include "wetfront/forcing/surface_demand.hpp"
 #include "wetfront/profiles/run_record.hpp"
@@ -31,6 +32,7 @@ struct Season {
   bool roots_simulated = false;       // root water uptake taken from the soil
   std::vector<std::string> notes;     // gaps filled, run shortened, ...
   std::string input_hash;             // hex digest of the site file and every file it names
+  std::vector<SensorRecord> sensor_readings;  // converted; their times are among the output times
 };
 
 // Reads the field records named by the site and builds the problem. Throws InputError naming

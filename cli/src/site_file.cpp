@@ -473,7 +473,7 @@ void read_pan(const SiteTable& root, const std::filesystem::path& folder, SiteSe
 // --- [[sensor]] --------------------------------------------------------------------------
 
 void read_sensors(const SiteTable& root, const std::filesystem::path& folder, double column_depth_cm, SiteSetup& site) {
-  static constexpr std::array<std::string_view, 5> keys = {"name", "kind", "depth", "readings", "note"};
+  static constexpr std::array<std::string_view, 7> keys = {"name", "kind", "depth", "readings", "gauge_height", "working_limit", "note"};
   static constexpr std::array<std::string_view, 2> kinds = {"tensiometer", "water content probe"};
   for (const auto& table : root.table_array("sensors")) {
     table.only_keys(keys);
@@ -486,11 +486,53 @@ void read_sensors(const SiteTable& root, const std::filesystem::path& folder, do
                                       sensor.depth_cm, column_depth_cm));
     }
     sensor.readings = existing_file(table, "readings", folder);
+    const bool tensiometer = sensor.kind == "tensiometer";
+    for (const std::string_view key : {std::string_view("gauge_height"), std::string_view("working_limit")}) {
+      if (!tensiometer && table.has(key)) table.fail(key, "only a tensiometer takes this key");
+    }
+    if (tensiometer) {
+      sensor.gauge_height_cm = table.optional_quantity("gauge_height", Dimension::length);
+      if (sensor.gauge_height_cm && *sensor.gauge_height_cm < 0) table.fail("gauge_height", "the gauge height above ground cannot be negative");
+      if (const auto limit = table.optional_quantity("working_limit", Dimension::pressure_head)) {
+        if (!(*limit > 0)) table.fail("working_limit", "the working limit is a tension, greater than zero (e.g. \"80 kPa\")");
+        sensor.working_limit_kpa = *limit / 10.1972;  // cm of water to kPa, as in quantity.cpp
+      }
+    }
     for (const auto& other : site.sensors) {
       if (other.name == sensor.name) table.fail("name", fmt::format("sensor name '{}' is used twice", sensor.name));
     }
     site.sensors.push_back(std::move(sensor));
   }
+}
+
+// The tensiometer pair of the Darcy estimate: named in [recharge] tensiometer_pair, upper
+// first, or by default the two deepest tensiometers.
+void read_darcy_pair(const SiteTable& recharge, SiteSetup& site) {
+  std::vector<const SensorSetup*> tensiometers;
+  for (const auto& sensor : site.sensors) {
+    if (sensor.kind == "tensiometer") tensiometers.push_back(&sensor);
+  }
+  if (!recharge.has("tensiometer_pair")) {
+    if (tensiometers.size() < 2) return;
+    std::sort(tensiometers.begin(), tensiometers.end(), [](const auto* a, const auto* b) { return a->depth_cm < b->depth_cm; });
+    site.darcy_pair = {tensiometers[tensiometers.size() - 2]->name, tensiometers.back()->name};
+    return;
+  }
+  const auto names = recharge.text_list("tensiometer_pair");
+  if (names.size() != 2) recharge.fail("tensiometer_pair", "give two tensiometer names, the upper first, e.g. [\"T90\", \"T120\"]");
+  double depths[2] = {0, 0};
+  for (int i = 0; i < 2; ++i) {
+    const auto found = std::find_if(tensiometers.begin(), tensiometers.end(), [&](const auto* t) { return t->name == names[i]; });
+    if (found == tensiometers.end()) {
+      std::string known;
+      for (const auto* t : tensiometers) known += (known.empty() ? "" : ", ") + t->name;
+      recharge.fail("tensiometer_pair", fmt::format("'{}' is not a tensiometer of [[sensors]]; tensiometers: {}", names[i],
+                                                    known.empty() ? std::string("none") : known));
+    }
+    depths[i] = (*found)->depth_cm;
+  }
+  if (!(depths[0] < depths[1])) recharge.fail("tensiometer_pair", "the first tensiometer must be shallower than the second");
+  site.darcy_pair = names;
 }
 
 // --- [solver], [grid], [surface] ---------------------------------------------------------
@@ -676,8 +718,9 @@ SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOve
   {
     const auto recharge = root.subtable("recharge");
     if (!recharge) root.fail("recharge", "missing table [recharge] with 'plane_depth' (where recharge is counted)");
-    static constexpr std::array<std::string_view, 1> keys = {"plane_depth"};
+    static constexpr std::array<std::string_view, 2> keys = {"plane_depth", "tensiometer_pair"};
     recharge->only_keys(keys);
+    read_darcy_pair(*recharge, site);
     site.recharge_plane_depth_cm = recharge->quantity("plane_depth", Dimension::length);
     if (!(site.recharge_plane_depth_cm > 0 && site.recharge_plane_depth_cm <= column_depth + 1e-9)) {
       recharge->fail("plane_depth", fmt::format("{} cm is not inside the column (0 to {} cm)", site.recharge_plane_depth_cm,

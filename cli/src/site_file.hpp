@@ -54,6 +54,10 @@ struct SensorSetup {
   std::string kind;                // "tensiometer" or "water content probe"
   double depth_cm = 0;
   std::filesystem::path readings;  // resolved against the site file's folder
+  // Tensiometers only: height of the gauge above ground when read at a gauge (the water
+  // column down to the cup adds to the head there); empty when read at the cup.
+  std::optional<double> gauge_height_cm;
+  double working_limit_kpa = 80.0;  // tensions beyond this are kept but not compared
 };
 
 // A run period other than the site file's, from the command line (ISO dates).
@@ -92,6 +96,9 @@ struct SiteSetup {
 
   std::vector<SensorSetup> sensors;
   double recharge_plane_depth_cm = 0;
+  // Names of the upper and lower tensiometer of the Darcy estimate ([recharge]
+  // tensiometer_pair; default the two deepest tensiometers). Empty with fewer than two.
+  std::vector<std::string> darcy_pair;
 
   solver::SolverSettings settings;
   double specific_storage_per_cm = 1e-5;  // Ss: keeps saturated cells well posed

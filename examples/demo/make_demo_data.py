@@ -105,7 +105,7 @@ for depth, base in [(30, 12.0), (60, 15.0), (90, 18.0), (120, 20.0)]:
             f.write(f"{v.isoformat()}T09:00,{max(value, 2.0):.1f}\n")
 with open(HERE / "probe-20cm.csv", "w") as f:
     f.write(INVENTED + "# Water-content probe at 20 cm, read at each visit.\n")
-    f.write("time,water_content_pct\n")
+    f.write("time,water content [%]\n")
     for v in visits:
         i = (v - START).days
         f.write(f"{v.isoformat()}T09:00,{30.0 - 12.0 * season_shape(i) + rng.uniform(-2, 2):.1f}\n")

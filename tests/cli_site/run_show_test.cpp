@@ -60,11 +60,14 @@ TEST(RunAndShow, DemoRunWritesAFileThatShowReadsBack) {
 
   const auto show = run_program(fmt::format("show '{}'", out.string()), site.folder());
   ASSERT_EQ(show.exit_code, 0) << show.err;
-  // The season table printed again from the file is the one printed after the run.
+  // The season table printed again from the file is the one printed after the run. (The
+  // run's visit table also has the Darcy columns from the sensor readings, which the run file
+  // does not hold, so the comparison stops before the visit table.)
   const auto season_table = [](const std::string& text) {
     const auto from = text.find("Season water balance");
-    return text.substr(from, text.find("Solver:", from) - from);
+    return text.substr(from, text.find("Water balance per visit interval", from) - from);
   };
+  EXPECT_NE(show.out.find("Water balance per visit interval"), std::string::npos);
   EXPECT_EQ(season_table(show.out), season_table(run.out));
 }
 

@@ -1,0 +1,60 @@
+// The sensors against the model after a run: fit metrics per sensor and pooled per quantity,
+// and per visit interval the Darcy estimate from a tensiometer pair beside the model's
+// drainage at the recharge plane.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "season_setup.hpp"
+#include "sensor_readings.hpp"
+#include "wetfront/observations/fit_metrics.hpp"
+#include "wetfront/profiles/run_record.hpp"
+
+namespace wetfront::cli {
+
+struct SensorFitRow {
+  std::string name;        // sensor name, or "all tensiometers" / "all probes" when pooled
+  std::string kind;
+  double depth_cm = 0;     // NaN for a pooled row
+  std::string quantity;    // "pressure head" or "water content"
+  std::string unit;        // "cm" or "cm3/cm3"
+  observations::FitMetrics metrics;
+  int beyond_working_limit = 0;  // left out: tensiometer beyond its working limit
+  int outside_run = 0;           // left out: before the start or after the end reached
+};
+
+struct DarcyInterval {
+  double start_day = 0;
+  double end_day = 0;
+  double model_cm = 0;                 // drainage at the recharge plane over the interval
+  std::optional<double> darcy_cm;      // empty when a visit has no usable reading of the pair
+  std::string missing;                 // why there is no estimate
+  bool disagree = false;
+  double ratio = 0;
+  std::vector<std::string> reasons;
+};
+
+struct DarcyCheck {
+  std::string upper_name, lower_name;
+  double upper_depth_cm = 0, lower_depth_cm = 0;
+  std::string soil_note;               // which layer's hydraulic model gives K
+  std::vector<DarcyInterval> intervals;
+};
+
+struct SensorCheck {
+  std::vector<SensorFitRow> sensors;   // one per sensor, in site-file order
+  std::vector<SensorFitRow> pooled;    // per quantity present
+  std::optional<DarcyCheck> darcy;
+};
+
+// Readings nearer than this to an interval's end visit are taken as read at the visit.
+inline constexpr double kVisitReadingWindowDays = 1.0;
+// The factor and the amount below which two recharge estimates count as agreeing.
+inline constexpr double kAgreementFactor = 2.0;
+inline constexpr double kNegligibleRechargeCm = 0.01;  // 0.1 mm
+
+SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings, const profiles::RunRecord& record);
+
+}  // namespace wetfront::cli

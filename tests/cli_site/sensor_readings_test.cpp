@@ -1,0 +1,197 @@
+// Sensor readings against the model in `wetfront run`: reading the files, the metrics per
+// sensor and pooled, the Darcy estimate in the visit table, and bad files named by line.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <fstream>
+#include <sstream>
+
+#include <fmt/format.h>
+
+#include "season_setup.hpp"
+#include "sensor_check.hpp"
+#include "sensor_readings.hpp"
+#include "site_file.hpp"
+#include "site_test_helpers.hpp"
+#include "wetfront/solver/column_run.hpp"
+
+namespace wetfront::cli {
+namespace {
+
+using testing::run_program;
+using testing::ScratchSite;
+
+std::string first_line(const std::filesystem::path& csv) {
+  std::ifstream in(csv);
+  std::string line;
+  std::getline(in, line);
+  return line;
+}
+
+// The report line of one sensor, starting with its name.
+std::string report_row(const std::string& report, const std::string& name) {
+  std::istringstream in(report.substr(report.find("Sensors against the model")));
+  for (std::string line; std::getline(in, line);) {
+    if (line.rfind("  " + name + " ", 0) == 0) return line;
+  }
+  return {};
+}
+
+TEST(SensorsAgainstModel, DemoRunReportsEverySensorAndTheDarcyColumn) {
+  ScratchSite site("sensors-demo");
+  const auto out = site.folder() / "season.h5";
+  const auto run = run_program(fmt::format("run '{}' --out '{}'", site.site_file().string(), out.string()), site.folder());
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  ASSERT_NE(run.out.find("Sensors against the model"), std::string::npos);
+  // 28 readings per sensor, all at visits inside the run (invented demo data).
+  for (const std::string name : {"T30", "T60", "T90", "T120", "P20"}) {
+    const std::string row = report_row(run.out, name);
+    ASSERT_FALSE(row.empty()) << name;
+    EXPECT_NE(row.find(" 28 "), std::string::npos) << row;
+  }
+  EXPECT_NE(report_row(run.out, "all tensiometers").find(" 112 "), std::string::npos);
+  EXPECT_NE(report_row(run.out, "all probes").find(" 28 "), std::string::npos);
+  EXPECT_NE(run.out.find("beyond the working limit"), std::string::npos);
+  EXPECT_NE(run.out.find("by Darcy's law"), std::string::npos);
+  const std::string header = first_line(site.folder() / "season-visits.csv");
+  EXPECT_NE(header.find("Darcy T90-T120 [mm]"), std::string::npos) << header;
+  EXPECT_NE(header.find("model and Darcy"), std::string::npos) << header;
+}
+
+TEST(SensorsAgainstModel, ReadingsAtTheWorkingLimitAreLeftOutAndCounted) {
+  ScratchSite site("sensors-limit");
+  // Two T30 readings made drier than the default 80 kPa working limit.
+  site.replace("tensiometer-30cm.csv", "2025-04-08T09:00,16.9", "2025-04-08T09:00,85.0");
+  site.replace("tensiometer-30cm.csv", "2025-04-15T09:00,19.2", "2025-04-15T09:00,92.5");
+  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-05-20"}));
+  ASSERT_EQ(season.sensor_readings.front().name, "T30");
+  EXPECT_EQ(season.sensor_readings.front().beyond_working_limit, 2);
+  const auto run = run_program(fmt::format("run '{}' --out '{}' --to 2025-05-20", site.site_file().string(),
+                                           (site.folder() / "s.h5").string()), site.folder());
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  EXPECT_NE(run.out.find("Left out: 2 tensiometer reading(s) beyond the working limit"), std::string::npos) << run.out;
+}
+
+// Heads at the sensor depth from a profile, linear between the cell centres around it.
+double at_depth(const std::vector<double>& centres, const std::vector<double>& values, double depth) {
+  for (std::size_t i = 0; i + 1 < centres.size(); ++i) {
+    if (centres[i] <= depth && depth <= centres[i + 1]) {
+      const double w = (depth - centres[i]) / (centres[i + 1] - centres[i]);
+      return values[i] + w * (values[i + 1] - values[i]);
+    }
+  }
+  ADD_FAILURE() << "depth outside the cell centres";
+  return 0;
+}
+
+// Readings made from the model's own output must give bias ~0 and NSE ~1: the comparison
+// takes the state at the reading times themselves (they are output times) and converts the
+// tension (with a gauge height for one tensiometer) and the water content back correctly.
+TEST(SensorsAgainstModel, ReadingsMadeFromTheModelFitItExactly) {
+  ScratchSite site("sensors-synthetic");
+  site.replace("site.toml", "depth = \"60 cm\"\n", "depth = \"60 cm\"\ngauge_height = \"30 cm\"\n");
+  const PeriodOverride period{"", "2025-05-27"};
+  const Season first = prepare_season(load_site_file(site.site_file(), period));
+  const solver::ColumnRun run = solver::simulate(first.problem);
+  ASSERT_TRUE(run.complete);
+
+  for (const auto& sensor : first.sensor_readings) {
+    std::ifstream original(site.folder() / std::filesystem::path(sensor.file).filename());
+    std::string text, line;
+    std::size_t reading = 0;
+    while (std::getline(original, line)) {
+      if (line.rfind("time", 0) == 0) {
+        text += sensor.kind == "tensiometer" ? "time,tension [cm]\n" : "time,water content [cm3/cm3]\n";
+        continue;
+      }
+      if (line.empty() || line[0] == '#') {
+        text += line + "\n";
+        continue;
+      }
+      const auto& o = sensor.series.observations.at(reading++);
+      if (o.day > run.profiles.back().time_days) continue;  // after the shortened run
+      // The reading time is one of the output times.
+      const auto snapshot = std::find_if(run.profiles.begin(), run.profiles.end(),
+                                         [&](const auto& p) { return std::abs(p.time_days - o.day) < 1e-6; });
+      ASSERT_NE(snapshot, run.profiles.end()) << sensor.name << " day " << o.day;
+      const std::string time = line.substr(0, line.find(','));
+      if (sensor.kind == "tensiometer") {
+        const double head = at_depth(run.cell_depths_cm, snapshot->head_cm, sensor.depth_cm);
+        // h_cup = -tension + (gauge height + cup depth) at a gauge above ground.
+        const double gauge = sensor.name == "T60" ? 30.0 + 60.0 : 0.0;
+        text += fmt::format("{},{:.9g}\n", time, -head + gauge);
+      } else {
+        text += fmt::format("{},{:.9g}\n", time, at_depth(run.cell_depths_cm, snapshot->water_content, sensor.depth_cm));
+      }
+    }
+    site.write(std::filesystem::path(sensor.file).filename().string(), text);
+  }
+
+  const Season second = prepare_season(load_site_file(site.site_file(), period));
+  profiles::RunRecord record = make_record(second, solver::simulate(second.problem), "test");
+  const SensorCheck check = check_sensors(second, second.sensor_readings, record);
+  ASSERT_EQ(check.sensors.size(), 5u);
+  for (const auto& row : check.sensors) {
+    EXPECT_GE(row.metrics.count, 7) << row.name;
+    const double tolerance = row.unit == "cm" ? 1e-3 : 1e-6;  // our own: print precision and solver repeatability
+    EXPECT_NEAR(row.metrics.bias, 0.0, tolerance) << row.name;
+    EXPECT_NEAR(row.metrics.root_mean_square_error, 0.0, tolerance) << row.name;
+    EXPECT_GT(row.metrics.nash_sutcliffe, 0.9999) << row.name;
+    EXPECT_GT(row.metrics.kling_gupta, 0.999) << row.name;
+  }
+  ASSERT_EQ(check.pooled.size(), 2u);
+  EXPECT_GT(check.pooled[0].metrics.nash_sutcliffe, 0.9999);
+}
+
+TEST(SensorsAgainstModel, TensiometerPairKeyIsChecked) {
+  ScratchSite site("sensors-pair");
+  const std::size_t line = site.replace("site.toml", "plane_depth = \"150 cm\"\n",
+                                        "plane_depth = \"150 cm\"\ntensiometer_pair = [\"T120\", \"T60\"]\n") + 1;
+  const auto check = run_program(fmt::format("check '{}'", site.site_file().string()), site.folder());
+  EXPECT_EQ(check.exit_code, 1);
+  EXPECT_NE(check.err.find(fmt::format("site.toml:{}", line)), std::string::npos) << check.err;
+  EXPECT_NE(check.err.find("shallower"), std::string::npos) << check.err;
+
+  site.replace("site.toml", "[\"T120\", \"T60\"]", "[\"T60\", \"P20\"]");
+  const auto probe = run_program(fmt::format("check '{}'", site.site_file().string()), site.folder());
+  EXPECT_EQ(probe.exit_code, 1);
+  EXPECT_NE(probe.err.find("'P20' is not a tensiometer"), std::string::npos) << probe.err;
+
+  site.replace("site.toml", "[\"T60\", \"P20\"]", "[\"T30\", \"T60\"]");
+  const SiteSetup setup = load_site_file(site.site_file());
+  EXPECT_EQ(setup.darcy_pair, (std::vector<std::string>{"T30", "T60"}));
+}
+
+struct BadReadings {
+  std::string file;
+  std::string from;
+  std::string to;
+  std::string says;
+};
+
+class BadReadingsFile : public ::testing::TestWithParam<BadReadings> {};
+
+TEST_P(BadReadingsFile, NamesFileAndLineAndExitsWithOne) {
+  const BadReadings& bad = GetParam();
+  ScratchSite site("sensors-bad");
+  const std::size_t line = site.replace(bad.file, bad.from, bad.to);
+  const auto run = run_program(fmt::format("run '{}' --out '{}'", site.site_file().string(), (site.folder() / "s.h5").string()),
+                               site.folder());
+  EXPECT_EQ(run.exit_code, 1);
+  EXPECT_NE(run.err.find(fmt::format("{}:{}", bad.file, line)), std::string::npos) << run.err;
+  EXPECT_NE(run.err.find(bad.says), std::string::npos) << run.err;
+  EXPECT_FALSE(std::filesystem::exists(site.folder() / "s.h5"));
+}
+
+INSTANTIATE_TEST_SUITE_P(
+    Cases, BadReadingsFile,
+    ::testing::Values(BadReadings{"tensiometer-60cm.csv", "2025-04-15T09:00,", "2025-04-15 nine,", "ISO 8601"},
+                      BadReadings{"tensiometer-60cm.csv", "2025-04-15T09:00,18.2", "2025-04-15T09:00,dry", "expected a number"},
+                      BadReadings{"tensiometer-90cm.csv", "2025-04-15T09:00,", "2025-04-01T09:00,", "times must increase"},
+                      BadReadings{"tensiometer-90cm.csv", "time,tension_kPa", "time,tension", "unit"},
+                      BadReadings{"tensiometer-120cm.csv", "time,tension_kPa", "time,suction_kPa", "tension"},
+                      BadReadings{"probe-20cm.csv", "2025-04-15T09:00,30.4", "2025-04-15T09:00,130.4", "between 0 and 100 %"},
+                      BadReadings{"probe-20cm.csv", "2025-04-15T09:00,30.4", "2025-04-15T09:00,30.4,1", "fields"}));
+
+}  // namespace
+}  // namespace wetfront::cli
