@@ -4,6 +4,7 @@
 #include <cstdio>
 #include <future>
 #include <memory>
+#include <optional>
 #include <variant>
 
 #include <fmt/format.h>
@@ -164,8 +165,9 @@ void add_run_command(CLI::App& app) {
                                                    fmt::format("{} to {}", season.site.run_start_text, season.site.run_end_text));
     const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
     const bool complete = run.complete;
-    const profiles::RunRecord record = make_record(season, std::move(run), WETFRONT_VERSION);
+    profiles::RunRecord record = make_record(season, std::move(run), WETFRONT_VERSION);
     const SensorCheck sensors = check_sensors(season, season.sensor_readings, record);
+    if (!season.sensor_readings.empty()) record.sensor_comparison = comparison_record(sensors, season.sensor_readings, record.run);
     try {
       profiles::write_run(out, record);
     } catch (const profiles::RunFileError& error) {
@@ -225,7 +227,9 @@ void add_show_command(CLI::App& app) {
     } catch (const profiles::RunFileError& error) {
       throw InputError(error.what());
     }
-    fmt::print("{}", season_report(record, {}));
+    std::optional<SensorCheck> sensors;
+    if (record.sensor_comparison) sensors = check_from_record(*record.sensor_comparison);
+    fmt::print("{}", season_report(record, {}, sensors ? &*sensors : nullptr));
     if (!options->csv.empty()) write_csv(visit_balance_table(record), options->csv);
   });
 }

@@ -109,9 +109,9 @@ std::string sensor_section(const SensorCheck& sensors) {
   if (sensors.darcy) {
     const auto& d = *sensors.darcy;
     out += fmt::format("\n  Recharge from tensiometers {} ({} cm) and {} ({} cm) by Darcy's law, per visit interval, beside the\n"
-                       "  model's drainage; {}. Readings within {} d of a visit count as read at it. Estimates\n"
-                       "  differ when their signs differ or one exceeds the other by more than a factor of {}\n"
-                       "  (both below {} mm agree). See the visit table for every interval.\n",
+                       "  model's drainage;\n  {}.\n  Readings within {} d of a visit count as read at it. Estimates "
+                       "differ when their signs differ or one\n  exceeds the other by more than a factor of {} "
+                       "(both below {} mm agree). See the visit table for every interval.\n",
                        d.upper_name, number(d.upper_depth_cm), d.lower_name, number(d.lower_depth_cm), d.soil_note,
                        kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * mm_per_cm);
     double model = 0, darcy = 0;

@@ -130,4 +130,44 @@ SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>&
   return check;
 }
 
+profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
+                                                   const solver::ColumnRun& run) {
+  profiles::SensorComparisonRecord stored;
+  for (const bool heads : {true, false}) {
+    if (run.profiles.size() < 2) break;
+    const obs::SimulatedProfiles profiles = simulated(run, heads);
+    for (const auto& r : readings) {
+      if ((r.kind == "tensiometer") != heads) continue;
+      for (const auto& o : r.series.observations) {
+        const auto value = obs::simulated_value_at(profiles, o.day, o.depth_cm);
+        (heads ? stored.pressure_head : stored.water_content)
+            .push_back({r.name, o.day, o.depth_cm, o.value, value.value_or(std::numeric_limits<double>::quiet_NaN()),
+                        o.reliable && value.has_value()});
+      }
+    }
+  }
+  auto add = [&](const SensorFitRow& row) {
+    const auto& m = row.metrics;
+    stored.metrics.push_back({row.name, row.quantity, row.unit, row.depth_cm, m.count, row.beyond_working_limit, row.outside_run,
+                              m.bias, m.root_mean_square_error, m.nash_sutcliffe, m.kling_gupta});
+  };
+  for (const auto& row : check.sensors) add(row);
+  for (const auto& row : check.pooled) add(row);
+  return stored;
+}
+
+SensorCheck check_from_record(const profiles::SensorComparisonRecord& stored) {
+  SensorCheck check;
+  for (const auto& m : stored.metrics) {
+    SensorFitRow row{m.name, "", m.depth_cm, m.quantity, m.unit, {}, m.left_out_beyond_working_limit, m.left_out_outside_run};
+    row.metrics.count = m.readings_used;
+    row.metrics.bias = m.bias;
+    row.metrics.root_mean_square_error = m.root_mean_square_error;
+    row.metrics.nash_sutcliffe = m.nash_sutcliffe;
+    row.metrics.kling_gupta = m.kling_gupta;
+    (std::isnan(m.depth_cm) ? check.pooled : check.sensors).push_back(std::move(row));
+  }
+  return check;
+}
+
 }  // namespace wetfront::cli

@@ -57,4 +57,11 @@ inline constexpr double kNegligibleRechargeCm = 0.01;  // 0.1 mm
 
 SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings, const profiles::RunRecord& record);
 
+// The readings beside the simulated values, and the metrics, for the run file.
+profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
+                                                   const solver::ColumnRun& run);
+
+// The metrics back from a run file (no Darcy estimates: those are not stored).
+SensorCheck check_from_record(const profiles::SensorComparisonRecord& stored);
+
 }  // namespace wetfront::cli

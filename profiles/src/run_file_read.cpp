@@ -155,6 +155,55 @@ void read_sensors(hid_t file, std::vector<Sensor>& sensors) {
   for (std::size_t i = 0; i < depths.size(); ++i) sensors[i] = {names[i], depths[i]};
 }
 
+std::vector<std::int64_t> read_integer_vector(hid_t parent, std::string_view name, std::size_t length) {
+  std::vector<std::size_t> dims;
+  std::vector<std::int64_t> values = h5::read_integers(parent, name, 1, dims);
+  if (values.size() != length)
+    throw h5::Error(fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+  return values;
+}
+
+std::vector<ComparedReading> read_compared(hid_t parent, std::string_view name) {
+  std::vector<ComparedReading> readings;
+  if (!h5::has_link(parent, name)) return readings;
+  h5::Group group = h5::open_group(parent, name);
+  const std::vector<double> times = read_vector(group.id(), "time");
+  const std::size_t n = times.size();
+  const auto sensors = read_texts_of_length(group.id(), "sensor", n);
+  const auto depths = read_shaped(group.id(), "depth", {n});
+  const auto observed = read_shaped(group.id(), "observed", {n});
+  const auto simulated = read_shaped(group.id(), "simulated", {n});
+  const auto used = read_integer_vector(group.id(), "used", n);
+  for (std::size_t i = 0; i < n; ++i) readings.push_back({sensors[i], times[i], depths[i], observed[i], simulated[i], used[i] != 0});
+  return readings;
+}
+
+void read_sensor_comparison(hid_t file, RunRecord& record) {
+  if (!h5::has_link(file, "sensor_comparison")) return;
+  h5::Group group = h5::open_group(file, "sensor_comparison");
+  SensorComparisonRecord comparison;
+  comparison.pressure_head = read_compared(group.id(), "pressure_head");
+  comparison.water_content = read_compared(group.id(), "water_content");
+  h5::Group metrics = h5::open_group(group.id(), "metrics");
+  const std::vector<double> depth = read_vector(metrics.id(), "depth");
+  const std::size_t n = depth.size();
+  const auto names = read_texts_of_length(metrics.id(), "name", n);
+  const auto quantities = read_texts_of_length(metrics.id(), "quantity", n);
+  const auto units = read_texts_of_length(metrics.id(), "unit", n);
+  const auto used = read_integer_vector(metrics.id(), "readings_used", n);
+  const auto beyond = read_integer_vector(metrics.id(), "left_out_beyond_working_limit", n);
+  const auto outside = read_integer_vector(metrics.id(), "left_out_outside_run", n);
+  const auto bias = read_shaped(metrics.id(), "bias", {n});
+  const auto rmse = read_shaped(metrics.id(), "root_mean_square_error", {n});
+  const auto nse = read_shaped(metrics.id(), "nash_sutcliffe", {n});
+  const auto kge = read_shaped(metrics.id(), "kling_gupta", {n});
+  for (std::size_t i = 0; i < n; ++i) {
+    comparison.metrics.push_back({names[i], quantities[i], units[i], depth[i], static_cast<int>(used[i]), static_cast<int>(beyond[i]),
+                                  static_cast<int>(outside[i]), bias[i], rmse[i], nse[i], kge[i]});
+  }
+  record.sensor_comparison = std::move(comparison);
+}
+
 void read_statistics(hid_t file, solver::RunStatistics& statistics) {
   h5::Group group = h5::open_group(file, "run_statistics");
   const auto count = [&](std::string_view name) -> long {
@@ -209,6 +258,7 @@ RunRecord read_run(const std::filesystem::path& path) {
       read_forcing(inputs.id(), record.forcing);
     }
     read_sensors(file.id(), record.sensors);
+    read_sensor_comparison(file.id(), record);
     read_statistics(file.id(), record.run.statistics);
     return record;
   } catch (const std::exception& error) {

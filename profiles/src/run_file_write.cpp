@@ -223,6 +223,63 @@ void write_sensors(hid_t file, const std::vector<Sensor>& sensors) {
   h5::attach_dimension_scale(h5::write_texts(group.id(), "name", names, {"none", "sensor name"}), depth, 0);
 }
 
+void write_compared(hid_t parent, std::string_view name, const std::vector<ComparedReading>& readings, std::string_view unit,
+                    std::string_view quantity, const std::string& time_units) {
+  if (readings.empty()) return;
+  h5::Group group = h5::create_group(parent, name);
+  std::vector<std::string> sensors;
+  std::vector<std::int64_t> used;
+  for (const auto& r : readings) {
+    sensors.push_back(r.sensor);
+    used.push_back(r.used ? 1 : 0);
+  }
+  h5::write_texts(group.id(), "sensor", sensors, {"none", "name of the sensor that took the reading"});
+  h5::write_vector(group.id(), "time", column(readings, &ComparedReading::time_days), {time_units, "time of the reading"});
+  set_positive_down(h5::write_vector(group.id(), "depth", column(readings, &ComparedReading::depth_cm),
+                                     {"cm", "depth of the sensor below the soil surface"}));
+  h5::write_vector(group.id(), "observed", column(readings, &ComparedReading::observed),
+                   {unit, fmt::format("{} from the reading", quantity)});
+  h5::write_vector(group.id(), "simulated", column(readings, &ComparedReading::simulated),
+                   {unit, fmt::format("simulated {} at the reading's time and depth (NaN outside the run)", quantity)});
+  h5::write_integers(group.id(), "used", used,
+                     {"1", "1 when the reading is in the fit metrics, 0 when left out (beyond the working limit or outside the run)"});
+}
+
+void write_sensor_comparison(hid_t file, const SensorComparisonRecord& comparison, const std::string& time_units) {
+  h5::Group group = h5::create_group(file, "sensor_comparison");
+  write_compared(group.id(), "pressure_head", comparison.pressure_head, "cm", "pressure head at the cup", time_units);
+  write_compared(group.id(), "water_content", comparison.water_content, "cm3/cm3", "water content", time_units);
+  h5::Group metrics = h5::create_group(group.id(), "metrics");
+  const auto& rows = comparison.metrics;
+  std::vector<std::string> names, quantities, units;
+  std::vector<std::int64_t> used, beyond, outside;
+  for (const auto& r : rows) {
+    names.push_back(r.name);
+    quantities.push_back(r.quantity);
+    units.push_back(r.unit);
+    used.push_back(r.readings_used);
+    beyond.push_back(r.left_out_beyond_working_limit);
+    outside.push_back(r.left_out_outside_run);
+  }
+  h5::write_texts(metrics.id(), "name", names, {"none", "sensor name, or all sensors of one kind pooled"});
+  h5::write_texts(metrics.id(), "quantity", quantities, {"none", "quantity compared"});
+  h5::write_texts(metrics.id(), "unit", units, {"none", "unit of the quantity, of bias and of root_mean_square_error"});
+  set_positive_down(h5::write_vector(metrics.id(), "depth", column(rows, &SensorMetrics::depth_cm),
+                                     {"cm", "depth of the sensor below the soil surface (NaN for pooled rows)"}));
+  h5::write_integers(metrics.id(), "readings_used", used, {"1", "readings paired with simulated values"});
+  h5::write_integers(metrics.id(), "left_out_beyond_working_limit", beyond,
+                     {"1", "tensiometer readings beyond the working limit, left out"});
+  h5::write_integers(metrics.id(), "left_out_outside_run", outside, {"1", "readings outside the time the run covers, left out"});
+  h5::write_vector(metrics.id(), "bias", column(rows, &SensorMetrics::bias),
+                   {"see unit", "mean of simulated minus observed, in the unit given by unit"});
+  h5::write_vector(metrics.id(), "root_mean_square_error", column(rows, &SensorMetrics::root_mean_square_error),
+                   {"see unit", "root mean square of simulated minus observed, in the unit given by unit"});
+  h5::write_vector(metrics.id(), "nash_sutcliffe", column(rows, &SensorMetrics::nash_sutcliffe),
+                   {"1", "Nash-Sutcliffe efficiency (NaN when undefined)"});
+  h5::write_vector(metrics.id(), "kling_gupta", column(rows, &SensorMetrics::kling_gupta),
+                   {"1", "Kling-Gupta efficiency (NaN when undefined)"});
+}
+
 void write_statistics(hid_t file, const solver::RunStatistics& statistics) {
   h5::Group group = h5::create_group(file, "run_statistics");
   const auto count = [&](std::string_view name, long value, std::string_view long_name) {
@@ -251,6 +308,7 @@ void write_contents(hid_t file, const RunRecord& record) {
     write_forcing(inputs.id(), record.forcing, axes.time_units);
   }
   write_sensors(file, record.sensors);
+  if (record.sensor_comparison) write_sensor_comparison(file, *record.sensor_comparison, axes.time_units);
   write_statistics(file, record.run.statistics);
 }
 

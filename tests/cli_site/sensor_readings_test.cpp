@@ -13,6 +13,7 @@
 #include "sensor_readings.hpp"
 #include "site_file.hpp"
 #include "site_test_helpers.hpp"
+#include "wetfront/profiles/run_file.hpp"
 #include "wetfront/solver/column_run.hpp"
 
 namespace wetfront::cli {
@@ -53,6 +54,17 @@ TEST(SensorsAgainstModel, DemoRunReportsEverySensorAndTheDarcyColumn) {
   EXPECT_NE(report_row(run.out, "all probes").find(" 28 "), std::string::npos);
   EXPECT_NE(run.out.find("beyond the working limit"), std::string::npos);
   EXPECT_NE(run.out.find("by Darcy's law"), std::string::npos);
+  // The run file holds readings beside simulated values and the metrics; show prints them.
+  const profiles::RunRecord record = profiles::read_run(out);
+  ASSERT_TRUE(record.sensor_comparison.has_value());
+  EXPECT_EQ(record.sensor_comparison->pressure_head.size(), 4u * 28u);
+  EXPECT_EQ(record.sensor_comparison->water_content.size(), 28u);
+  EXPECT_EQ(record.sensor_comparison->metrics.size(), 5u + 2u);
+  const auto show = run_program(fmt::format("show '{}'", out.string()), site.folder());
+  ASSERT_EQ(show.exit_code, 0) << show.err;
+  for (const std::string name : {"T30", "T60", "T90", "T120", "P20", "all tensiometers", "all probes"}) {
+    EXPECT_EQ(report_row(show.out, name), report_row(run.out, name)) << name;
+  }
   const std::string header = first_line(site.folder() / "season-visits.csv");
   EXPECT_NE(header.find("Darcy T90-T120 [mm]"), std::string::npos) << header;
   EXPECT_NE(header.find("model and Darcy"), std::string::npos) << header;
@@ -169,6 +181,12 @@ struct BadReadings {
   std::string says;
 };
 
+std::string case_name(const ::testing::TestParamInfo<BadReadings>& case_info) {
+  static const char* const names[] = {"TimeNotADate",    "ReadingNotANumber",           "TimesGoBack", "TensionWithoutUnit",
+                                      "NoTensionColumn", "WaterContentAbove100Percent", "ExtraField"};
+  return names[case_info.index];
+}
+
 class BadReadingsFile : public ::testing::TestWithParam<BadReadings> {};
 
 TEST_P(BadReadingsFile, NamesFileAndLineAndExitsWithOne) {
@@ -191,7 +209,8 @@ INSTANTIATE_TEST_SUITE_P(
                       BadReadings{"tensiometer-90cm.csv", "time,tension_kPa", "time,tension", "unit"},
                       BadReadings{"tensiometer-120cm.csv", "time,tension_kPa", "time,suction_kPa", "tension"},
                       BadReadings{"probe-20cm.csv", "2025-04-15T09:00,30.4", "2025-04-15T09:00,130.4", "between 0 and 100 %"},
-                      BadReadings{"probe-20cm.csv", "2025-04-15T09:00,30.4", "2025-04-15T09:00,30.4,1", "fields"}));
+                      BadReadings{"probe-20cm.csv", "2025-04-15T09:00,30.4", "2025-04-15T09:00,30.4,1", "fields"}),
+    case_name);
 
 }  // namespace
 }  // namespace wetfront::cli

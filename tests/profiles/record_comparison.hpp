@@ -1,6 +1,7 @@
 // Field-by-field comparison of run records, reporting the first differing field.
 #pragma once
 
+#include <cmath>
 #include <gtest/gtest.h>
 
 #include "wetfront/profiles/run_record.hpp"
@@ -99,6 +100,43 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
   }
   EXPECT_EQ(a.visit_days, b.visit_days);
   EXPECT_EQ(a.visit_balance, b.visit_balance);
+  ASSERT_EQ(a.sensor_comparison.has_value(), b.sensor_comparison.has_value());
+  if (a.sensor_comparison) {
+    // Equal, with NaN (undefined metric, reading outside the run) equal to NaN.
+    const auto same = [](double x, double y) { return (std::isnan(x) && std::isnan(y)) || x == y; };
+    const auto& ca = *a.sensor_comparison;
+    const auto& cb = *b.sensor_comparison;
+    for (const auto* lists : {&ca.pressure_head, &ca.water_content}) {
+      const auto& other = lists == &ca.pressure_head ? cb.pressure_head : cb.water_content;
+      ASSERT_EQ(lists->size(), other.size());
+      for (std::size_t i = 0; i < other.size(); ++i) {
+        const auto& x = (*lists)[i];
+        const auto& y = other[i];
+        EXPECT_EQ(x.sensor, y.sensor);
+        EXPECT_EQ(x.time_days, y.time_days);
+        EXPECT_EQ(x.depth_cm, y.depth_cm);
+        EXPECT_EQ(x.observed, y.observed);
+        EXPECT_TRUE(same(x.simulated, y.simulated)) << x.simulated << " " << y.simulated;
+        EXPECT_EQ(x.used, y.used);
+      }
+    }
+    ASSERT_EQ(ca.metrics.size(), cb.metrics.size());
+    for (std::size_t i = 0; i < ca.metrics.size(); ++i) {
+      const auto& x = ca.metrics[i];
+      const auto& y = cb.metrics[i];
+      EXPECT_EQ(x.name, y.name);
+      EXPECT_EQ(x.quantity, y.quantity);
+      EXPECT_EQ(x.unit, y.unit);
+      EXPECT_TRUE(same(x.depth_cm, y.depth_cm));
+      EXPECT_EQ(x.readings_used, y.readings_used);
+      EXPECT_EQ(x.left_out_beyond_working_limit, y.left_out_beyond_working_limit);
+      EXPECT_EQ(x.left_out_outside_run, y.left_out_outside_run);
+      EXPECT_TRUE(same(x.bias, y.bias));
+      EXPECT_TRUE(same(x.root_mean_square_error, y.root_mean_square_error));
+      EXPECT_TRUE(same(x.nash_sutcliffe, y.nash_sutcliffe));
+      EXPECT_TRUE(same(x.kling_gupta, y.kling_gupta));
+    }
+  }
 }
 
 }  // namespace wetfront::profiles::testing

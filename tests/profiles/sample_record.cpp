@@ -1,6 +1,7 @@
 #include "sample_record.hpp"
 
 #include <cmath>
+#include <limits>
 
 #include "wetfront/profiles/layer_table.hpp"
 #include "wetfront/profiles/visit_balance.hpp"
@@ -91,6 +92,18 @@ RunRecord sample_record() {
   }
   record.visit_days = {7.0, 14.0, 21.0};
   record.visit_balance = balance_between_visits(run.balances, record.visit_days);
+
+  // Invented sensor comparison: two tensiometer readings (one beyond the run, simulated NaN)
+  // and one probe reading, with a metrics row per sensor and a pooled row (depth NaN).
+  const double nan = std::numeric_limits<double>::quiet_NaN();
+  SensorComparisonRecord comparison;
+  comparison.pressure_head = {{"tensiometer 15 cm", 7.375, 15.0, -120.5, -118.25, true},
+                              {"tensiometer 15 cm", 31.0, 15.0, -130.0, nan, false}};
+  comparison.water_content = {{"probe 70 cm", 7.375, 70.0, 0.305, 0.2975, true}};
+  comparison.metrics = {{"tensiometer 15 cm", "pressure head", "cm", 15.0, 1, 0, 1, 2.25, 2.25, nan, nan},
+                        {"probe 70 cm", "water content", "cm3/cm3", 70.0, 1, 0, 0, -0.0075, 0.0075, nan, nan},
+                        {"all tensiometers", "pressure head", "cm", nan, 1, 0, 1, 2.25, 2.25, nan, nan}};
+  record.sensor_comparison = comparison;
   return record;
 }
 

@@ -5,6 +5,7 @@
 // fluxes positive downward; evaporation and transpiration positive amounts leaving the soil.
 #pragma once
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -43,6 +44,36 @@ struct ForcingInterval {
   double potential_transpiration_cm_per_d = 0;
 };
 
+// Sensor readings beside the simulated values at their times and depths, and the fit
+// metrics, as computed by `wetfront run` (group /sensor_comparison; absent in runs without
+// sensor readings). Values are in the unit of their quantity: cm of water for pressure head,
+// cm3/cm3 for water content.
+struct ComparedReading {
+  std::string sensor;
+  double time_days = 0;
+  double depth_cm = 0;
+  double observed = 0;
+  double simulated = 0;     // NaN where the run does not cover the reading
+  bool used = false;        // false: beyond the working limit or outside the run
+};
+
+struct SensorMetrics {
+  std::string name;         // a sensor, or "all tensiometers" / "all probes"
+  std::string quantity;     // "pressure head" or "water content"
+  std::string unit;         // "cm" or "cm3/cm3"
+  double depth_cm = 0;      // NaN for a pooled row
+  int readings_used = 0;
+  int left_out_beyond_working_limit = 0;
+  int left_out_outside_run = 0;
+  double bias = 0, root_mean_square_error = 0, nash_sutcliffe = 0, kling_gupta = 0;
+};
+
+struct SensorComparisonRecord {
+  std::vector<ComparedReading> pressure_head;   // cm of water
+  std::vector<ComparedReading> water_content;   // cm3/cm3
+  std::vector<SensorMetrics> metrics;           // per sensor, then pooled rows
+};
+
 struct RunRecord {
   solver::ColumnRun run;
   std::string site_name;
@@ -55,6 +86,7 @@ struct RunRecord {
   std::vector<ForcingInterval> forcing;
   std::vector<double> visit_days;            // field visits, days since the run start, increasing
   std::vector<IntervalBalance> visit_balance;  // balance_between_visits(run.balances, visit_days)
+  std::optional<SensorComparisonRecord> sensor_comparison;
 };
 
 }  // namespace wetfront::profiles
