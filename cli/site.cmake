@@ -1,7 +1,8 @@
 # The site-file loader and the season commands (`wetfront run`, `check`, `show`).
 # wetfront_site turns a site file and its field records into the plain structs the libraries
 # take; it has no command-line code, so tests link it directly. It also holds the unit parser
-# and the input-error type (quantity.cpp, input_error.cpp) that the soil commands use.
+# and the input-error type and CSV reader (quantity.cpp, input_error.cpp, csv_table.cpp) that
+# the soil commands use.
 add_library(wetfront_site STATIC
   src/site_keys.cpp
   src/site_file.cpp
@@ -18,8 +19,3 @@ target_link_libraries(wetfront_site
 
 target_sources(wetfront PRIVATE src/season_commands.cpp src/season_report.cpp)
 target_link_libraries(wetfront PRIVATE wetfront_site wetfront_forcing wetfront_solver wetfront_profiles Threads::Threads)
-# The CSV reader is now part of wetfront_site (the sensor readings need it); take it out of
-# the program's own source list (cli/CMakeLists.txt) so it is compiled once.
-get_target_property(wetfront_program_sources wetfront SOURCES)
-list(REMOVE_ITEM wetfront_program_sources src/csv_table.cpp)
-set_property(TARGET wetfront PROPERTY SOURCES ${wetfront_program_sources})
