@@ -69,7 +69,6 @@ class Integrator {
     model.choose_modes(view(y_.get()));
     model.consistent_rates(problem.start_day, view(y_.get()), view(yp_.get()));
     initial_storage_ = soil_storage();
-    initial_pond_ = 0.0;
 
     mem_.reset(detail::check_ptr(IDACreate(ctx_.get()), "IDACreate"));
     void* mem = mem_.get();
@@ -239,7 +238,7 @@ class Integrator {
     for (std::size_t face : plane_faces_) b.plane_flux_cm.push_back(face_total(face));
     b.ponded_depth_cm = y[ColumnModel::pond_index];
     b.soil_storage_cm = soil_storage();
-    const double change = b.soil_storage_cm - initial_storage_ + b.ponded_depth_cm - initial_pond_;
+    const double change = b.soil_storage_cm - initial_storage_ + b.ponded_depth_cm;  // no pond at the start
     const double net_in =
         b.water_input_cm - b.actual_evaporation_cm - b.runoff_cm - b.transpiration_cm - b.bottom_flux_cm;
     b.balance_error_cm = change - net_in;
@@ -290,7 +289,7 @@ class Integrator {
   detail::MatrixHandle matrix_;
   detail::SolverHandle solver_;
   detail::IdaHandle mem_;
-  double initial_storage_ = 0, initial_pond_ = 0;
+  double initial_storage_ = 0;
   double last_switch_time_ = -1.0;
   detail::SurfaceMode mode_before_last_switch_ = detail::SurfaceMode::flux;
   RunStatistics stats_, counted_;
