@@ -47,6 +47,10 @@ ReportTable season_table(const profiles::RunRecord& record, const profiles::Inte
   return table;
 }
 
+std::string depth_range(const StorageCheck& storage) {
+  return fmt::format("{}-{} cm", number(storage.depths_cm.front()), number(storage.depths_cm.back()));
+}
+
 }  // namespace
 
 ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorCheck* sensors) {
@@ -60,6 +64,11 @@ ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorC
     table.headers.push_back(fmt::format("Darcy {}-{} [mm]", darcy->upper_name, darcy->lower_name));
     table.headers.push_back("model and Darcy");
   }
+  const StorageCheck* storage = sensors && sensors->storage && sensors->storage->usable() ? &*sensors->storage : nullptr;
+  if (storage) {
+    table.headers.push_back(fmt::format("observed storage change {} [mm]", depth_range(*storage)));
+    table.headers.push_back(fmt::format("simulated storage change {} [mm]", depth_range(*storage)));
+  }
   for (std::size_t i = 0; i < record.visit_balance.size(); ++i) {
     const auto& b = record.visit_balance[i];
     std::vector<std::string> row({date_after(record.run_start_date, b.start_day), date_after(record.run_start_date, b.end_day),
@@ -70,6 +79,11 @@ ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorC
       const DarcyInterval* d = i < darcy->intervals.size() ? &darcy->intervals[i] : nullptr;
       row.push_back(d && d->darcy_cm ? mm(*d->darcy_cm) : "");
       row.push_back(!d || !d->darcy_cm ? "no estimate" : d->disagree ? "differ" : "agree");
+    }
+    if (storage) {
+      const StorageInterval* s = i < storage->intervals.size() ? &storage->intervals[i] : nullptr;
+      row.push_back(s && s->observed_change_cm ? mm(*s->observed_change_cm) : "");
+      row.push_back(s && s->simulated_change_cm ? mm(*s->simulated_change_cm) : "");
     }
     table.add_row(std::move(row));
   }
@@ -139,6 +153,48 @@ std::string sensor_section(const SensorCheck& sensors) {
   return out + "\n";
 }
 
+std::string storage_section(const StorageCheck& storage) {
+  std::string out = "Stored water over the probe depths\n";
+  if (!storage.usable()) {
+    const std::string has = storage.depths_cm.empty()
+                                ? std::string("has none")
+                                : fmt::format("has them at one depth only ({} cm)", number(storage.depths_cm.front()));
+    return out + fmt::format("  The comparison needs water-content probes at two or more depths; this site {}.\n\n", has);
+  }
+  out += fmt::format("  Water stored between {} and {} cm (probes {}, at {} cm), in mm: the trapezoidal rule\n"
+                     "  over the probe depths, from the readings and from the model at the same depths and times.\n"
+                     "  Readings within {} d of a visit count as read at it; nothing is counted above the shallowest or\n"
+                     "  below the deepest probe.\n",
+                     number(storage.depths_cm.front()), number(storage.depths_cm.back()), fmt::join(storage.probe_names, ", "),
+                     fmt::join(storage.depths_cm, ", "), kVisitReadingWindowDays);
+  int both = 0;
+  double observed = 0, simulated = 0;
+  for (const auto& v : storage.visits) {
+    if (!v.observed_cm || !v.simulated_cm) continue;
+    ++both;
+    observed += *v.observed_cm;
+    simulated += *v.simulated_cm;
+  }
+  out += fmt::format("  Visits (with the run start and end) with a reading at every depth: {} of {}.\n", both, storage.visits.size());
+  if (both > 0) {
+    out += fmt::format("  Mean stored water at those visits: readings {} mm, model {} mm (model minus readings {} mm).\n",
+                       mm(observed / both), mm(simulated / both), mm((simulated - observed) / both));
+  }
+  int intervals = 0;
+  double observed_change = 0, simulated_change = 0;
+  for (const auto& i : storage.intervals) {
+    if (!i.observed_change_cm || !i.simulated_change_cm) continue;
+    ++intervals;
+    observed_change += *i.observed_change_cm;
+    simulated_change += *i.simulated_change_cm;
+  }
+  out += fmt::format("  Intervals with a change from both: {} of {}; the changes summed over them: readings {} mm,\n"
+                     "  model {} mm (positive: water gained). The storage change columns of the visit table give every\n"
+                     "  interval.\n\n",
+                     intervals, storage.intervals.size(), mm(observed_change), mm(simulated_change));
+  return out;
+}
+
 std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes, const SensorCheck* sensors) {
   const auto& run = record.run;
   std::string out;
@@ -170,6 +226,7 @@ std::string season_report(const profiles::RunRecord& record, const std::vector<s
     out += format_table(visit_balance_table(record, sensors));
     out += "\n";
     if (sensors) out += sensor_section(*sensors);
+    if (sensors && sensors->storage) out += storage_section(*sensors->storage);
   } else {
     out += "No water balance: the run did not reach its first output time.\n\n";
   }

@@ -1,11 +1,13 @@
 #include "sensor_check.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 
 #include <fmt/format.h>
 
 #include "wetfront/observations/profile_interpolation.hpp"
+#include "wetfront/observations/profile_storage.hpp"
 #include "wetfront/observations/recharge_estimates.hpp"
 #include "wetfront/observations/sensor_comparison.hpp"
 
@@ -46,19 +48,25 @@ void compare_kind(const std::vector<SensorRecord>& readings, const solver::Colum
                           report.outside_simulation});
 }
 
-// The head of a reliable reading within the window of `day`, the nearest one.
-std::optional<double> head_near(const SensorRecord& r, double day) {
-  std::optional<double> best;
+// The reliable reading within the window of `day` nearest to it.
+const obs::Observation* reading_near(const SensorRecord& r, double day) {
+  const obs::Observation* best = nullptr;
   double distance = kVisitReadingWindowDays;
   for (const auto& o : r.series.observations) {
     if (!o.reliable) continue;
     const double d = std::abs(o.day - day);
     if (d <= distance) {
       distance = d;
-      best = o.value;
+      best = &o;
     }
   }
   return best;
+}
+
+// The head of a reliable reading within the window of `day`, the nearest one.
+std::optional<double> head_near(const SensorRecord& r, double day) {
+  const obs::Observation* o = reading_near(r, day);
+  return o ? std::optional<double>(o->value) : std::nullopt;
 }
 
 std::optional<DarcyCheck> darcy_check(const Season& season, const std::vector<SensorRecord>& readings,
@@ -113,6 +121,63 @@ std::optional<DarcyCheck> darcy_check(const Season& season, const std::vector<Se
 
 }  // namespace
 
+StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record) {
+  StorageCheck check;
+  std::vector<const SensorRecord*> probes;
+  for (const auto& r : readings) {
+    if (r.kind == "tensiometer") continue;
+    probes.push_back(&r);
+    check.probe_names.push_back(r.name);
+    check.depths_cm.push_back(r.depth_cm);
+  }
+  std::sort(check.depths_cm.begin(), check.depths_cm.end());
+  check.depths_cm.erase(std::unique(check.depths_cm.begin(), check.depths_cm.end()), check.depths_cm.end());
+  if (!check.usable() || record.visit_balance.empty()) return check;
+
+  const bool simulated_available = record.run.profiles.size() >= 2;
+  const obs::SimulatedProfiles profiles = simulated_available ? simulated(record.run, false) : obs::SimulatedProfiles{};
+  // The storage at one visit: at each depth the mean of the probes there (nearest reading
+  // within the window), and the model at the same reading times and depths.
+  auto storage_at = [&](double day) {
+    StorageVisit visit{day, std::nullopt, std::nullopt};
+    std::vector<double> observed, modelled;
+    bool model_complete = simulated_available;
+    for (const double depth : check.depths_cm) {
+      double sum_observed = 0, sum_model = 0;
+      int count = 0;
+      for (const SensorRecord* p : probes) {
+        if (p->depth_cm != depth) continue;
+        const obs::Observation* o = reading_near(*p, day);
+        if (!o) return visit;  // a depth without a reading: no storage at this visit
+        sum_observed += o->value;
+        if (model_complete) {
+          const auto value = obs::simulated_value_at(profiles, o->day, o->depth_cm);
+          if (value) sum_model += *value;
+          else model_complete = false;
+        }
+        ++count;
+      }
+      observed.push_back(sum_observed / count);
+      modelled.push_back(sum_model / count);
+    }
+    visit.observed_cm = obs::profile_storage_cm(check.depths_cm, observed);
+    if (model_complete) visit.simulated_cm = obs::profile_storage_cm(check.depths_cm, modelled);
+    return visit;
+  };
+  check.visits.push_back(storage_at(record.visit_balance.front().start_day));
+  for (const auto& b : record.visit_balance) check.visits.push_back(storage_at(b.end_day));
+  auto change = [](const std::optional<double>& start, const std::optional<double>& end) {
+    return start && end ? std::optional<double>(*end - *start) : std::nullopt;
+  };
+  for (std::size_t i = 0; i < record.visit_balance.size(); ++i) {
+    const auto& start = check.visits[i];
+    const auto& end = check.visits[i + 1];
+    check.intervals.push_back({record.visit_balance[i].start_day, record.visit_balance[i].end_day,
+                               change(start.observed_cm, end.observed_cm), change(start.simulated_cm, end.simulated_cm)});
+  }
+  return check;
+}
+
 SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings, const profiles::RunRecord& record) {
   SensorCheck check;
   std::vector<std::size_t> order;
@@ -127,6 +192,7 @@ SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>&
   }
   check.sensors = std::move(rows);
   check.darcy = darcy_check(season, readings, record);
+  check.storage = check_storage(readings, record);
   return check;
 }
 

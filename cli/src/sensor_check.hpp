@@ -43,10 +43,34 @@ struct DarcyCheck {
   std::vector<DarcyInterval> intervals;
 };
 
+// Water stored between the shallowest and the deepest probe at each visit, from the probe
+// readings and from the model at the same depths and times (trapezoid over the probe depths).
+struct StorageVisit {
+  double day = 0;
+  std::optional<double> observed_cm;   // empty when a depth has no reading within the window
+  std::optional<double> simulated_cm;  // empty with observed_cm, or outside the run reached
+};
+
+struct StorageInterval {
+  double start_day = 0;
+  double end_day = 0;
+  std::optional<double> observed_change_cm;   // end minus start; positive when water was gained
+  std::optional<double> simulated_change_cm;
+};
+
+struct StorageCheck {
+  std::vector<double> depths_cm;       // distinct probe depths, increasing
+  std::vector<std::string> probe_names;
+  std::vector<StorageVisit> visits;    // the run start and every visit
+  std::vector<StorageInterval> intervals;  // one per visit interval
+  bool usable() const { return depths_cm.size() >= 2; }
+};
+
 struct SensorCheck {
   std::vector<SensorFitRow> sensors;   // one per sensor, in site-file order
   std::vector<SensorFitRow> pooled;    // per quantity present
   std::optional<DarcyCheck> darcy;
+  std::optional<StorageCheck> storage;  // set by check_sensors; not stored in the run file
 };
 
 // Readings nearer than this to an interval's end visit are taken as read at the visit.
@@ -55,13 +79,17 @@ inline constexpr double kVisitReadingWindowDays = 1.0;
 inline constexpr double kAgreementFactor = 2.0;
 inline constexpr double kNegligibleRechargeCm = 0.01;  // 0.1 mm
 
+// The stored-water comparison alone (check_sensors calls it). With fewer than two probe depths
+// only depths_cm and probe_names are filled.
+StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record);
+
 SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings, const profiles::RunRecord& record);
 
 // The readings beside the simulated values, and the metrics, for the run file.
 profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
                                                    const solver::ColumnRun& run);
 
-// The metrics back from a run file (no Darcy estimates: those are not stored).
+// The metrics back from a run file (no Darcy estimates or stored water: those are not stored).
 SensorCheck check_from_record(const profiles::SensorComparisonRecord& stored);
 
 }  // namespace wetfront::cli

@@ -93,7 +93,7 @@ with open(HERE / "pan-readings.csv", "w") as f:
     for when, lvl, caught, event in rows:
         f.write(f"{when.strftime('%Y-%m-%dT%H:%M')},{lvl:.1f},{caught},{event}\n")
 
-# Sensors read at the weekly visits: tensiometers (tension, kPa) and a water-content probe.
+# Sensors read at the weekly visits: tensiometers (tension, kPa) and water-content probes.
 visits = [START + dt.timedelta(days=7 * k) for k in range(1, 29) if START + dt.timedelta(days=7 * k) <= END]
 for depth, base in [(30, 12.0), (60, 15.0), (90, 18.0), (120, 20.0)]:
     with open(HERE / f"tensiometer-{depth}cm.csv", "w") as f:
@@ -109,6 +109,15 @@ with open(HERE / "probe-20cm.csv", "w") as f:
     for v in visits:
         i = (v - START).days
         f.write(f"{v.isoformat()}T09:00,{30.0 - 12.0 * season_shape(i) + rng.uniform(-2, 2):.1f}\n")
+# Two deeper probes (drawn after the ones above, so the earlier files stay as they were):
+# wetter and with a smaller seasonal swing than at 20 cm.
+for depth, wet, swing in [(50, 32.0, 8.0), (80, 33.0, 5.0)]:
+    with open(HERE / f"probe-{depth}cm.csv", "w") as f:
+        f.write(INVENTED + f"# Water-content probe at {depth} cm, read at each visit.\n")
+        f.write("time,water content [%]\n")
+        for v in visits:
+            i = (v - START).days
+            f.write(f"{v.isoformat()}T09:00,{wet - swing * season_shape(i) + rng.uniform(-1.5, 1.5):.1f}\n")
 
 print("visits = [" + ", ".join(f'"{v.isoformat()}"' for v in visits) + "]")
 print(f"rain total {sum(rain[:DAYS - 1]):.0f} mm over {DAYS - 1} days")

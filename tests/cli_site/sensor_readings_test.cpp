@@ -38,36 +38,54 @@ std::string report_row(const std::string& report, const std::string& name) {
   return {};
 }
 
-TEST(SensorsAgainstModel, DemoRunReportsEverySensorAndTheDarcyColumn) {
+TEST(SensorsAgainstModel, DemoRunReportsEverySensorTheDarcyColumnAndStoredWater) {
   ScratchSite site("sensors-demo");
   const auto out = site.folder() / "season.h5";
   const auto run = run_program(fmt::format("run '{}' --out '{}'", site.site_file().string(), out.string()), site.folder());
   ASSERT_EQ(run.exit_code, 0) << run.err;
   ASSERT_NE(run.out.find("Sensors against the model"), std::string::npos);
   // 28 readings per sensor, all at visits inside the run (invented demo data).
-  for (const std::string name : {"T30", "T60", "T90", "T120", "P20"}) {
+  for (const std::string name : {"T30", "T60", "T90", "T120", "P20", "P50", "P80"}) {
     const std::string row = report_row(run.out, name);
     ASSERT_FALSE(row.empty()) << name;
     EXPECT_NE(row.find(" 28 "), std::string::npos) << row;
   }
   EXPECT_NE(report_row(run.out, "all tensiometers").find(" 112 "), std::string::npos);
-  EXPECT_NE(report_row(run.out, "all probes").find(" 28 "), std::string::npos);
+  EXPECT_NE(report_row(run.out, "all probes").find(" 84 "), std::string::npos);
   EXPECT_NE(run.out.find("beyond the working limit"), std::string::npos);
   EXPECT_NE(run.out.find("by Darcy's law"), std::string::npos);
   // The run file holds readings beside simulated values and the metrics; show prints them.
   const profiles::RunRecord record = profiles::read_run(out);
   ASSERT_TRUE(record.sensor_comparison.has_value());
   EXPECT_EQ(record.sensor_comparison->pressure_head.size(), 4u * 28u);
-  EXPECT_EQ(record.sensor_comparison->water_content.size(), 28u);
-  EXPECT_EQ(record.sensor_comparison->metrics.size(), 5u + 2u);
+  EXPECT_EQ(record.sensor_comparison->water_content.size(), 3u * 28u);
+  EXPECT_EQ(record.sensor_comparison->metrics.size(), 7u + 2u);
   const auto show = run_program(fmt::format("show '{}'", out.string()), site.folder());
   ASSERT_EQ(show.exit_code, 0) << show.err;
-  for (const std::string name : {"T30", "T60", "T90", "T120", "P20", "all tensiometers", "all probes"}) {
+  for (const std::string name : {"T30", "T60", "T90", "T120", "P20", "P50", "P80", "all tensiometers", "all probes"}) {
     EXPECT_EQ(report_row(show.out, name), report_row(run.out, name)) << name;
   }
   const std::string header = first_line(site.folder() / "season-visits.csv");
   EXPECT_NE(header.find("Darcy T90-T120 [mm]"), std::string::npos) << header;
   EXPECT_NE(header.find("model and Darcy"), std::string::npos) << header;
+  // Stored water between the probes at 20 and 80 cm: a report section and two CSV columns,
+  // empty for the first interval (no readings at the run start), filled for the second.
+  const auto section = run.out.find("Stored water over the probe depths");
+  ASSERT_NE(section, std::string::npos);
+  EXPECT_NE(run.out.find("between 20 and 80 cm (probes P20, P50, P80", section), std::string::npos) << run.out.substr(section);
+  EXPECT_NE(run.out.find("with a reading at every depth: 28 of 30", section), std::string::npos) << run.out.substr(section);
+  EXPECT_NE(header.find(",observed storage change 20-80 cm [mm],simulated storage change 20-80 cm [mm]"), std::string::npos)
+      << header;
+  std::ifstream csv(site.folder() / "season-visits.csv");
+  std::string line;
+  std::getline(csv, line);
+  std::getline(csv, line);
+  EXPECT_EQ(line.substr(line.size() - 2), ",,") << line;
+  std::getline(csv, line);
+  const std::string last = line.substr(line.rfind(',') + 1);
+  EXPECT_FALSE(last.empty()) << line;
+  // The show command has no readings, so no stored-water section.
+  EXPECT_EQ(show.out.find("Stored water over the probe depths"), std::string::npos);
 }
 
 TEST(SensorsAgainstModel, ReadingsAtTheWorkingLimitAreLeftOutAndCounted) {
@@ -142,7 +160,7 @@ TEST(SensorsAgainstModel, ReadingsMadeFromTheModelFitItExactly) {
   const Season second = prepare_season(load_site_file(site.site_file(), period));
   profiles::RunRecord record = make_record(second, solver::simulate(second.problem), "test");
   const SensorCheck check = check_sensors(second, second.sensor_readings, record);
-  ASSERT_EQ(check.sensors.size(), 5u);
+  ASSERT_EQ(check.sensors.size(), 7u);
   for (const auto& row : check.sensors) {
     EXPECT_GE(row.metrics.count, 7) << row.name;
     const double tolerance = row.unit == "cm" ? 1e-3 : 1e-6;  // our own: print precision and solver repeatability
@@ -153,6 +171,16 @@ TEST(SensorsAgainstModel, ReadingsMadeFromTheModelFitItExactly) {
   }
   ASSERT_EQ(check.pooled.size(), 2u);
   EXPECT_GT(check.pooled[0].metrics.nash_sutcliffe, 0.9999);
+  // Probe readings that are the model's values give the model's stored water at every visit.
+  ASSERT_TRUE(check.storage && check.storage->usable());
+  int compared = 0;
+  for (const auto& v : check.storage->visits) {
+    if (!v.observed_cm) continue;
+    ASSERT_TRUE(v.simulated_cm.has_value());
+    EXPECT_NEAR(*v.observed_cm, *v.simulated_cm, 1e-6) << "day " << v.day;  // our own: 60 cm x 1e-8 print precision
+    ++compared;
+  }
+  EXPECT_GE(compared, 7);
 }
 
 TEST(SensorsAgainstModel, TensiometerPairKeyIsChecked) {
