@@ -7,36 +7,20 @@
 #include "wetfront/soils/layers.hpp"
 #include "wetfront/solver/column_problem.hpp"
 #include "wetfront/solver/column_run.hpp"
+#include "solver_test_soils.hpp"
 
 namespace wetfront::surface_tests {
 
-// Class averages of Carsel & Parrish (1988, Water Resources Research 24(5):755), van
-// Genuchten-Mualem with l = 0.5: theta_r, theta_s, alpha (1/cm), n, Ks (cm/d). From memory.
-inline soils::VanGenuchtenMualem loam() { return {0.078, 0.43, 0.036, 1.56, 24.96, 0.5}; }
-inline soils::VanGenuchtenMualem sand() { return {0.045, 0.43, 0.145, 2.68, 712.8, 0.5}; }
+// The Carsel & Parrish (1988) test soils, the single-layer profile and the fully named column
+// are shared with the solver verification tests (tests/solver/solver_test_soils.hpp).
+using solver_tests::loam;
+using solver_tests::make_column;
+using solver_tests::sand;
+using solver_tests::single_layer;
+
+// Carsel & Parrish (1988) class average for silt loam, van Genuchten-Mualem with l = 0.5:
+// theta_r, theta_s, alpha (1/cm), n, Ks (cm/d). From memory.
 inline soils::VanGenuchtenMualem silt_loam() { return {0.067, 0.45, 0.020, 1.41, 10.8, 0.5}; }
-
-inline soils::LayeredProfile single_layer(double depth_cm, soils::HydraulicModel model) {
-  return soils::LayeredProfile({soils::SoilLayer{"test soil", 0.0, depth_cm, std::move(model)}});
-}
-
-// A column with every setting named (the aggregate fully initialised); the caller changes
-// what the test is about.
-inline solver::ColumnProblem make_column(soils::LayeredProfile soil, solver::Grid grid) {
-  return solver::ColumnProblem{std::move(soil),
-                               std::move(grid),
-                               solver::PrescribedFlux{solver::StepSeries::constant(0.0)},
-                               solver::FreeDrainage{},
-                               solver::UniformHead{-100.0},
-                               nullptr,
-                               {},
-                               1e-4,
-                               solver::FaceConductivity::arithmetic,
-                               0.0,
-                               1.0,
-                               {},
-                               solver::SolverSettings{}};
-}
 
 // Output times start, start + step, ..., end.
 inline std::vector<double> every(double step_days, double start_days, double end_days) {
