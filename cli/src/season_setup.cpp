@@ -134,29 +134,43 @@ struct Seasonal {
 
 }  // namespace
 
-Season prepare_season(SiteSetup site_setup) {
-  Seasonal season;
-  season.site = std::move(site_setup);
-  const SiteSetup& site = season.site;
-  const std::string site_file = site.site_file.string();
-
+FieldRecords read_field_records(const SiteSetup& site) {
+  FieldRecords records;
   InputDigest digest;
   digest.add_file(site.site_file);
   digest.add_text(site.run_start_text + "/" + site.run_end_text);
+  records.water_inputs_cm_per_day.push_back(depth_file_rate(site.rain, "rain", site, records.notes, records.totals.rain_cm));
+  digest.add_file(site.rain.path);
+  if (site.irrigation) {
+    records.water_inputs_cm_per_day.push_back(
+        depth_file_rate(*site.irrigation, "irrigation", site, records.notes, records.totals.irrigation_cm));
+    digest.add_file(site.irrigation->path);
+  }
+  records.pan_evaporation_cm_per_day = pan_rate(site, records.notes, records.totals.pan_evaporation_cm);
+  digest.add_file(site.pan.readings ? site.pan.readings->path : site.pan.daily_evaporation->path);
+  for (const auto& sensor : site.sensors) digest.add_file(sensor.readings);
+  records.sensor_readings = read_sensor_readings(site);
+  records.input_hash = digest.hex();
+  return records;
+}
+
+Season prepare_season(SiteSetup site) {
+  const FieldRecords records = read_field_records(site);
+  return build_season(std::move(site), records);
+}
+
+Season build_season(SiteSetup site_setup, const FieldRecords& records) {
+  Seasonal season;
+  season.site = std::move(site_setup);
+  season.totals = records.totals;
+  season.notes = records.notes;
+  const SiteSetup& site = season.site;
+  const std::string site_file = site.site_file.string();
 
   forcing::SurfaceDemandInputs inputs;
   inputs.run_length_days = site.run_length_days;
-  inputs.water_inputs.push_back(depth_file_rate(site.rain, "rain", site, season.notes, season.totals.rain_cm));
-  digest.add_file(site.rain.path);
-  if (site.irrigation) {
-    inputs.water_inputs.push_back(depth_file_rate(*site.irrigation, "irrigation", site, season.notes, season.totals.irrigation_cm));
-    digest.add_file(site.irrigation->path);
-  }
-  inputs.pan_evaporation = pan_rate(site, season.notes, season.totals.pan_evaporation_cm);
-  digest.add_file(site.pan.readings ? site.pan.readings->path : site.pan.daily_evaporation->path);
-  for (const auto& sensor : site.sensors) digest.add_file(sensor.readings);
-  std::vector<SensorRecord> sensor_readings = read_sensor_readings(site);
-
+  inputs.water_inputs = records.water_inputs_cm_per_day;
+  inputs.pan_evaporation = records.pan_evaporation_cm_per_day;
   try {
     season.pan_coefficient = forcing::pan_coefficient(site.pan.coefficient);
     inputs.crop = forcing::CropFromReference{season.pan_coefficient, site.crop.kc_curve};
@@ -206,7 +220,7 @@ Season prepare_season(SiteSetup site_setup) {
       .face_conductivity = site.face_conductivity,
       .start_day = 0,
       .end_day = end_day,
-      .output_days = output_days(site, end_day, sensor_readings),
+      .output_days = output_days(site, end_day, records.sensor_readings),
       .settings = site.settings};
   return Season{.site = std::move(season.site),
                 .pan_coefficient = season.pan_coefficient,
@@ -215,8 +229,8 @@ Season prepare_season(SiteSetup site_setup) {
                 .totals = season.totals,
                 .roots_simulated = true,
                 .notes = std::move(season.notes),
-                .input_hash = digest.hex(),
-                .sensor_readings = std::move(sensor_readings)};
+                .input_hash = records.input_hash,
+                .sensor_readings = records.sensor_readings};
 }
 
 profiles::RunRecord make_record(const Season& season, solver::ColumnRun run, const std::string& program_version) {

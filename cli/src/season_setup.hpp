@@ -8,6 +8,7 @@
 
 #include "sensor_readings.hpp"
 #include "site_file.hpp"
+#include "wetfront/forcing/depth_series.hpp"
 #include "wetfront/forcing/surface_demand.hpp"
 #include "wetfront/profiles/run_record.hpp"
 #include "wetfront/solver/column_problem.hpp"
@@ -35,8 +36,26 @@ struct Season {
   std::vector<SensorRecord> sensor_readings;  // converted; their times are among the output times
 };
 
-// Reads the field records named by the site and builds the problem. Throws InputError naming
-// the CSV file and line (or the site file and key) for bad or missing records.
+// The field records of a site, read and converted once: several seasons that differ only in
+// soil, crop or boundary values (a parameter sweep) share them.
+struct FieldRecords {
+  std::vector<forcing::CoveredSeries> water_inputs_cm_per_day;  // rain, then irrigation
+  forcing::CoveredSeries pan_evaporation_cm_per_day;
+  ForcingTotals totals;               // rain, irrigation and pan totals (no transpiration yet)
+  std::vector<std::string> notes;     // gaps filled, records that stop early
+  std::string input_hash;
+  std::vector<SensorRecord> sensor_readings;
+};
+
+// Reads the field records named by the site. Throws InputError naming the CSV file and line
+// (or the site file and key) for bad or missing records.
+FieldRecords read_field_records(const SiteSetup& site);
+
+// Builds the season from the site's values and its records; reads no files. Throws InputError
+// naming the site file for values the libraries reject.
+Season build_season(SiteSetup site, const FieldRecords& records);
+
+// read_field_records then build_season.
 Season prepare_season(SiteSetup site);
 
 // The record of a run of this season, with the per-visit balance.
