@@ -97,6 +97,10 @@ class Solver {
     result.stop_reason = stop ? StopReason::small_gradient : StopReason::iteration_limit;
     int iteration = 0;
     while (!stop && iteration < options_.max_iterations) {
+      if (options_.budget_spent && options_.budget_spent()) {
+        result.stop_reason = StopReason::budget_spent;
+        break;
+      }
       ++iteration;
       const Eigen::MatrixXd damped = a + mu * Eigen::MatrixXd::Identity(a.rows(), a.cols());
       const Eigen::VectorXd h = damped.ldlt().solve(-g);
@@ -112,6 +116,7 @@ class Solver {
       const double predicted = h.dot(mu * h - g);
       const double rho = std::isfinite(cost_new) && predicted > 0.0 ? (cost - cost_new) / predicted : -1.0;
       if (rho > 0.0) {
+        const bool small_decrease = cost - cost_new < options_.relative_decrease_tolerance * cost;
         u = u_new;
         r = r_new;
         cost = cost_new;
@@ -122,6 +127,9 @@ class Solver {
         nu = 2.0;
         if (gradient_small()) {
           result.stop_reason = StopReason::small_gradient;
+          stop = true;
+        } else if (small_decrease) {
+          result.stop_reason = StopReason::small_decrease;
           stop = true;
         }
       } else {
@@ -135,6 +143,7 @@ class Solver {
     }
     to_natural(u);
     result.parameters = natural_;
+    result.jacobian = jacobian_natural_;
     result.residuals = r;
     result.sum_of_squares = cost;
     result.iterations = iteration;
@@ -198,9 +207,12 @@ class Solver {
     return j;
   }
 
+  // Also keeps dr/dp at u for the covariance: the last Jacobian taken is always at the
+  // current point, because it is retaken after every accepted step.
   Eigen::MatrixXd jacobian_u(const Eigen::VectorXd& u) {
     to_natural(u);
-    Eigen::MatrixXd j = jacobian_natural();
+    jacobian_natural_ = jacobian_natural();
+    Eigen::MatrixXd j = jacobian_natural_;
     for (Eigen::Index k = 0; k < j.cols(); ++k)
       j.col(k) *= transforms_[static_cast<std::size_t>(free_[static_cast<std::size_t>(k)])].slope(u[k]);
     return j;
@@ -215,7 +227,7 @@ class Solver {
       result.covariance_note = "as many data as free parameters: no degrees of freedom left to estimate the error variance";
       return;
     }
-    const Eigen::MatrixXd j = jacobian_natural();
+    const Eigen::MatrixXd& j = jacobian_natural_;
     const Eigen::JacobiSVD<Eigen::MatrixXd> svd(j, Eigen::ComputeThinV);
     const Eigen::VectorXd sigma = svd.singularValues();
     if (!(sigma.minCoeff() > 1e-12 * sigma.maxCoeff())) {
@@ -244,6 +256,7 @@ class Solver {
   std::vector<Transform> transforms_;
   std::vector<Eigen::Index> free_;
   Eigen::VectorXd natural_;
+  Eigen::MatrixXd jacobian_natural_;
   int evaluations_ = 0;
 };
 
@@ -255,6 +268,8 @@ std::string_view describe(StopReason reason) {
     case StopReason::small_step: return "converged: parameter step below tolerance";
     case StopReason::iteration_limit: return "stopped at the iteration limit before converging";
     case StopReason::no_further_progress: return "stopped: no step reduces the sum of squares any further";
+    case StopReason::small_decrease: return "converged: the last step lowered the sum of squares by less than the tolerance";
+    case StopReason::budget_spent: return "stopped: the limit on model runs was reached";
   }
   return "unknown stop reason";
 }

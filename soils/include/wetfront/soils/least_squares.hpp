@@ -52,13 +52,21 @@ struct LeastSquaresOptions {
   // Central-difference step for numerical Jacobians, relative to max(|p|, 1e-3): about the cube
   // root of machine epsilon balances truncation against rounding (common practice).
   double relative_difference_step = 1e-5;
+  // Stop after an accepted step that lowers S by less than this fraction of S (0: never). For
+  // residuals from a numerical model, whose S is only as smooth as the model's tolerances.
+  double relative_decrease_tolerance = 0.0;
+  // Asked before every step; true stops the run (StopReason::budget_spent), for a caller that
+  // limits how many expensive residual evaluations a fit may take.
+  std::function<bool()> budget_spent;
 };
 
 enum class StopReason {
   small_gradient,      // first-order optimality reached
   small_step,          // parameters stopped moving
   iteration_limit,     // max_iterations reached without meeting a tolerance
-  no_further_progress  // damping grew without finding a decrease (flat or noisy objective)
+  no_further_progress, // damping grew without finding a decrease (flat or noisy objective)
+  small_decrease,      // an accepted step lowered S by less than relative_decrease_tolerance
+  budget_spent         // options.budget_spent said stop
 };
 std::string_view describe(StopReason reason);
 
@@ -80,7 +88,13 @@ struct LeastSquaresResult {
   StopReason stop_reason = StopReason::iteration_limit;
   int iterations = 0;
   int residual_evaluations = 0;
-  bool converged() const { return stop_reason == StopReason::small_gradient || stop_reason == StopReason::small_step; }
+  // dr/dp of the free parameters at the optimum (columns in parameter order, fixed ones left
+  // out), from which the covariance is computed.
+  Eigen::MatrixXd jacobian;
+  bool converged() const {
+    return stop_reason == StopReason::small_gradient || stop_reason == StopReason::small_step ||
+           stop_reason == StopReason::small_decrease;
+  }
 };
 
 // One Levenberg-Marquardt run from `start` (natural parameters; values on or outside a bound
