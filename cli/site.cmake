@@ -11,11 +11,15 @@ add_library(wetfront_site STATIC
   src/sensor_check.cpp
   src/csv_table.cpp
   src/quantity.cpp
-  src/input_error.cpp)
+  src/input_error.cpp
+  src/adjustable_parameters.cpp
+  src/parameter_runs.cpp
+  src/parameter_study.cpp
+  src/study_output.cpp)
 target_include_directories(wetfront_site PUBLIC src)
 target_link_libraries(wetfront_site
   PUBLIC wetfront_soils wetfront_forcing wetfront_solver wetfront_profiles wetfront_observations tomlplusplus::tomlplusplus fmt::fmt
   PRIVATE wetfront_warnings)
 
-target_sources(wetfront PRIVATE src/season_commands.cpp src/season_report.cpp)
+target_sources(wetfront PRIVATE src/season_commands.cpp src/season_report.cpp src/parameter_commands.cpp src/parameter_report.cpp)
 target_link_libraries(wetfront PRIVATE wetfront_site wetfront_forcing wetfront_solver wetfront_profiles Threads::Threads)

@@ -1,6 +1,7 @@
 // The `wetfront` program: one registration function per command family.
 #include <CLI/CLI.hpp>
 
+#include "parameter_commands.hpp"
 #include "run_app.hpp"
 #include "season_commands.hpp"
 #include "soil_commands.hpp"
@@ -13,5 +14,6 @@ int main(int argc, char** argv) {
   app.require_subcommand(1);
   wetfront::cli::add_soil_commands(app);
   wetfront::cli::add_season_commands(app);
+  wetfront::cli::add_parameter_commands(app);
   return wetfront::cli::run_app(app, argc, argv);
 }

@@ -23,7 +23,8 @@ using Keys = std::span<const std::string_view>;
 
 constexpr std::array<std::string_view, 11> top_keys = {"site",    "run",     "layers", "grid", "initial", "bottom",
                                                        "surface", "weather", "pan",    "crop", "sensors"};
-constexpr std::array<std::string_view, 2> tail_keys = {"recharge", "solver"};
+// [fit] and [[adjustable]] describe a parameter study; adjustable_parameters.cpp reads them.
+constexpr std::array<std::string_view, 4> tail_keys = {"recharge", "solver", "fit", "adjustable"};
 
 std::vector<std::string_view> all_top_keys() {
   std::vector<std::string_view> keys(top_keys.begin(), top_keys.end());

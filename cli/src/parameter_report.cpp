@@ -1,0 +1,247 @@
+#include "parameter_report.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include <fmt/format.h>
+
+#include "wetfront/forcing/time_axis.hpp"
+#include "wetfront/observations/parameter_uncertainty.hpp"
+
+namespace wetfront::cli {
+namespace {
+
+namespace obs = observations;
+
+std::string mm(double cm) { return number(cm * 10.0, 4); }
+
+std::string date_of(const SeasonModel& model, double day) {
+  return forcing::format_timestamp(forcing::time_after(model.site().run_start, std::round(day * 86400.0) / 86400.0)).substr(0, 10);
+}
+
+std::string header_of(const obs::AdjustableParameter& p) { return p.unit.empty() ? p.name : fmt::format("{} [{}]", p.name, p.unit); }
+
+std::string scale_text(const obs::AdjustableParameter& p) { return p.scale == obs::ParameterScale::log ? "log" : "linear"; }
+
+std::string metric(double value) { return std::isfinite(value) ? number(value, 4) : ""; }
+
+std::string plane_text(const SeasonModel& model) {
+  return fmt::format("the recharge plane at {} cm (positive downward)", number(model.site().recharge_plane_depth_cm));
+}
+
+constexpr const char* kCautions =
+    "\nCautions:\n"
+    "  - A parameter set that matches the tensiometers is not proven right: other sets, other model\n"
+    "    structure (preferential flow, hysteresis, lateral flow) or errors in the field records may\n"
+    "    match them as well. The bands below cover parameter uncertainty only, under the model's\n"
+    "    assumptions and the stated reading uncertainties.\n"
+    "  - Every recharge number here is an estimate. Decisions on water use, recharge or abstraction rest\n"
+    "    with local regulations and licensed professionals, not with this program.\n";
+
+}  // namespace
+
+std::string objective_text(const SeasonModel& model) {
+  const FitWeights& w = model.study().weights;
+  std::string text = fmt::format(
+      "Objective: sum of squared weighted residuals (simulated - observed) / uncertainty;\n"
+      "  {} tensiometer readings, uncertainty {} cm of water (weight 1/{}^2 per cm^2)",
+      model.compared_heads(), number(w.head_uncertainty_cm), number(w.head_uncertainty_cm));
+  if (w.water_content_uncertainty) {
+    text += fmt::format(";\n  {} probe readings, uncertainty {} cm3/cm3", model.compared_water_contents(),
+                        number(*w.water_content_uncertainty));
+  } else {
+    text += ";\n  probe readings are not compared (give [fit] water_content_uncertainty to include them)";
+  }
+  return text + "\n  Tensiometer readings beyond their working limit are left out.\n";
+}
+
+std::string parameters_text(const SeasonModel& model) {
+  std::string text = fmt::format("Adjustable parameters ({}):\n", model.study().parameters.size());
+  for (const auto& p : model.study().parameters) {
+    const auto& r = p.range;
+    text += fmt::format("  {}: {} to {}, {} scale, site value {}\n", r.name, parameter_value_text(r, r.lower),
+                        parameter_value_text(r, r.upper), scale_text(r), parameter_value_text(r, r.start));
+  }
+  return text;
+}
+
+ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep) {
+  ReportTable table;
+  table.headers = {"rank", "set"};
+  for (const auto& p : model.study().parameters) table.headers.push_back(header_of(p.range));
+  table.headers.insert(table.headers.end(), {"objective", "head RMSE [cm]", "head bias [cm]", "head NSE", "head KGE"});
+  const bool contents = model.study().weights.water_content_uncertainty.has_value();
+  if (contents) table.headers.insert(table.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
+  table.headers.push_back("season recharge [mm]");
+  for (const double end : model.interval_end_days()) table.headers.push_back(fmt::format("recharge to {} [mm]", date_of(model, end)));
+  table.headers.push_back("failure");
+  for (std::size_t rank = 0; rank < sweep.ranking.size(); ++rank) {
+    const ScoredRun& run = sweep.runs[sweep.ranking[rank]];
+    std::vector<std::string> row{std::to_string(rank + 1), std::to_string(sweep.ranking[rank] + 1)};
+    for (std::size_t k = 0; k < run.values.size(); ++k) row.push_back(number(run.values[k], 4));
+    if (run.complete) {
+      row.insert(row.end(), {number(run.objective, 5), metric(run.heads.root_mean_square_error), metric(run.heads.bias),
+                             metric(run.heads.nash_sutcliffe), metric(run.heads.kling_gupta)});
+      if (contents) row.insert(row.end(), {metric(run.water_contents->root_mean_square_error), metric(run.water_contents->bias)});
+      row.push_back(mm(run.season_recharge_cm));
+      for (const double v : run.visit_recharge_cm) row.push_back(mm(v));
+      row.push_back("");
+    } else {
+      const std::size_t blanks = 5 + (contents ? 2 : 0) + 1 + model.interval_end_days().size();
+      row.insert(row.end(), blanks, "");
+      row.push_back(run.failure);
+    }
+    table.add_row(std::move(row));
+  }
+  return table;
+}
+
+std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std::size_t shown, double seconds, unsigned threads) {
+  const SiteSetup& site = model.site();
+  std::string out = fmt::format("Parameter sweep: {}, {} to {}\n\n", site.name, site.run_start_text, site.run_end_text);
+  out += parameters_text(model) + "\n" + objective_text(model);
+  std::vector<double> per_run;
+  std::vector<double> complete_recharge;
+  std::size_t failed = 0;
+  for (const auto& run : sweep.runs) {
+    if (run.complete) complete_recharge.push_back(run.season_recharge_cm);
+    else ++failed;
+  }
+  out += fmt::format("\nSets: {}, {} runs in {:.1f} s on {} thread(s), {:.2f} s per run on average per thread\n", sweep.method,
+                     sweep.runs.size(), seconds, threads, sweep.runs.empty() ? 0.0 : seconds * threads / static_cast<double>(sweep.runs.size()));
+  ReportTable full = sweep_table(model, sweep);
+  ReportTable top;
+  top.title = fmt::format("Best {} of {} sets (lowest objective first); recharge across {}", std::min(shown, full.rows.size()),
+                          full.rows.size(), plane_text(model));
+  // The printed table keeps the parameter, fit and season columns; the CSV has every interval.
+  const std::size_t season_column = std::find(full.headers.begin(), full.headers.end(), "season recharge [mm]") - full.headers.begin();
+  top.headers.assign(full.headers.begin(), full.headers.begin() + static_cast<std::ptrdiff_t>(season_column + 1));
+  for (std::size_t i = 0; i < std::min(shown, full.rows.size()); ++i)
+    top.add_row({full.rows[i].begin(), full.rows[i].begin() + static_cast<std::ptrdiff_t>(season_column + 1)});
+  out += "\n" + format_table(top);
+  if (!complete_recharge.empty()) {
+    std::vector<double> best_tenth;
+    const std::size_t tenth = std::max<std::size_t>(1, complete_recharge.size() / 10);
+    for (std::size_t i = 0; i < tenth; ++i) best_tenth.push_back(sweep.runs[sweep.ranking[i]].season_recharge_cm);
+    const auto [low_all, high_all] = std::minmax_element(complete_recharge.begin(), complete_recharge.end());
+    const auto [low_best, high_best] = std::minmax_element(best_tenth.begin(), best_tenth.end());
+    out += fmt::format("\nSeason recharge: {} to {} mm over the best {} set(s) (the best tenth); {} to {} mm over all {} complete sets.\n",
+                       mm(*low_best), mm(*high_best), tenth, mm(*low_all), mm(*high_all), complete_recharge.size());
+  }
+  if (failed > 0) out += fmt::format("{} run(s) did not finish; they are ranked last with the reason in the CSV.\n", failed);
+  out += "A sweep shows which sets are consistent with the readings; it is not a probability distribution of recharge.\n";
+  return out + kCautions;
+}
+
+ReportTable calibration_recharge_table(const SeasonModel& model, const CalibrationStudy& study) {
+  ReportTable table;
+  table.title = fmt::format("Recharge across {}", plane_text(model));
+  table.headers = {"interval", "from", "to", "at start [mm]", "calibrated [mm]", "first-order 95% low [mm]",
+                   "first-order 95% high [mm]", "sampled 5% [mm]", "sampled median [mm]", "sampled 95% [mm]"};
+  const auto& ends = model.interval_end_days();
+  for (std::size_t i = 0; i <= ends.size(); ++i) {
+    // Row 0 is the season; row i the interval ending at ends[i - 1].
+    const bool season = i == 0;
+    const double from = season || i == 1 ? 0.0 : ends[i - 2];
+    const double to = season ? ends.back() : ends[i - 1];
+    const auto value = [&](const ScoredRun& run) {
+      if (!run.complete) return std::string();
+      return mm(season ? run.season_recharge_cm : run.visit_recharge_cm.at(i - 1));
+    };
+    std::vector<std::string> row{season ? "season" : std::to_string(i), date_of(model, from), date_of(model, to),
+                                 value(study.before), value(study.after)};
+    if (i < study.first_order.size()) {
+      row.push_back(mm(study.first_order[i].lower));
+      row.push_back(mm(study.first_order[i].upper));
+    } else {
+      row.insert(row.end(), 2, "");
+    }
+    if (i < study.band.size()) {
+      row.insert(row.end(), {mm(study.band[i].p5), mm(study.band[i].p50), mm(study.band[i].p95)});
+    } else {
+      row.insert(row.end(), 3, "");
+    }
+    table.add_row(std::move(row));
+  }
+  return table;
+}
+
+std::string calibration_report(const SeasonModel& model, const CalibrationStudy& study, double seconds, unsigned threads) {
+  const SiteSetup& site = model.site();
+  const obs::CalibrationResult& fit = study.fit;
+  std::string out = fmt::format("Calibration: {}, {} to {}\n\n", site.name, site.run_start_text, site.run_end_text);
+  out += parameters_text(model) + "\n" + objective_text(model);
+  out += fmt::format("\nLevenberg-Marquardt on the search scale (log10 for log parameters): {} after {} iteration(s),\n"
+                     "{} model runs in {:.1f} s on {} thread(s).\n",
+                     fit.stop_reason, fit.iterations, fit.runs, seconds, threads);
+  ReportTable parameters;
+  parameters.title = "Parameters (standard errors on the search scale; the 95% range is best +- 1.96 standard errors, mapped back)";
+  parameters.headers = {"parameter", "unit", "scale", "start", "calibrated", "standard error", "95% low", "95% high"};
+  for (std::size_t k = 0; k < fit.parameters.size(); ++k) {
+    const auto& p = fit.parameters[k];
+    const auto e = static_cast<Eigen::Index>(k);
+    const double se = fit.standard_errors.size() > e ? fit.standard_errors[e] : NAN;
+    std::string low, high;
+    if (std::isfinite(se)) {
+      const double lo = std::max(to_search_scale(p, p.lower), fit.best_search[e] - 1.959964 * se);
+      const double hi = std::min(to_search_scale(p, p.upper), fit.best_search[e] + 1.959964 * se);
+      low = number(from_search_scale(p, lo), 4);
+      high = number(from_search_scale(p, hi), 4);
+    }
+    parameters.add_row({p.name, p.unit, scale_text(p), number(fit.start[k], 4), number(fit.best[k], 4),
+                        std::isfinite(se) ? number(se, 3) : "unavailable", low, high});
+  }
+  out += "\n" + format_table(parameters);
+  if (fit.correlation.size() > 0 && fit.parameters.size() > 1) {
+    ReportTable correlation;
+    correlation.title = "Correlation of the calibrated parameters";
+    correlation.headers = {"parameter"};
+    for (const auto& p : fit.parameters) correlation.headers.push_back(p.name);
+    for (std::size_t a = 0; a < fit.parameters.size(); ++a) {
+      std::vector<std::string> row{fit.parameters[a].name};
+      for (std::size_t b = 0; b < fit.parameters.size(); ++b)
+        row.push_back(fmt::format("{:.3f}", fit.correlation(static_cast<Eigen::Index>(a), static_cast<Eigen::Index>(b))));
+      correlation.add_row(std::move(row));
+    }
+    out += "\n" + format_table(correlation);
+  } else if (fit.correlation.size() == 0) {
+    out += fmt::format("\nNo standard errors or correlations: {}\n", fit.covariance_note);
+  }
+  ReportTable residuals;
+  residuals.title = "Fit to the readings";
+  residuals.headers = {"", "objective", "head RMSE [cm]", "head bias [cm]", "head NSE", "head KGE"};
+  for (const auto* run : {&study.before, &study.after}) {
+    residuals.add_row({run == &study.before ? "at start" : "calibrated", number(run->objective, 5),
+                       metric(run->heads.root_mean_square_error), metric(run->heads.bias), metric(run->heads.nash_sutcliffe),
+                       metric(run->heads.kling_gupta)});
+  }
+  out += "\n" + format_table(residuals);
+  if (fit.residual_count() > static_cast<int>(fit.parameters.size())) {
+    const double s2 = study.after.objective / (fit.residual_count() - static_cast<int>(fit.parameters.size()));
+    out += fmt::format("Residual variance per reading {:.3g} (1 when the stated uncertainties describe the misfit; above 1 the\n"
+                       "model or the readings differ by more, and the standard errors have been scaled up by its square root).\n",
+                       s2);
+  }
+  if (!fit.warnings.empty()) {
+    out += "\nWarnings:\n";
+    for (const auto& w : fit.warnings) out += fmt::format("  - {}\n", w);
+  }
+  out += "\n" + format_table(calibration_recharge_table(model, study));
+  if (!study.band_note.empty()) out += study.band_note + "\n";
+  if (!study.band.empty())
+    out += fmt::format("Sampled band: {} parameter sets drawn from the calibrated covariance ({} ran to the end, {} failed).\n",
+                       study.band_runs_complete + study.band_runs_failed, study.band_runs_complete, study.band_runs_failed);
+  if (!study.first_order.empty()) {
+    const auto& season = study.first_order.front();
+    std::vector<std::size_t> order(fit.parameters.size());
+    for (std::size_t k = 0; k < order.size(); ++k) order[k] = k;
+    std::sort(order.begin(), order.end(),
+              [&](std::size_t a, std::size_t b) { return std::abs(season.variance_share[a]) > std::abs(season.variance_share[b]); });
+    out += fmt::format("What drives the season band (first-order share of its variance; sd {} mm):", mm(season.standard_deviation));
+    for (const std::size_t k : order) out += fmt::format(" {} {:.0f}%;", fit.parameters[k].name, 100 * season.variance_share[k]);
+    out.back() = '\n';
+  }
+  return out + kCautions;
+}
+
+}  // namespace wetfront::cli

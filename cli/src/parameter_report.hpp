@@ -1,0 +1,29 @@
+// The printed reports and CSV tables of `wetfront sweep` and `wetfront calibrate`.
+#pragma once
+
+#include <string>
+
+#include "parameter_study.hpp"
+#include "report_table.hpp"
+
+namespace wetfront::cli {
+
+// What the objective compares, with the weights and reading counts.
+std::string objective_text(const SeasonModel& model);
+
+// The adjustable parameters with their ranges, scales and site values.
+std::string parameters_text(const SeasonModel& model);
+
+// Every run, best first: rank, set number, values, objective, metrics, season and per-visit
+// recharge (mm).
+ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep);
+
+// The printed sweep report: the first `shown` rows of the table and a recharge summary.
+std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std::size_t shown, double seconds, unsigned threads);
+
+// Per interval: calibrated recharge, first-order interval and sampled band (mm).
+ReportTable calibration_recharge_table(const SeasonModel& model, const CalibrationStudy& study);
+
+std::string calibration_report(const SeasonModel& model, const CalibrationStudy& study, double seconds, unsigned threads);
+
+}  // namespace wetfront::cli

@@ -1,0 +1,53 @@
+#include "file_save.hpp"
+
+#include <fcntl.h>
+#include <fmt/format.h>
+#include <unistd.h>
+
+#include <atomic>
+#include <cerrno>
+#include <system_error>
+
+namespace wetfront::profiles {
+namespace {
+
+std::filesystem::path temporary_path_for(const std::filesystem::path& path) {
+  static std::atomic<unsigned> counter{0};
+  const std::string name = fmt::format(".{}.{}-{}.partial", path.filename().string(), getpid(), counter++);
+  return path.parent_path() / name;
+}
+
+// Writes all bytes to a new file and forces them to the disk before it takes its final name.
+void write_new_file(const std::filesystem::path& path, const std::vector<char>& bytes) {
+  const int descriptor = open(path.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0644);
+  if (descriptor < 0)
+    throw std::system_error(errno, std::generic_category(), fmt::format("creating '{}'", path.string()));
+  std::size_t written = 0;
+  int error = 0;
+  while (written < bytes.size() && error == 0) {
+    const ssize_t count = write(descriptor, bytes.data() + written, bytes.size() - written);
+    if (count > 0) written += static_cast<std::size_t>(count);
+    else if (count < 0 && errno != EINTR) error = errno;
+  }
+  if (error == 0 && fsync(descriptor) != 0) error = errno;
+  if (close(descriptor) != 0 && error == 0) error = errno;
+  if (error != 0)
+    throw std::system_error(error, std::generic_category(),
+                            fmt::format("writing '{}' ({} of {} bytes written)", path.string(), written, bytes.size()));
+}
+
+}  // namespace
+
+void save_file_image(const std::filesystem::path& path, const std::vector<char>& bytes) {
+  const std::filesystem::path temporary = temporary_path_for(path);
+  try {
+    write_new_file(temporary, bytes);
+    std::filesystem::rename(temporary, path);
+  } catch (...) {
+    std::error_code ignored;
+    std::filesystem::remove(temporary, ignored);
+    throw;
+  }
+}
+
+}  // namespace wetfront::profiles
