@@ -9,6 +9,9 @@ add_library(wetfront_site STATIC
   src/season_setup.cpp
   src/sensor_readings.cpp
   src/sensor_check.cpp
+  src/well_core_readings.cpp
+  src/water_table_check.cpp
+  src/field_check_record.cpp
   src/csv_table.cpp
   src/quantity.cpp
   src/input_error.cpp
@@ -21,5 +24,5 @@ target_link_libraries(wetfront_site
   PUBLIC wetfront_soils wetfront_forcing wetfront_solver wetfront_profiles wetfront_observations tomlplusplus::tomlplusplus fmt::fmt
   PRIVATE wetfront_warnings)
 
-target_sources(wetfront PRIVATE src/season_commands.cpp src/season_report.cpp src/parameter_commands.cpp src/parameter_report.cpp)
+target_sources(wetfront PRIVATE src/season_commands.cpp src/season_report.cpp src/parameter_commands.cpp src/parameter_report.cpp src/sensor_report.cpp)
 target_link_libraries(wetfront PRIVATE wetfront_site wetfront_forcing wetfront_solver wetfront_profiles Threads::Threads)

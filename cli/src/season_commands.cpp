@@ -14,6 +14,7 @@
 #include "season_report.hpp"
 #include "season_setup.hpp"
 #include "sensor_check.hpp"
+#include "sensor_report.hpp"
 #include "site_file.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/soils/texture_classes.hpp"
@@ -31,6 +32,12 @@ std::filesystem::path default_output(const std::filesystem::path& site_file) {
 std::filesystem::path visits_csv_path(const std::filesystem::path& run_file) {
   std::filesystem::path csv = run_file;
   csv.replace_filename(run_file.stem().string() + "-visits.csv");
+  return csv;
+}
+
+std::filesystem::path sensors_csv_path(const std::filesystem::path& run_file) {
+  std::filesystem::path csv = run_file;
+  csv.replace_filename(run_file.stem().string() + "-sensors.csv");
   return csv;
 }
 
@@ -153,7 +160,8 @@ void add_run_command(CLI::App& app) {
   cmd->add_option("--to", options->to, "end the run on this date instead (YYYY-MM-DD)");
   cmd->add_flag("--quiet", options->quiet, "print only errors; no report and no progress line");
   cmd->footer(
-      "Writes the run file and, next to it, NAME-visits.csv with the balance per visit interval.\n"
+      "Writes the run file and, next to it, NAME-visits.csv with the balance per visit interval and, with\n"
+      "sensor readings, NAME-sensors.csv with the fit metrics per sensor.\n"
       "Exit codes: 0 done, 1 bad input (nothing written), 2 solver failure (partial run file marked incomplete).\n"
       "Example:\n  wetfront run examples/demo/site.toml --out season.h5");
   cmd->callback([options] {
@@ -168,15 +176,20 @@ void add_run_command(CLI::App& app) {
     profiles::RunRecord record = make_record(season, std::move(run), WETFRONT_VERSION);
     const SensorCheck sensors = check_sensors(season, season.sensor_readings, record);
     if (!season.sensor_readings.empty()) record.sensor_comparison = comparison_record(sensors, season.sensor_readings, record.run);
+    store_field_checks(sensors, record);
     try {
       profiles::write_run(out, record);
     } catch (const profiles::RunFileError& error) {
       throw InputError(error.what());
     }
     write_csv(visit_balance_table(record, &sensors), visits_csv_path(out).string());
+    const bool metrics = !sensors.sensors.empty() || !sensors.pooled.empty();
+    if (metrics) write_csv(sensor_metrics_table(sensors), sensors_csv_path(out).string());
     if (!options->quiet) {
       fmt::print("{}", season_report(record, season_notes(season), &sensors));
-      fmt::print("\nRun time {:.2f} s. Wrote {} and {}\n", seconds, out.string(), visits_csv_path(out).string());
+      fmt::print("\nRun time {:.2f} s. Wrote {}{} and {}\n", seconds, out.string(),
+                 metrics ? fmt::format(", {}", visits_csv_path(out).string()) : std::string(),
+                 (metrics ? sensors_csv_path(out) : visits_csv_path(out)).string());
     }
     if (!complete) {
       const auto& failure = record.run.failure;
@@ -214,11 +227,13 @@ void add_show_command(CLI::App& app) {
   struct Options {
     std::string run_file;
     std::string csv;
+    std::string sensors_csv;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = app.add_subcommand("show", "Print the report of a finished run again from its HDF5 run file");
   cmd->add_option("RUN", options->run_file, "run file written by `wetfront run`")->required();
   cmd->add_option("--csv", options->csv, "also write the balance per visit interval to this CSV file");
+  cmd->add_option("--sensors-csv", options->sensors_csv, "also write the fit metrics per sensor and pooled to this CSV file");
   cmd->footer("Example:\n  wetfront show examples/demo/site.h5");
   cmd->callback([options] {
     profiles::RunRecord record;
@@ -228,9 +243,18 @@ void add_show_command(CLI::App& app) {
       throw InputError(error.what());
     }
     std::optional<SensorCheck> sensors;
-    if (record.sensor_comparison) sensors = check_from_record(*record.sensor_comparison);
+    if (record.sensor_comparison || record.darcy_estimate || record.water_table_estimate || record.stored_water) {
+      sensors = check_from_record(record);
+    }
+    if (!options->sensors_csv.empty()) {
+      if (!sensors || (sensors->sensors.empty() && sensors->pooled.empty())) {
+        throw InputError(fmt::format("{}: the run file holds no sensor comparison, so there are no fit metrics for {}",
+                                     options->run_file, options->sensors_csv));
+      }
+    }
     fmt::print("{}", season_report(record, {}, sensors ? &*sensors : nullptr));
-    if (!options->csv.empty()) write_csv(visit_balance_table(record), options->csv);
+    if (!options->csv.empty()) write_csv(visit_balance_table(record, sensors ? &*sensors : nullptr), options->csv);
+    if (!options->sensors_csv.empty()) write_csv(sensor_metrics_table(*sensors), options->sensors_csv);
   });
 }
 

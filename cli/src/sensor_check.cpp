@@ -26,12 +26,23 @@ obs::SimulatedProfiles simulated(const solver::ColumnRun& run, bool heads) {
   return profiles;
 }
 
-void compare_kind(const std::vector<SensorRecord>& readings, const solver::ColumnRun& run, bool heads, SensorCheck& check,
+bool compares(const SensorRecord& r, bool heads) {
+  return r.quantity == (heads ? kPressureHead : kWaterContent);
+}
+
+std::string pooled_name(const std::vector<const SensorRecord*>& records, bool heads) {
+  if (heads) return "all tensiometers";
+  bool probes = false, cores = false;
+  for (const auto* r : records) (r->kind == kCoreSamples ? cores : probes) = true;
+  return probes && cores ? "all probes and cores" : cores ? "all core samples" : "all probes";
+}
+
+void compare_kind(const std::vector<SensorRecord>& compared, const solver::ColumnRun& run, bool heads, SensorCheck& check,
                   std::vector<std::size_t>& order) {
   std::vector<obs::SensorSeries> series;
   std::vector<const SensorRecord*> records;
-  for (const auto& r : readings) {
-    if ((r.kind == "tensiometer") != heads) continue;
+  for (const auto& r : compared) {
+    if (!compares(r, heads)) continue;
     series.push_back(r.series);
     records.push_back(&r);
   }
@@ -41,26 +52,10 @@ void compare_kind(const std::vector<SensorRecord>& readings, const solver::Colum
     const SensorRecord& r = *records[i];
     check.sensors.push_back({r.name, r.kind, r.depth_cm, r.quantity, r.unit, report.sensors[i].metrics,
                              report.sensors[i].unreliable_left_out, report.sensors[i].outside_simulation});
-    order.push_back(static_cast<std::size_t>(&r - readings.data()));
+    order.push_back(static_cast<std::size_t>(&r - compared.data()));
   }
-  check.pooled.push_back({heads ? "all tensiometers" : "all probes", "", std::numeric_limits<double>::quiet_NaN(),
-                          records.front()->quantity, records.front()->unit, report.overall, report.unreliable_left_out,
-                          report.outside_simulation});
-}
-
-// The reliable reading within the window of `day` nearest to it.
-const obs::Observation* reading_near(const SensorRecord& r, double day) {
-  const obs::Observation* best = nullptr;
-  double distance = kVisitReadingWindowDays;
-  for (const auto& o : r.series.observations) {
-    if (!o.reliable) continue;
-    const double d = std::abs(o.day - day);
-    if (d <= distance) {
-      distance = d;
-      best = &o;
-    }
-  }
-  return best;
+  check.pooled.push_back({pooled_name(records, heads), "", std::numeric_limits<double>::quiet_NaN(), records.front()->quantity,
+                          records.front()->unit, report.overall, report.unreliable_left_out, report.outside_simulation});
 }
 
 // The head of a reliable reading within the window of `day`, the nearest one.
@@ -104,12 +99,8 @@ std::optional<DarcyCheck> darcy_check(const Season& season, const std::vector<Se
       if (hu && hl) ends.push_back({day, *hu, *hl});
     }
     if (ends.size() == 2) {
-      interval.darcy_cm = obs::darcy_recharge(tensiometers, ends).front().amount_cm;
-      const auto agreement = obs::compare_recharge_estimates(interval.model_cm, *interval.darcy_cm,
-                                                             {kAgreementFactor, kNegligibleRechargeCm});
-      interval.disagree = agreement.disagree;
-      interval.ratio = agreement.ratio;
-      interval.reasons = agreement.reasons_to_consider;
+      interval.estimate_cm = obs::darcy_recharge(tensiometers, ends).front().amount_cm;
+      compare_with_model(interval);
     } else {
       interval.missing = fmt::format("no reliable reading of both {} and {} within {} d of a visit", upper->name, lower->name,
                                      kVisitReadingWindowDays);
@@ -121,44 +112,138 @@ std::optional<DarcyCheck> darcy_check(const Season& season, const std::vector<Se
 
 }  // namespace
 
+const obs::Observation* reading_near(const SensorRecord& r, double day) {
+  const obs::Observation* best = nullptr;
+  double distance = kVisitReadingWindowDays;
+  for (const auto& o : r.series.observations) {
+    if (!o.reliable) continue;
+    const double d = std::abs(o.day - day);
+    if (d <= distance) {
+      distance = d;
+      best = &o;
+    }
+  }
+  return best;
+}
+
+
+void compare_with_model(EstimateInterval& interval) {
+  if (!interval.estimate_cm) return;
+  const auto agreement =
+      obs::compare_recharge_estimates(interval.model_cm, *interval.estimate_cm, {kAgreementFactor, kNegligibleRechargeCm});
+  interval.disagree = agreement.disagree;
+  interval.ratio = agreement.ratio;
+  interval.reasons = agreement.reasons_to_consider;
+}
+
+namespace {
+
+// The series compared with the model: tensiometers and probes as they are, core samples split
+// into one series per depth ("NAME at 30 cm"), wells left out (they give the water table).
+std::vector<SensorRecord> compared_series(const std::vector<SensorRecord>& readings) {
+  std::vector<SensorRecord> compared;
+  for (const auto& r : readings) {
+    if (r.kind == kObservationWell) continue;
+    if (r.kind != kCoreSamples) {
+      compared.push_back(r);
+      continue;
+    }
+    std::vector<double> depths;
+    for (const auto& o : r.series.observations) depths.push_back(o.depth_cm);
+    std::sort(depths.begin(), depths.end());
+    depths.erase(std::unique(depths.begin(), depths.end()), depths.end());
+    for (const double depth : depths) {
+      SensorRecord one = r;
+      one.name = fmt::format("{} at {} cm", r.name, depth);
+      one.depth_cm = depth;
+      one.series.name = one.name;
+      one.series.observations.clear();
+      one.lines.clear();
+      for (std::size_t k = 0; k < r.series.observations.size(); ++k) {
+        if (r.series.observations[k].depth_cm != depth) continue;
+        one.series.observations.push_back(r.series.observations[k]);
+        if (k < r.lines.size()) one.lines.push_back(r.lines[k]);
+      }
+      compared.push_back(std::move(one));
+    }
+  }
+  return compared;
+}
+
+std::vector<double> distinct_depths(const std::vector<const SensorRecord*>& records) {
+  std::vector<double> depths;
+  for (const auto* r : records) {
+    if (r->kind == kCoreSamples) {
+      for (const auto& o : r->series.observations) depths.push_back(o.depth_cm);
+    } else {
+      depths.push_back(r->depth_cm);
+    }
+  }
+  std::sort(depths.begin(), depths.end());
+  depths.erase(std::unique(depths.begin(), depths.end()), depths.end());
+  return depths;
+}
+
+// The readings at `depth` that count for a visit on `day`: the nearest reading of every probe
+// there within the window; when none of them has one, every core sample at that depth within
+// the window.
+std::vector<const obs::Observation*> readings_at(const std::vector<const SensorRecord*>& probes,
+                                                 const std::vector<const SensorRecord*>& cores, double depth, double day) {
+  std::vector<const obs::Observation*> found;
+  for (const SensorRecord* p : probes) {
+    if (p->depth_cm != depth) continue;
+    if (const obs::Observation* o = reading_near(*p, day)) found.push_back(o);
+  }
+  if (!found.empty()) return found;
+  for (const SensorRecord* c : cores) {
+    for (const auto& o : c->series.observations) {
+      if (o.depth_cm == depth && std::abs(o.day - day) <= kVisitReadingWindowDays) found.push_back(&o);
+    }
+  }
+  return found;
+}
+
+}  // namespace
+
 StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record) {
   StorageCheck check;
-  std::vector<const SensorRecord*> probes;
+  std::vector<const SensorRecord*> probes, cores;
   for (const auto& r : readings) {
-    if (r.kind == "tensiometer") continue;
-    probes.push_back(&r);
-    check.probe_names.push_back(r.name);
-    check.depths_cm.push_back(r.depth_cm);
+    if (r.kind == kWaterContentProbe) probes.push_back(&r);
+    if (r.kind == kCoreSamples) cores.push_back(&r);
   }
-  std::sort(check.depths_cm.begin(), check.depths_cm.end());
-  check.depths_cm.erase(std::unique(check.depths_cm.begin(), check.depths_cm.end()), check.depths_cm.end());
+  check.depths_cm = distinct_depths(probes);
+  if (check.depths_cm.size() < 2 && distinct_depths(cores).size() >= 2) check.depths_cm = distinct_depths(cores);
+  for (const auto* p : probes) check.probe_names.push_back(p->name);
+  for (const auto* c : cores) {
+    const bool helps = std::any_of(c->series.observations.begin(), c->series.observations.end(), [&](const auto& o) {
+      return std::find(check.depths_cm.begin(), check.depths_cm.end(), o.depth_cm) != check.depths_cm.end();
+    });
+    if (helps) check.probe_names.push_back(c->name);
+  }
   if (!check.usable() || record.visit_balance.empty()) return check;
 
   const bool simulated_available = record.run.profiles.size() >= 2;
   const obs::SimulatedProfiles profiles = simulated_available ? simulated(record.run, false) : obs::SimulatedProfiles{};
-  // The storage at one visit: at each depth the mean of the probes there (nearest reading
-  // within the window), and the model at the same reading times and depths.
+  // The storage at one visit: at each depth the mean of the readings there, and the model at
+  // the same reading times and depths.
   auto storage_at = [&](double day) {
     StorageVisit visit{day, std::nullopt, std::nullopt};
     std::vector<double> observed, modelled;
     bool model_complete = simulated_available;
     for (const double depth : check.depths_cm) {
+      const auto found = readings_at(probes, cores, depth, day);
+      if (found.empty()) return visit;  // a depth without a reading: no storage at this visit
       double sum_observed = 0, sum_model = 0;
-      int count = 0;
-      for (const SensorRecord* p : probes) {
-        if (p->depth_cm != depth) continue;
-        const obs::Observation* o = reading_near(*p, day);
-        if (!o) return visit;  // a depth without a reading: no storage at this visit
+      for (const obs::Observation* o : found) {
         sum_observed += o->value;
-        if (model_complete) {
-          const auto value = obs::simulated_value_at(profiles, o->day, o->depth_cm);
-          if (value) sum_model += *value;
-          else model_complete = false;
-        }
-        ++count;
+        if (!model_complete) continue;
+        const auto value = obs::simulated_value_at(profiles, o->day, depth);
+        if (value) sum_model += *value;
+        else model_complete = false;
       }
-      observed.push_back(sum_observed / count);
-      modelled.push_back(sum_model / count);
+      observed.push_back(sum_observed / static_cast<double>(found.size()));
+      modelled.push_back(sum_model / static_cast<double>(found.size()));
     }
     visit.observed_cm = obs::profile_storage_cm(check.depths_cm, observed);
     if (model_complete) visit.simulated_cm = obs::profile_storage_cm(check.depths_cm, modelled);
@@ -180,18 +265,20 @@ StorageCheck check_storage(const std::vector<SensorRecord>& readings, const prof
 
 SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings, const profiles::RunRecord& record) {
   SensorCheck check;
+  const std::vector<SensorRecord> compared = compared_series(readings);
   std::vector<std::size_t> order;
-  compare_kind(readings, record.run, true, check, order);
-  compare_kind(readings, record.run, false, check, order);
+  compare_kind(compared, record.run, true, check, order);
+  compare_kind(compared, record.run, false, check, order);
   // Back to site-file order.
   std::vector<SensorFitRow> rows;
-  for (std::size_t index = 0; index < readings.size(); ++index) {
+  for (std::size_t index = 0; index < compared.size(); ++index) {
     for (std::size_t k = 0; k < order.size(); ++k) {
       if (order[k] == index) rows.push_back(check.sensors[k]);
     }
   }
   check.sensors = std::move(rows);
   check.darcy = darcy_check(season, readings, record);
+  check.water_table = check_water_table(season, readings, record);
   check.storage = check_storage(readings, record);
   return check;
 }
@@ -199,11 +286,12 @@ SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>&
 profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
                                                    const solver::ColumnRun& run) {
   profiles::SensorComparisonRecord stored;
+  const std::vector<SensorRecord> compared = compared_series(readings);
   for (const bool heads : {true, false}) {
     if (run.profiles.size() < 2) break;
     const obs::SimulatedProfiles profiles = simulated(run, heads);
-    for (const auto& r : readings) {
-      if ((r.kind == "tensiometer") != heads) continue;
+    for (const auto& r : compared) {
+      if (!compares(r, heads)) continue;
       for (const auto& o : r.series.observations) {
         const auto value = obs::simulated_value_at(profiles, o.day, o.depth_cm);
         (heads ? stored.pressure_head : stored.water_content)
@@ -220,20 +308,6 @@ profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, con
   for (const auto& row : check.sensors) add(row);
   for (const auto& row : check.pooled) add(row);
   return stored;
-}
-
-SensorCheck check_from_record(const profiles::SensorComparisonRecord& stored) {
-  SensorCheck check;
-  for (const auto& m : stored.metrics) {
-    SensorFitRow row{m.name, "", m.depth_cm, m.quantity, m.unit, {}, m.left_out_beyond_working_limit, m.left_out_outside_run};
-    row.metrics.count = m.readings_used;
-    row.metrics.bias = m.bias;
-    row.metrics.root_mean_square_error = m.root_mean_square_error;
-    row.metrics.nash_sutcliffe = m.nash_sutcliffe;
-    row.metrics.kling_gupta = m.kling_gupta;
-    (std::isnan(m.depth_cm) ? check.pooled : check.sensors).push_back(std::move(row));
-  }
-  return check;
 }
 
 }  // namespace wetfront::cli

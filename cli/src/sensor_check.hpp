@@ -1,6 +1,6 @@
 // The sensors against the model after a run: fit metrics per sensor and pooled per quantity,
-// and per visit interval the Darcy estimate from a tensiometer pair beside the model's
-// drainage at the recharge plane.
+// and per visit interval the Darcy estimate from a tensiometer pair and the water-table-
+// fluctuation estimate from a well beside the model's drainage at the recharge plane.
 #pragma once
 
 #include <optional>
@@ -25,22 +25,35 @@ struct SensorFitRow {
   int outside_run = 0;           // left out: before the start or after the end reached
 };
 
-struct DarcyInterval {
+// One visit interval of a recharge estimate from field data beside the model's drainage.
+struct EstimateInterval {
   double start_day = 0;
   double end_day = 0;
   double model_cm = 0;                 // drainage at the recharge plane over the interval
-  std::optional<double> darcy_cm;      // empty when a visit has no usable reading of the pair
+  std::optional<double> estimate_cm;   // empty when a visit has no usable reading
   std::string missing;                 // why there is no estimate
   bool disagree = false;
   double ratio = 0;
   std::vector<std::string> reasons;
+  // Water-table fluctuation only: the water-table depth read at the interval's ends.
+  std::optional<double> start_level_cm, end_level_cm;
 };
+using DarcyInterval = EstimateInterval;
 
 struct DarcyCheck {
   std::string upper_name, lower_name;
   double upper_depth_cm = 0, lower_depth_cm = 0;
   std::string soil_note;               // which layer's hydraulic model gives K
-  std::vector<DarcyInterval> intervals;
+  std::vector<EstimateInterval> intervals;
+};
+
+// Water-table fluctuation (Healy & Cook 2002) from an observation well, per visit interval.
+struct WaterTableCheck {
+  std::string well;
+  double specific_yield = 0;
+  double recession_cm_per_d = 0;
+  std::string specific_yield_note;
+  std::vector<EstimateInterval> intervals;
 };
 
 // Water stored between the shallowest and the deepest probe at each visit, from the probe
@@ -59,8 +72,8 @@ struct StorageInterval {
 };
 
 struct StorageCheck {
-  std::vector<double> depths_cm;       // distinct probe depths, increasing
-  std::vector<std::string> probe_names;
+  std::vector<double> depths_cm;       // distinct probe depths (or core depths without two probe depths), increasing
+  std::vector<std::string> probe_names;  // probes, then core-sample entries that give readings at these depths
   std::vector<StorageVisit> visits;    // the run start and every visit
   std::vector<StorageInterval> intervals;  // one per visit interval
   bool usable() const { return depths_cm.size() >= 2; }
@@ -70,7 +83,8 @@ struct SensorCheck {
   std::vector<SensorFitRow> sensors;   // one per sensor, in site-file order
   std::vector<SensorFitRow> pooled;    // per quantity present
   std::optional<DarcyCheck> darcy;
-  std::optional<StorageCheck> storage;  // set by check_sensors; not stored in the run file
+  std::optional<WaterTableCheck> water_table;
+  std::optional<StorageCheck> storage;  // set by check_sensors
 };
 
 // Readings nearer than this to an interval's end visit are taken as read at the visit.
@@ -79,17 +93,36 @@ inline constexpr double kVisitReadingWindowDays = 1.0;
 inline constexpr double kAgreementFactor = 2.0;
 inline constexpr double kNegligibleRechargeCm = 0.01;  // 0.1 mm
 
-// The stored-water comparison alone (check_sensors calls it). With fewer than two probe depths
+// The stored-water comparison alone (check_sensors calls it). The depths are those of the
+// probes; at a visit where no probe at a depth has a reading, core samples taken at that depth
+// stand in. Without probes at two depths the core depths are used. With fewer than two depths
 // only depths_cm and probe_names are filled.
 StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record);
 
 SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings, const profiles::RunRecord& record);
 
+// Per visit interval the water-table-fluctuation estimate from the first observation well,
+// or nothing without a well.
+std::optional<WaterTableCheck> check_water_table(const Season& season, const std::vector<SensorRecord>& readings,
+                                                 const profiles::RunRecord& record);
+
+// The reliable reading of `r` within kVisitReadingWindowDays of `day`, the nearest one.
+const observations::Observation* reading_near(const SensorRecord& r, double day);
+
+// Flags an interval whose estimate differs from the model's drainage (kAgreementFactor,
+// kNegligibleRechargeCm) and fills its reasons.
+void compare_with_model(EstimateInterval& interval);
+
 // The readings beside the simulated values, and the metrics, for the run file.
 profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
                                                    const solver::ColumnRun& run);
 
-// The metrics back from a run file (no Darcy estimates or stored water: those are not stored).
-SensorCheck check_from_record(const profiles::SensorComparisonRecord& stored);
+// Puts the Darcy and water-table estimates and the stored water into the record (its
+// optionals stay empty for the checks the site does not have). field_check_record.cpp.
+void store_field_checks(const SensorCheck& check, profiles::RunRecord& record);
+
+// Everything `run` reported about the sensors, back from a run file: metrics, Darcy and
+// water-table estimates (agreement recomputed from the stored amounts), stored water.
+SensorCheck check_from_record(const profiles::RunRecord& record);
 
 }  // namespace wetfront::cli

@@ -36,6 +36,8 @@ double number_at(const CsvTable& table, std::size_t row, std::size_t column) {
 }
 
 SensorRecord read_one(const SensorSetup& sensor, forcing::TimePoint run_start) {
+  if (sensor.kind == kObservationWell) return read_well_levels(sensor, run_start);
+  if (sensor.kind == kCoreSamples) return read_core_samples(sensor, run_start);
   const CsvTable table = CsvTable::read(sensor.readings.string());
   SensorRecord record;
   record.name = sensor.name;

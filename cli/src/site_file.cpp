@@ -474,22 +474,39 @@ void read_pan(const SiteTable& root, const std::filesystem::path& folder, SiteSe
 // --- [[sensor]] --------------------------------------------------------------------------
 
 void read_sensors(const SiteTable& root, const std::filesystem::path& folder, double column_depth_cm, SiteSetup& site) {
-  static constexpr std::array<std::string_view, 7> keys = {"name", "kind", "depth", "readings", "gauge_height", "working_limit", "note"};
-  static constexpr std::array<std::string_view, 2> kinds = {"tensiometer", "water content probe"};
+  static constexpr std::array<std::string_view, 10> keys = {"name",           "kind",           "depth",
+                                                            "readings",       "gauge_height",   "working_limit",
+                                                            "specific_yield", "specific_yield_source", "recession_rate",
+                                                            "note"};
+  static constexpr std::array<std::string_view, 4> kinds = {"tensiometer", "water content probe", "observation well", "core samples"};
   for (const auto& table : root.table_array("sensors")) {
     table.only_keys(keys);
     SensorSetup sensor;
     sensor.name = table.text("name");
     sensor.kind = table.choice("kind", kinds);
-    sensor.depth_cm = table.quantity("depth", Dimension::length);
-    if (!(sensor.depth_cm > 0 && sensor.depth_cm < column_depth_cm)) {
-      table.fail("depth", fmt::format("{} cm is not inside the column (0 to {} cm, the bottom of the last layer)",
-                                      sensor.depth_cm, column_depth_cm));
+    const bool tensiometer = sensor.kind == "tensiometer";
+    const bool well = sensor.kind == "observation well";
+    const bool cores = sensor.kind == "core samples";
+    if (well || cores) {
+      // Their readings give the depth of every value: the water table, or each core.
+      if (table.has("depth")) {
+        table.fail("depth", fmt::format("a{} takes no depth: {}", well ? "n observation well" : " core-samples entry",
+                                        well ? "its readings give the depth to water" : "each row of its file gives the core's depth"));
+      }
+    } else {
+      sensor.depth_cm = table.quantity("depth", Dimension::length);
+      if (!(sensor.depth_cm > 0 && sensor.depth_cm < column_depth_cm)) {
+        table.fail("depth", fmt::format("{} cm is not inside the column (0 to {} cm, the bottom of the last layer)",
+                                        sensor.depth_cm, column_depth_cm));
+      }
     }
     sensor.readings = existing_file(table, "readings", folder);
-    const bool tensiometer = sensor.kind == "tensiometer";
     for (const std::string_view key : {std::string_view("gauge_height"), std::string_view("working_limit")}) {
       if (!tensiometer && table.has(key)) table.fail(key, "only a tensiometer takes this key");
+    }
+    for (const std::string_view key : {std::string_view("specific_yield"), std::string_view("specific_yield_source"),
+                                       std::string_view("recession_rate")}) {
+      if (!well && table.has(key)) table.fail(key, "only an observation well takes this key");
     }
     if (tensiometer) {
       sensor.gauge_height_cm = table.optional_quantity("gauge_height", Dimension::length);
@@ -497,6 +514,22 @@ void read_sensors(const SiteTable& root, const std::filesystem::path& folder, do
       if (const auto limit = table.optional_quantity("working_limit", Dimension::pressure_head)) {
         if (!(*limit > 0)) table.fail("working_limit", "the working limit is a tension, greater than zero (e.g. \"80 kPa\")");
         sensor.working_limit_kpa = *limit / 10.1972;  // cm of water to kPa, as in quantity.cpp
+      }
+    }
+    if (well) {
+      if (!table.has("specific_yield")) {
+        table.fail("kind", "an observation well needs 'specific_yield' (a fraction between 0 and 1, e.g. 0.12) for the "
+                           "water-table-fluctuation estimate");
+      }
+      sensor.specific_yield = table.number("specific_yield");
+      if (!(sensor.specific_yield > 0 && sensor.specific_yield < 1)) {
+        table.fail("specific_yield", fmt::format("{} is not a fraction between 0 and 1 (e.g. 0.12)", sensor.specific_yield));
+      }
+      sensor.specific_yield_note = table.optional_text("specific_yield_source").value_or("");
+      // A rate of fall: a length per time, written like a conductivity ("0.3 cm/d").
+      sensor.recession_cm_per_d = table.optional_quantity("recession_rate", Dimension::conductivity).value_or(0.0);
+      if (!(sensor.recession_cm_per_d >= 0)) {
+        table.fail("recession_rate", "the fall of the water table without recharge is a rate of zero or more (e.g. \"0.5 cm/d\")");
       }
     }
     for (const auto& other : site.sensors) {
@@ -733,7 +766,9 @@ SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOve
   site.grid.depth_cm = column_depth;
   auto& faces = site.grid.required_face_depths_cm;
   for (const auto& layer : site.layers) faces.push_back(layer.bottom_depth_cm);
-  for (const auto& sensor : site.sensors) faces.push_back(sensor.depth_cm);
+  for (const auto& sensor : site.sensors) {
+    if (sensor.depth_cm > 0) faces.push_back(sensor.depth_cm);  // wells and core samples have none
+  }
   faces.push_back(site.recharge_plane_depth_cm);
   std::sort(faces.begin(), faces.end());
   faces.erase(std::unique(faces.begin(), faces.end(), [](double a, double b) { return std::abs(a - b) < 1e-9; }), faces.end());

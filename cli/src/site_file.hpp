@@ -51,13 +51,20 @@ struct CropSetup {
 
 struct SensorSetup {
   std::string name;
-  std::string kind;                // "tensiometer" or "water content probe"
-  double depth_cm = 0;
+  // "tensiometer", "water content probe", "observation well" (depths to the water table) or
+  // "core samples" (oven-dried cores, each row with its own depth)
+  std::string kind;
+  double depth_cm = 0;             // 0 for a well and for core samples: their readings carry the depths
   std::filesystem::path readings;  // resolved against the site file's folder
   // Tensiometers only: height of the gauge above ground when read at a gauge (the water
   // column down to the cup adds to the head there); empty when read at the cup.
   std::optional<double> gauge_height_cm;
   double working_limit_kpa = 80.0;  // tensions beyond this are kept but not compared
+  // Observation wells only: specific yield of the aquifer where the water table moves
+  // (water-table fluctuation, Healy & Cook 2002), and the fall of the table without recharge.
+  double specific_yield = 0;
+  std::string specific_yield_note;
+  double recession_cm_per_d = 0;
 };
 
 // A run period other than the site file's, from the command line (ISO dates).

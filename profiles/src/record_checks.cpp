@@ -3,6 +3,7 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "field_checks_io.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/profiles/time_axis.hpp"
 
@@ -93,6 +94,7 @@ void check_record(const RunRecord& record) {
     require(record.visit_balance[i].plane_flux_cm.size() == record.flux_plane_depths_cm.size(),
             fmt::format("visit balance row {} has {} flux plane values but the record lists {} flux plane depths", i,
                         record.visit_balance[i].plane_flux_cm.size(), record.flux_plane_depths_cm.size()));
+  check_field_checks(record);
 }
 
 }  // namespace wetfront::profiles

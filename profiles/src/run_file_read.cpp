@@ -1,6 +1,7 @@
 // Reads a RunRecord back from a file written by write_run, checking every shape.
 #include <fmt/format.h>
 
+#include "field_checks_io.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
 #include "wetfront/profiles/run_file.hpp"
@@ -259,6 +260,7 @@ RunRecord read_run(const std::filesystem::path& path) {
     }
     read_sensors(file.id(), record.sensors);
     read_sensor_comparison(file.id(), record);
+    read_field_checks(file.id(), record);
     read_statistics(file.id(), record.run.statistics);
     return record;
   } catch (const std::exception& error) {

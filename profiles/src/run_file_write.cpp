@@ -2,6 +2,7 @@
 // then one group per part of the record (layout in docs/hdf5-layout.md).
 #include <fmt/format.h>
 
+#include "field_checks_io.hpp"
 #include "file_save.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
@@ -303,6 +304,7 @@ void write_contents(hid_t file, const RunRecord& record) {
   }
   write_sensors(file, record.sensors);
   if (record.sensor_comparison) write_sensor_comparison(file, *record.sensor_comparison, axes.time_units);
+  write_field_checks(file, record, axes.time_units);
   write_statistics(file, record.run.statistics);
 }
 

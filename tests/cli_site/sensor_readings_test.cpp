@@ -84,8 +84,11 @@ TEST(SensorsAgainstModel, DemoRunReportsEverySensorTheDarcyColumnAndStoredWater)
   std::getline(csv, line);
   const std::string last = line.substr(line.rfind(',') + 1);
   EXPECT_FALSE(last.empty()) << line;
-  // The show command has no readings, so no stored-water section.
-  EXPECT_EQ(show.out.find("Stored water over the probe depths"), std::string::npos);
+  // The run file keeps the stored water and the Darcy estimates: show prints the same sections.
+  const auto shown = show.out.find("Sensors against the model");
+  ASSERT_NE(shown, std::string::npos);
+  EXPECT_EQ(show.out.substr(shown, show.out.find("Solver:") - shown), run.out.substr(run.out.find("Sensors against the model"),
+            run.out.find("Solver:") - run.out.find("Sensors against the model")));
 }
 
 TEST(SensorsAgainstModel, ReadingsAtTheWorkingLimitAreLeftOutAndCounted) {

@@ -93,6 +93,24 @@ def main(path):
         expect(scale_name(sensors["name"], 0) == "/sensors/depth", "sensor axis")
         expect(int(run["run_statistics/steps"][()]) == 412, "run statistics")
 
+        # Field checks per visit interval, along /visits/interval_end (invented sample values).
+        darcy = run["recharge_estimates/darcy"]
+        expect(scale_name(darcy["amount"], 0) == "/visits/interval_end", "Darcy amount on the visit-interval axis")
+        expect(text(darcy["amount"].attrs["units"]) == "cm", "Darcy amount units")
+        expect(np.isnan(darcy["amount"][0]) and darcy["amount"][1] == 0.12, "Darcy amounts")
+        expect([text(a) for a in darcy["agreement"][...]] == ["no estimate", "agree", "agree", "differ"], "Darcy agreement")
+        expect([text(n) for n in darcy["sensor"][...]] == ["tensiometer 15 cm", "tensiometer 70 cm"], "Darcy pair")
+        table = run["recharge_estimates/water_table"]
+        expect(scale_name(table["amount"], 0) == "/visits/interval_end", "water-table amount on the visit-interval axis")
+        expect(abs(table["specific_yield"][0] - 0.15) < 1e-15, "specific yield")
+        expect(text(table["recession_rate"].attrs["units"]) == "cm/d", "recession rate units")
+        expect(text(table["end_depth"].attrs["positive"]) == "down", "water-table depth positive down")
+        stored = run["stored_water"]
+        expect(scale_name(stored["observed"], 0) == "/stored_water/time", "stored water on its time axis")
+        expect(text(stored["time"].attrs["units"]) == "days since 2025-04-01", "stored water time units")
+        expect(scale_name(stored["observed_change"], 0) == "/visits/interval_end", "storage change on the visit-interval axis")
+        expect(np.allclose(stored["depth"][...], [15.0, 40.0, 70.0]), "stored water depths")
+
     for message in failures:
         print("FAIL:", message)
     print(f"{len(failures)} failure(s)")

@@ -137,6 +137,53 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
       EXPECT_TRUE(same(x.kling_gupta, y.kling_gupta));
     }
   }
+  // The field checks, NaN equal to NaN.
+  const auto same_values = [](const std::vector<double>& x, const std::vector<double>& y) {
+    if (x.size() != y.size()) return false;
+    for (std::size_t i = 0; i < x.size(); ++i) {
+      if (!((std::isnan(x[i]) && std::isnan(y[i])) || x[i] == y[i])) return false;
+    }
+    return true;
+  };
+  ASSERT_EQ(a.darcy_estimate.has_value(), b.darcy_estimate.has_value());
+  if (a.darcy_estimate) {
+    const auto& x = *a.darcy_estimate;
+    const auto& y = *b.darcy_estimate;
+    EXPECT_EQ(x.upper_sensor, y.upper_sensor);
+    EXPECT_EQ(x.lower_sensor, y.lower_sensor);
+    EXPECT_EQ(x.upper_depth_cm, y.upper_depth_cm);
+    EXPECT_EQ(x.lower_depth_cm, y.lower_depth_cm);
+    EXPECT_EQ(x.conductivity_note, y.conductivity_note);
+    EXPECT_TRUE(same_values(x.amount_cm, y.amount_cm));
+    EXPECT_EQ(x.agreement, y.agreement);
+    EXPECT_EQ(x.missing, y.missing);
+  }
+  ASSERT_EQ(a.water_table_estimate.has_value(), b.water_table_estimate.has_value());
+  if (a.water_table_estimate) {
+    const auto& x = *a.water_table_estimate;
+    const auto& y = *b.water_table_estimate;
+    EXPECT_EQ(x.well, y.well);
+    EXPECT_EQ(x.specific_yield, y.specific_yield);
+    EXPECT_EQ(x.recession_cm_per_d, y.recession_cm_per_d);
+    EXPECT_EQ(x.specific_yield_note, y.specific_yield_note);
+    EXPECT_TRUE(same_values(x.start_depth_cm, y.start_depth_cm));
+    EXPECT_TRUE(same_values(x.end_depth_cm, y.end_depth_cm));
+    EXPECT_TRUE(same_values(x.amount_cm, y.amount_cm));
+    EXPECT_EQ(x.agreement, y.agreement);
+    EXPECT_EQ(x.missing, y.missing);
+  }
+  ASSERT_EQ(a.stored_water.has_value(), b.stored_water.has_value());
+  if (a.stored_water) {
+    const auto& x = *a.stored_water;
+    const auto& y = *b.stored_water;
+    EXPECT_EQ(x.depths_cm, y.depths_cm);
+    EXPECT_EQ(x.sources, y.sources);
+    EXPECT_EQ(x.visit_days, y.visit_days);
+    EXPECT_TRUE(same_values(x.observed_cm, y.observed_cm));
+    EXPECT_TRUE(same_values(x.simulated_cm, y.simulated_cm));
+    EXPECT_TRUE(same_values(x.observed_change_cm, y.observed_change_cm));
+    EXPECT_TRUE(same_values(x.simulated_change_cm, y.simulated_change_cm));
+  }
 }
 
 }  // namespace wetfront::profiles::testing

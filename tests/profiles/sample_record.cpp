@@ -104,6 +104,22 @@ RunRecord sample_record() {
                         {"probe 70 cm", "water content", "cm3/cm3", 70.0, 1, 0, 0, -0.0075, 0.0075, nan, nan},
                         {"all tensiometers", "pressure head", "cm", nan, 1, 0, 1, 2.25, 2.25, nan, nan}};
   record.sensor_comparison = comparison;
+
+  // Invented field checks over the four visit intervals (0-7, 7-14, 14-21, 21-29 d): a Darcy
+  // estimate missing for the first interval, a water table read at every visit, stored water
+  // missing at the run start.
+  record.darcy_estimate = DarcyEstimateRecord{
+      "tensiometer 15 cm", "tensiometer 70 cm", 15.0, 70.0, "K from the hydraulic model of layer 'sandy loam subsoil'",
+      {nan, 0.12, 0.0, -0.03}, {"no estimate", "agree", "agree", "differ"},
+      {"no reliable reading of both within 1 d of a visit", "", "", ""}};
+  record.water_table_estimate = WaterTableEstimateRecord{
+      "well A", 0.15, 0.2, "invented value for the sample",
+      {310.0, 305.5, 306.0, 307.0}, {305.5, 306.0, 307.0, 304.0}, {0.675, 0.195, 0.255, 0.57},
+      {"agree", "agree", "differ", "differ"}, {"", "", "", ""}};
+  record.stored_water = StoredWaterRecord{{15.0, 40.0, 70.0}, {"probe 15 cm", "probe 40 cm", "probe 70 cm", "cores"},
+                                          {0.0, 7.0, 14.0, 21.0, 29.0}, {nan, 18.5, 18.25, 17.75, 18.0},
+                                          {nan, 18.0, 18.125, 17.5, 17.5}, {nan, -0.25, -0.5, 0.25},
+                                          {nan, 0.125, -0.625, 0.0}};
   return record;
 }
 
@@ -115,6 +131,10 @@ RunRecord sample_failed_record() {
   run.complete = false;
   run.failure = solver::RunFailure{12.5, 37.5, "nonlinear solver did not converge after 10 step reductions"};
   record.visit_balance = balance_between_visits(run.balances, record.visit_days);
+  // The field checks follow the intervals reached; this sample keeps none.
+  record.darcy_estimate.reset();
+  record.water_table_estimate.reset();
+  record.stored_water.reset();
   return record;
 }
 

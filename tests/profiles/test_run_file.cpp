@@ -96,6 +96,9 @@ TEST_F(RunFileTest, RunWithoutPlanesSensorsOrOutputsRoundTrips) {
   written.layers.clear();
   written.visit_days.clear();
   written.visit_balance.clear();
+  written.darcy_estimate.reset();
+  written.water_table_estimate.reset();
+  written.stored_water.reset();
   written.run.complete = false;
   written.run.failure = solver::RunFailure{0.0, 0.0, "initial state inconsistent"};
   written.run_start_date = "2025-04-01T06:30";
@@ -252,6 +255,40 @@ TEST_F(RunFileTest, RecordChecksNameTheField) {
   RunRecord complete_with_failure = record;
   complete_with_failure.run.failure = solver::RunFailure{1.0, 2.0, "x"};
   EXPECT_NE(check_message(complete_with_failure).find("complete but carries a failure"), std::string::npos);
+
+  // The field checks must have one entry per visit interval (four in the sample).
+  RunRecord short_darcy = record;
+  short_darcy.darcy_estimate->amount_cm.pop_back();
+  EXPECT_NE(check_message(short_darcy).find("Darcy estimate amount has 3 entries, expected 4"), std::string::npos)
+      << check_message(short_darcy);
+  RunRecord bad_yield = record;
+  bad_yield.water_table_estimate->specific_yield = 1.5;
+  EXPECT_NE(check_message(bad_yield).find("specific yield 1.5 is not between 0 and 1"), std::string::npos);
+  RunRecord short_storage = record;
+  short_storage.stored_water->visit_days.pop_back();
+  EXPECT_NE(check_message(short_storage).find("stored water has 4 visit times, expected 5"), std::string::npos);
+}
+
+TEST_F(RunFileTest, FieldChecksAttachToTheVisitIntervalAxis) {
+  const fs::path path = directory_ / "season.h5";
+  write_run(path, testing::sample_record());
+  const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
+  ASSERT_GE(file, 0);
+  const hid_t interval_end = H5Dopen2(file, "visits/interval_end", H5P_DEFAULT);
+  for (const char* name : {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
+                           "recharge_estimates/water_table/end_depth", "stored_water/observed_change"}) {
+    const hid_t dataset = H5Dopen2(file, name, H5P_DEFAULT);
+    ASSERT_GE(dataset, 0) << name;
+    EXPECT_GT(H5DSis_attached(dataset, interval_end, 0), 0) << name;
+    H5Dclose(dataset);
+  }
+  H5Dclose(interval_end);
+  H5Fclose(file);
+  const RunRecord back = read_run(path);
+  ASSERT_TRUE(back.water_table_estimate.has_value());
+  EXPECT_EQ(back.water_table_estimate->agreement[2], "differ");
+  ASSERT_TRUE(back.stored_water.has_value());
+  EXPECT_TRUE(std::isnan(back.stored_water->observed_cm[0]));
 }
 
 TEST_F(RunFileTest, ReadingAMissingFileSaysSo) {

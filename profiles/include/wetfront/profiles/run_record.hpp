@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "wetfront/profiles/field_checks.hpp"
 #include "wetfront/profiles/visit_balance.hpp"
 #include "wetfront/solver/column_run.hpp"
 
@@ -87,6 +88,9 @@ struct RunRecord {
   std::vector<double> visit_days;            // field visits, days since the run start, increasing
   std::vector<IntervalBalance> visit_balance;  // balance_between_visits(run.balances, visit_days)
   std::optional<SensorComparisonRecord> sensor_comparison;
+  std::optional<DarcyEstimateRecord> darcy_estimate;            // /recharge_estimates/darcy
+  std::optional<WaterTableEstimateRecord> water_table_estimate; // /recharge_estimates/water_table
+  std::optional<StoredWaterRecord> stored_water;                // /stored_water
 };
 
 }  // namespace wetfront::profiles

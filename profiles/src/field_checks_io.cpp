@@ -1,0 +1,222 @@
+#include "field_checks_io.hpp"
+
+#include <cmath>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+namespace wetfront::profiles {
+
+namespace {
+
+namespace h5 = hdf5;
+
+void require_length(std::size_t actual, std::size_t expected, std::string_view what) {
+  if (actual != expected)
+    throw std::invalid_argument(fmt::format("{} has {} entries, expected {} (one per visit interval)", what, actual, expected));
+}
+
+void check_darcy(const DarcyEstimateRecord& d, std::size_t intervals) {
+  require_length(d.amount_cm.size(), intervals, "Darcy estimate amount");
+  require_length(d.agreement.size(), intervals, "Darcy estimate agreement");
+  require_length(d.missing.size(), intervals, "Darcy estimate missing");
+  if (!(d.upper_depth_cm < d.lower_depth_cm))
+    throw std::invalid_argument(fmt::format("Darcy estimate: upper cup at {} cm is not above the lower one at {} cm",
+                                            d.upper_depth_cm, d.lower_depth_cm));
+}
+
+void check_water_table(const WaterTableEstimateRecord& w, std::size_t intervals) {
+  require_length(w.amount_cm.size(), intervals, "water-table estimate amount");
+  require_length(w.agreement.size(), intervals, "water-table estimate agreement");
+  require_length(w.missing.size(), intervals, "water-table estimate missing");
+  require_length(w.start_depth_cm.size(), intervals, "water-table estimate start depth");
+  require_length(w.end_depth_cm.size(), intervals, "water-table estimate end depth");
+  if (!(w.specific_yield > 0 && w.specific_yield < 1))
+    throw std::invalid_argument(fmt::format("water-table estimate: specific yield {} is not between 0 and 1", w.specific_yield));
+}
+
+void check_stored_water(const StoredWaterRecord& s, std::size_t intervals) {
+  require_length(s.observed_change_cm.size(), intervals, "stored water observed change");
+  require_length(s.simulated_change_cm.size(), intervals, "stored water simulated change");
+  const std::size_t visits = s.visit_days.size();
+  if (visits != intervals + 1)
+    throw std::invalid_argument(fmt::format("stored water has {} visit times, expected {} (the run start and every interval end)",
+                                            visits, intervals + 1));
+  if (s.observed_cm.size() != visits || s.simulated_cm.size() != visits)
+    throw std::invalid_argument("stored water: observed and simulated need one value per visit time");
+  if (s.depths_cm.size() < 2) throw std::invalid_argument("stored water needs two or more depths");
+}
+
+h5::Dataset open_dataset(hid_t file, const char* path) {
+  return h5::Dataset(H5Dopen2(file, path, H5P_DEFAULT), fmt::format("opening {}", path));
+}
+
+// A per-interval dataset along /visits/interval_end.
+void along_intervals(const h5::Dataset& dataset, const h5::Dataset& interval_end) {
+  h5::attach_dimension_scale(dataset, interval_end, 0);
+}
+
+void write_one_text(hid_t parent, std::string_view name, const std::string& text, std::string_view long_name) {
+  h5::write_texts(parent, name, {text}, {"none", long_name});
+}
+
+void write_one_number(hid_t parent, std::string_view name, double value, std::string_view units, std::string_view long_name) {
+  const double values[1] = {value};
+  h5::write_vector(parent, name, values, {units, long_name});
+}
+
+void write_agreement(hid_t group, const h5::Dataset& interval_end, const std::vector<double>& amount,
+                     const std::vector<std::string>& agreement, const std::vector<std::string>& missing,
+                     std::string_view amount_long_name) {
+  along_intervals(h5::write_vector(group, "amount", amount, {"cm", amount_long_name}), interval_end);
+  along_intervals(h5::write_texts(group, "agreement", agreement,
+                                  {"none", "against the model's drainage at the recharge plane: agree, differ (signs differ "
+                                           "or one exceeds the other by more than a factor of 2) or no estimate"}),
+                  interval_end);
+  along_intervals(h5::write_texts(group, "missing", missing, {"none", "why the interval has no estimate (empty when it has one)"}),
+                  interval_end);
+}
+
+void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const h5::Dataset& interval_end) {
+  h5::Group group = h5::create_group(parent, "darcy");
+  h5::write_texts(group.id(), "sensor", {d.upper_sensor, d.lower_sensor}, {"none", "tensiometer pair, the upper first"});
+  const double depths[2] = {d.upper_depth_cm, d.lower_depth_cm};
+  h5::Dataset depth = h5::write_vector(group.id(), "sensor_depth", depths, {"cm", "depth of each tensiometer cup"});
+  h5::set_text_attribute(depth.id(), ".", "positive", "down");
+  write_one_text(group.id(), "conductivity_note", d.conductivity_note, "which layer's hydraulic model gives the conductivity");
+  write_agreement(group.id(), interval_end, d.amount_cm, d.agreement, d.missing,
+                  "Darcy estimate of the flow below the pair in the interval (positive downward; NaN: no estimate)");
+}
+
+void write_water_table(hid_t parent, const WaterTableEstimateRecord& w, const h5::Dataset& interval_end) {
+  h5::Group group = h5::create_group(parent, "water_table");
+  write_one_text(group.id(), "well", w.well, "observation well read for the water-table level");
+  write_one_number(group.id(), "specific_yield", w.specific_yield, "1", "specific yield of the aquifer at the water table");
+  write_one_text(group.id(), "specific_yield_note", w.specific_yield_note, "where the specific yield comes from");
+  write_one_number(group.id(), "recession_rate", w.recession_cm_per_d, "cm/d",
+                   "fall of the water table without recharge (antecedent recession)");
+  h5::Dataset start = h5::write_vector(group.id(), "start_depth", w.start_depth_cm,
+                                       {"cm", "water-table depth read at the start of the interval (NaN: no reading)"});
+  h5::set_text_attribute(start.id(), ".", "positive", "down");
+  along_intervals(start, interval_end);
+  h5::Dataset end = h5::write_vector(group.id(), "end_depth", w.end_depth_cm,
+                                     {"cm", "water-table depth read at the end of the interval (NaN: no reading)"});
+  h5::set_text_attribute(end.id(), ".", "positive", "down");
+  along_intervals(end, interval_end);
+  write_agreement(group.id(), interval_end, w.amount_cm, w.agreement, w.missing,
+                  "water-table-fluctuation recharge in the interval: specific yield x rise (NaN: no estimate)");
+}
+
+void write_stored_water(hid_t file, const StoredWaterRecord& s, const std::string& time_units, const h5::Dataset& interval_end) {
+  h5::Group group = h5::create_group(file, "stored_water");
+  h5::Dataset depth = h5::write_vector(group.id(), "depth", s.depths_cm, {"cm", "water-content depths the storage spans"});
+  h5::set_text_attribute(depth.id(), ".", "positive", "down");
+  h5::write_texts(group.id(), "source", s.sources, {"none", "probes and core samples that give the readings"});
+  h5::Dataset time = h5::write_vector(group.id(), "time", s.visit_days, {time_units, "the run start and the end of every visit interval"});
+  h5::set_text_attribute(group.id(), "time", "calendar", "standard");
+  h5::make_dimension_scale(time, "stored_water_time");
+  h5::attach_dimension_scale(h5::write_vector(group.id(), "observed", s.observed_cm,
+                                              {"cm", "water stored over the depths from the readings (trapezoid; NaN: a depth has no reading)"}),
+                             time, 0);
+  h5::attach_dimension_scale(h5::write_vector(group.id(), "simulated", s.simulated_cm,
+                                              {"cm", "water stored over the depths in the model at the same depths and times"}),
+                             time, 0);
+  along_intervals(h5::write_vector(group.id(), "observed_change", s.observed_change_cm,
+                                   {"cm", "change of the observed storage over the interval (positive: gained; NaN: missing)"}),
+                  interval_end);
+  along_intervals(h5::write_vector(group.id(), "simulated_change", s.simulated_change_cm,
+                                   {"cm", "change of the simulated storage over the interval (positive: gained)"}),
+                  interval_end);
+}
+
+std::vector<double> read_vector_of(hid_t parent, std::string_view name, std::size_t length) {
+  std::vector<std::size_t> dims;
+  std::vector<double> values = h5::read_doubles(parent, name, 1, dims);
+  if (values.size() != length)
+    throw h5::Error(fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+  return values;
+}
+
+std::vector<std::string> read_texts_of(hid_t parent, std::string_view name, std::size_t length) {
+  std::vector<std::string> values = h5::read_texts(parent, name);
+  if (values.size() != length)
+    throw h5::Error(fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+  return values;
+}
+
+DarcyEstimateRecord read_darcy(hid_t parent, std::size_t intervals) {
+  h5::Group group = h5::open_group(parent, "darcy");
+  DarcyEstimateRecord d;
+  const auto sensors = read_texts_of(group.id(), "sensor", 2);
+  const auto depths = read_vector_of(group.id(), "sensor_depth", 2);
+  d.upper_sensor = sensors[0];
+  d.lower_sensor = sensors[1];
+  d.upper_depth_cm = depths[0];
+  d.lower_depth_cm = depths[1];
+  d.conductivity_note = read_texts_of(group.id(), "conductivity_note", 1).front();
+  d.amount_cm = read_vector_of(group.id(), "amount", intervals);
+  d.agreement = read_texts_of(group.id(), "agreement", intervals);
+  d.missing = read_texts_of(group.id(), "missing", intervals);
+  return d;
+}
+
+WaterTableEstimateRecord read_water_table(hid_t parent, std::size_t intervals) {
+  h5::Group group = h5::open_group(parent, "water_table");
+  WaterTableEstimateRecord w;
+  w.well = read_texts_of(group.id(), "well", 1).front();
+  w.specific_yield = read_vector_of(group.id(), "specific_yield", 1).front();
+  w.specific_yield_note = read_texts_of(group.id(), "specific_yield_note", 1).front();
+  w.recession_cm_per_d = read_vector_of(group.id(), "recession_rate", 1).front();
+  w.start_depth_cm = read_vector_of(group.id(), "start_depth", intervals);
+  w.end_depth_cm = read_vector_of(group.id(), "end_depth", intervals);
+  w.amount_cm = read_vector_of(group.id(), "amount", intervals);
+  w.agreement = read_texts_of(group.id(), "agreement", intervals);
+  w.missing = read_texts_of(group.id(), "missing", intervals);
+  return w;
+}
+
+StoredWaterRecord read_stored_water(hid_t file, std::size_t intervals) {
+  h5::Group group = h5::open_group(file, "stored_water");
+  StoredWaterRecord s;
+  std::vector<std::size_t> dims;
+  s.depths_cm = h5::read_doubles(group.id(), "depth", 1, dims);
+  s.sources = h5::read_texts(group.id(), "source");
+  s.visit_days = read_vector_of(group.id(), "time", intervals + 1);
+  s.observed_cm = read_vector_of(group.id(), "observed", intervals + 1);
+  s.simulated_cm = read_vector_of(group.id(), "simulated", intervals + 1);
+  s.observed_change_cm = read_vector_of(group.id(), "observed_change", intervals);
+  s.simulated_change_cm = read_vector_of(group.id(), "simulated_change", intervals);
+  return s;
+}
+
+}  // namespace
+
+void check_field_checks(const RunRecord& record) {
+  const std::size_t intervals = record.visit_balance.size();
+  if (record.darcy_estimate) check_darcy(*record.darcy_estimate, intervals);
+  if (record.water_table_estimate) check_water_table(*record.water_table_estimate, intervals);
+  if (record.stored_water) check_stored_water(*record.stored_water, intervals);
+}
+
+void write_field_checks(hid_t file, const RunRecord& record, const std::string& time_units) {
+  if (!record.darcy_estimate && !record.water_table_estimate && !record.stored_water) return;
+  h5::Dataset interval_end = open_dataset(file, "visits/interval_end");
+  if (record.darcy_estimate || record.water_table_estimate) {
+    h5::Group group = h5::create_group(file, "recharge_estimates");
+    if (record.darcy_estimate) write_darcy(group.id(), *record.darcy_estimate, interval_end);
+    if (record.water_table_estimate) write_water_table(group.id(), *record.water_table_estimate, interval_end);
+  }
+  if (record.stored_water) write_stored_water(file, *record.stored_water, time_units, interval_end);
+}
+
+void read_field_checks(hid_t file, RunRecord& record) {
+  const std::size_t intervals = record.visit_balance.size();
+  if (h5::has_link(file, "recharge_estimates")) {
+    h5::Group group = h5::open_group(file, "recharge_estimates");
+    if (h5::has_link(group.id(), "darcy")) record.darcy_estimate = read_darcy(group.id(), intervals);
+    if (h5::has_link(group.id(), "water_table")) record.water_table_estimate = read_water_table(group.id(), intervals);
+  }
+  if (h5::has_link(file, "stored_water")) record.stored_water = read_stored_water(file, intervals);
+}
+
+}  // namespace wetfront::profiles
