@@ -13,7 +13,11 @@ namespace {
 
 namespace obs = observations;
 
-std::string mm(double cm) { return number(cm * 10.0, 4); }
+// Millimetres to 0.01 mm; amounts below that print as 0.00 rather than as round-off.
+std::string mm(double cm) {
+  const double value = std::round(cm * 1000.0) / 100.0;
+  return fmt::format("{:.2f}", value == 0.0 ? 0.0 : value);
+}
 
 std::string date_of(const SeasonModel& model, double day) {
   return forcing::format_timestamp(forcing::time_after(model.site().run_start, std::round(day * 86400.0) / 86400.0)).substr(0, 10);
@@ -29,12 +33,21 @@ std::string plane_text(const SeasonModel& model) {
   return fmt::format("the recharge plane at {} cm (positive downward)", number(model.site().recharge_plane_depth_cm));
 }
 
-constexpr const char* kCautions =
+constexpr const char* kSweepCautions =
     "\nCautions:\n"
     "  - A parameter set that matches the tensiometers is not proven right: other sets, other model\n"
     "    structure (preferential flow, hysteresis, lateral flow) or errors in the field records may\n"
-    "    match them as well. The bands below cover parameter uncertainty only, under the model's\n"
-    "    assumptions and the stated reading uncertainties.\n"
+    "    match them as well.\n"
+    "  - Every recharge number here is an estimate. Decisions on water use, recharge or abstraction rest\n"
+    "    with local regulations and licensed professionals, not with this program.\n";
+
+constexpr const char* kCalibrationCautions =
+    "\nCautions:\n"
+    "  - The calibrated values are those that fit these readings best under this model; they are not\n"
+    "    proven right. Other model structure (preferential flow, hysteresis, lateral flow) or errors in\n"
+    "    the field records can bias them.\n"
+    "  - The recharge bands cover parameter uncertainty only, under the model's assumptions and the\n"
+    "    stated reading uncertainties; the true uncertainty is larger.\n"
     "  - Every recharge number here is an estimate. Decisions on water use, recharge or abstraction rest\n"
     "    with local regulations and licensed professionals, not with this program.\n";
 
@@ -107,7 +120,7 @@ std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std
     if (run.complete) complete_recharge.push_back(run.season_recharge_cm);
     else ++failed;
   }
-  out += fmt::format("\nSets: {}, {} runs in {:.1f} s on {} thread(s), {:.2f} s per run on average per thread\n", sweep.method,
+  out += fmt::format("\nSets: {}, {} runs in {:.1f} s on {} thread(s) (about {:.2f} s of one thread per run)\n", sweep.method,
                      sweep.runs.size(), seconds, threads, sweep.runs.empty() ? 0.0 : seconds * threads / static_cast<double>(sweep.runs.size()));
   ReportTable full = sweep_table(model, sweep);
   ReportTable top;
@@ -130,7 +143,7 @@ std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std
   }
   if (failed > 0) out += fmt::format("{} run(s) did not finish; they are ranked last with the reason in the CSV.\n", failed);
   out += "A sweep shows which sets are consistent with the readings; it is not a probability distribution of recharge.\n";
-  return out + kCautions;
+  return out + kSweepCautions;
 }
 
 ReportTable calibration_recharge_table(const SeasonModel& model, const CalibrationStudy& study) {
@@ -241,7 +254,7 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
     for (const std::size_t k : order) out += fmt::format(" {} {:.0f}%;", fit.parameters[k].name, 100 * season.variance_share[k]);
     out.back() = '\n';
   }
-  return out + kCautions;
+  return out + kCalibrationCautions;
 }
 
 }  // namespace wetfront::cli

@@ -1,0 +1,107 @@
+"""The HDF5 files of `wetfront sweep` and `wetfront calibrate`, read by h5py: every dataset has
+units and long_name, tables hang on dimension scales, and the numbers agree with the CSV.
+
+Usage: h5py_reads_study_files.py WETFRONT DEMO_FOLDER
+"""
+import csv
+import math
+import shutil
+import subprocess
+import sys
+import tempfile
+from pathlib import Path
+
+import h5py
+
+STUDY = """
+[fit]
+head_uncertainty = "20 cm"
+
+[[adjustable]]
+parameter = "saturated_conductivity"
+layer = "loam subsoil"
+range = ["5 cm/d", "80 cm/d"]
+scale = "log"
+grid_points = 2
+
+[[adjustable]]
+parameter = "n"
+layer = "loam subsoil"
+range = [1.3, 1.7]
+grid_points = 2
+"""
+
+
+def every_dataset(group):
+    found = []
+    group.visititems(lambda name, obj: found.append(obj) if isinstance(obj, h5py.Dataset) else None)
+    return found
+
+
+def check_described(f):
+    for dataset in every_dataset(f):
+        assert "units" in dataset.attrs, f"{dataset.name} has no units"
+        assert "long_name" in dataset.attrs, f"{dataset.name} has no long_name"
+
+
+def scale_name(dataset, dimension):
+    scales = dataset.dims[dimension]
+    assert len(scales) == 1, f"{dataset.name} dimension {dimension} has {len(scales)} scales"
+    return scales[0].name.rsplit("/", 1)[-1]
+
+
+def text(value):
+    return value.decode() if isinstance(value, bytes) else str(value)
+
+
+def main():
+    wetfront, demo = sys.argv[1], Path(sys.argv[2])
+    with tempfile.TemporaryDirectory() as tmp:
+        site = Path(tmp) / "site"
+        shutil.copytree(demo, site, ignore=shutil.ignore_patterns("*.h5", "*-visits.csv"))
+        with open(site / "site.toml", "a") as f:
+            f.write(STUDY)
+        common = [str(site / "site.toml"), "--to", "2025-05-10", "--quiet", "--threads", "2"]
+        subprocess.run([wetfront, "sweep", *common, "--grid", "--keep", "2"], check=True)
+        subprocess.run([wetfront, "calibrate", *common, "--max-runs", "12", "--band-runs", "4"], check=True)
+
+        with h5py.File(site / "site-sweep.h5", "r") as f:
+            check_described(f)
+            assert text(f.attrs["record_format"]) == "wetfront parameter study"
+            assert text(f.attrs["study_kind"]) == "parameter sweep"
+            names = [text(n) for n in f["parameters/name"][()]]
+            assert names == ["loam subsoil: saturated_conductivity", "loam subsoil: n"], names
+            values = f["sets/values"]
+            assert values.shape == (4, 2), values.shape
+            assert scale_name(values, 0) == "set_number" and scale_name(values, 1) == "parameter_number"
+            assert sorted(f["sets/rank"][()].tolist()) == [1, 2, 3, 4]
+            recharge = f["sets/interval_recharge"]
+            assert scale_name(recharge, 1) == "interval_end"
+            assert "days since" in text(f["sets/interval_end"].attrs["units"])
+            assert sorted(f["runs"].keys()) == ["rank_1", "rank_2"]
+            head = f["runs/rank_1/pressure_head"]
+            assert head.shape == (f["runs/rank_1/time"].shape[0], f["runs/rank_1/cell_depth"].shape[0])
+            assert scale_name(head, 0) == "time" and scale_name(head, 1) == "cell_depth"
+            # The best set in the file is the first row of the CSV.
+            best = int(list(f["sets/rank"][()]).index(1))
+            with open(site / "site-sweep.csv") as c:
+                first = next(csv.DictReader(c))
+            assert int(first["set"]) == best + 1
+            assert math.isclose(float(first["season recharge [mm]"]), 10 * f["sets/season_recharge"][best], rel_tol=1e-3, abs_tol=1e-3)
+
+        with h5py.File(site / "site-calibration.h5", "r") as f:
+            check_described(f)
+            assert text(f.attrs["study_kind"]) == "calibration"
+            assert "stop_reason" in f.attrs
+            calibrated = f["parameters/calibrated"][()]
+            assert calibrated.shape == (2,)
+            if "covariance" in f["parameters"]:
+                cov = f["parameters/covariance"][()]
+                assert cov.shape == (2, 2) and abs(cov[0, 1] - cov[1, 0]) < 1e-15
+            assert "calibrated" in f["recharge"] and "interval_end" in f["recharge"]
+            assert f["runs/calibrated/water_content"].ndim == 2
+    print("study files read back")
+
+
+if __name__ == "__main__":
+    main()

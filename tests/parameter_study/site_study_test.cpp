@@ -1,0 +1,142 @@
+// Sweeps and calibrations of a whole site, on twin data made by the model from known values.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <string>
+
+#include "parameter_study.hpp"
+#include "twin_site.hpp"
+
+namespace wetfront::cli {
+namespace {
+
+using testing::ScratchSite;
+
+// The loam subsoil of the demo (site values Ks 20 cm/d, n 1.5) is what the studies adjust.
+const std::string kLoamStudy = R"(
+[fit]
+head_uncertainty = "5 cm"
+
+[[adjustable]]
+parameter = "saturated_conductivity"
+layer = "loam subsoil"
+range = ["5 cm/d", "80 cm/d"]
+scale = "log"
+grid_points = 3
+
+[[adjustable]]
+parameter = "n"
+layer = "loam subsoil"
+range = [1.25, 1.8]
+grid_points = 3
+)";
+
+// About three and a half months keeps each run near a third of a second.
+const std::string kEnd = "2025-07-15";
+
+TEST(TwinExperiment, CalibrationRecoversTheTrueLoamValuesWithinTwoStandardErrors) {
+  ScratchSite site("twin-calibration");
+  testing::add_study(site, kLoamStudy);
+  // Truth: Ks 12 cm/d, n 1.4; noise of 5 cm on every head, as [fit] states. The calibration
+  // starts from the site file's values, 20 cm/d and 1.5.
+  const observations::ParameterSet truth{12.0, 1.4};
+  ASSERT_GT(testing::write_twin_readings(site, kEnd, truth, 5.0, 11), 30u);
+  const SeasonModel model = testing::load_model(site, kEnd);
+  CalibrationSettings settings;
+  settings.options.max_runs = 60;
+  settings.threads = 2;
+  settings.band_runs = 8;
+  const CalibrationStudy study = run_calibration(model, settings);
+  const auto& fit = study.fit;
+  ASSERT_TRUE(fit.converged) << fit.stop_reason;
+  ASSERT_EQ(fit.covariance.rows(), 2) << fit.covariance_note;
+  EXPECT_LT(std::abs(fit.best_search[0] - std::log10(12.0)), 2 * fit.standard_errors[0])
+      << "Ks " << fit.best[0] << " +- " << fit.standard_errors[0] << " (log10)";
+  EXPECT_LT(std::abs(fit.best_search[1] - 1.4), 2 * fit.standard_errors[1]) << "n " << fit.best[1] << " +- " << fit.standard_errors[1];
+  // The data resolve both: standard errors well inside their ranges, so the check above is sharp.
+  EXPECT_LT(fit.standard_errors[0], 0.1);
+  EXPECT_LT(fit.standard_errors[1], 0.05);
+  // Residual variance per reading near 1: the stated 5 cm is the noise that was added.
+  const double s2 = study.after.objective / (fit.residual_count() - 2);
+  EXPECT_GT(s2, 0.5);
+  EXPECT_LT(s2, 1.8);
+  EXPECT_LT(study.after.objective, study.before.objective);
+  // The band: first-order interval and sampled percentiles around the calibrated recharge.
+  ASSERT_FALSE(study.first_order.empty());
+  ASSERT_FALSE(study.band.empty());
+  EXPECT_LE(study.first_order[0].lower, study.after.season_recharge_cm);
+  EXPECT_GE(study.first_order[0].upper, study.after.season_recharge_cm);
+  EXPECT_LE(study.band[0].p5, study.band[0].p95);
+  EXPECT_EQ(study.first_order.size(), model.interval_end_days().size() + 1);
+}
+
+TEST(TwinSweep, TheGridPointThatMadeTheReadingsRanksFirstWithZeroObjective) {
+  ScratchSite site("twin-sweep");
+  testing::add_study(site, kLoamStudy);
+  // The middle grid point: Ks 20 cm/d (log-midpoint of 5 and 80), n 1.525; no noise.
+  testing::write_twin_readings(site, kEnd, {20.0, 1.525}, 0.0, 1);
+  const SeasonModel model = testing::load_model(site, kEnd);
+  const SweepResult sweep = run_sweep(model, {.full_grid = true, .threads = 2});
+  ASSERT_EQ(sweep.runs.size(), 9u);
+  const ScoredRun& best = sweep.runs[sweep.ranking[0]];
+  EXPECT_EQ(sweep.ranking[0], 4u);  // set 5 of 9: the middle of the grid
+  EXPECT_NEAR(best.values[0], 20.0, 1e-9);
+  EXPECT_NEAR(best.values[1], 1.525, 1e-12);
+  // Readings were written with 1e-3 cm rounding: the residuals are that small.
+  EXPECT_LT(best.objective, 1e-6);
+  EXPECT_GT(sweep.runs[sweep.ranking[1]].objective, 1.0);
+}
+
+TEST(SweepThreads, OneAndTwoThreadsGiveIdenticalResults) {
+  ScratchSite site("threads");
+  testing::add_study(site, kLoamStudy);
+  const SeasonModel model = testing::load_model(site, "2025-05-15");
+  const SweepSettings one{.full_grid = false, .sample_size = 4, .seed = 5, .threads = 1};
+  SweepSettings two = one;
+  two.threads = 2;
+  const SweepResult a = run_sweep(model, one);
+  const SweepResult b = run_sweep(model, two);
+  ASSERT_EQ(a.runs.size(), b.runs.size());
+  EXPECT_EQ(a.ranking, b.ranking);
+  for (std::size_t i = 0; i < a.runs.size(); ++i) {
+    EXPECT_EQ(a.runs[i].values, b.runs[i].values);
+    EXPECT_EQ(a.runs[i].objective, b.runs[i].objective);  // bit for bit
+    EXPECT_EQ(a.runs[i].season_recharge_cm, b.runs[i].season_recharge_cm);
+    EXPECT_EQ(a.runs[i].visit_recharge_cm, b.runs[i].visit_recharge_cm);
+  }
+}
+
+TEST(Unresolvable, AParameterThatActsOnlyAfterTheLastReadingIsReported) {
+  // The crop's late-season coefficient acts from late August; the run and its readings end in
+  // mid-July, so it cannot change a single simulated reading.
+  ScratchSite site("unresolvable");
+  testing::add_study(site, R"(
+[fit]
+head_uncertainty = "5 cm"
+
+[[adjustable]]
+parameter = "saturated_conductivity"
+layer = "loam subsoil"
+range = ["5 cm/d", "80 cm/d"]
+scale = "log"
+
+[[adjustable]]
+parameter = "kc_end"
+range = [0.3, 0.8]
+)");
+  testing::write_twin_readings(site, kEnd, {12.0, 0.5}, 5.0, 3);
+  const SeasonModel model = testing::load_model(site, kEnd);
+  CalibrationSettings settings;
+  settings.options.max_runs = 40;
+  settings.threads = 2;
+  settings.band_runs = 0;
+  const CalibrationStudy study = run_calibration(model, settings);
+  bool reported = false;
+  for (const auto& w : study.fit.warnings) reported = reported || (w.find("kc_end") != std::string::npos && w.find("cannot resolve") != std::string::npos);
+  EXPECT_TRUE(reported);
+  EXPECT_EQ(study.fit.covariance.size(), 0);
+  EXPECT_NE(study.band_note.find("no uncertainty band"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace wetfront::cli
