@@ -70,7 +70,13 @@ ScoredRun SeasonModel::run(const obs::ParameterSet& values, profiles::RunRecord*
     scored.failure = error.what();
     return scored;
   }
-  solver::ColumnRun column = solver::simulate(season->problem);
+  solver::ColumnRun column;
+  try {
+    column = solver::simulate(season->problem);
+  } catch (const std::exception& error) {  // a problem the solver refuses for these values
+    scored.failure = error.what();
+    return scored;
+  }
   if (!column.complete) {
     scored.failure = column.failure ? fmt::format("solver failed at day {:.3f} near {:.1f} cm: {}", column.failure->time_days,
                                                   column.failure->depth_cm, column.failure->reason)
