@@ -18,7 +18,8 @@ add_library(wetfront_site STATIC
   src/adjustable_parameters.cpp
   src/parameter_runs.cpp
   src/parameter_study.cpp
-  src/study_output.cpp)
+  src/study_output.cpp
+  src/simulated_profiles.cpp)
 target_include_directories(wetfront_site PUBLIC src)
 target_link_libraries(wetfront_site
   PUBLIC wetfront_soils wetfront_forcing wetfront_solver wetfront_profiles wetfront_observations tomlplusplus::tomlplusplus fmt::fmt

@@ -2,8 +2,6 @@
 
 #include <array>
 #include <cmath>
-#include <fstream>
-#include <sstream>
 #include <stdexcept>
 #include <variant>
 
@@ -179,16 +177,7 @@ std::vector<observations::AdjustableParameter> ParameterStudy::ranges() const {
 
 ParameterStudy load_parameter_study(const SiteSetup& site) {
   const std::string file = site.site_file.string();
-  std::ifstream stream(site.site_file, std::ios::binary);
-  if (!stream) throw InputError(file, 0, "", "cannot open the site file (missing or unreadable)");
-  std::stringstream buffer;
-  buffer << stream.rdbuf();
-  toml::table document;
-  try {
-    document = toml::parse(buffer.str(), file);
-  } catch (const toml::parse_error& error) {
-    throw InputError(file, error.source().begin.line, "", fmt::format("not valid TOML: {}", error.description()));
-  }
+  const toml::table document = read_site_document(site.site_file);
   const SiteTable root(document, "", file);
   ParameterStudy study;
   if (const auto fit = root.subtable("fit")) {

@@ -7,6 +7,7 @@
 #include <fmt/format.h>
 
 #include "input_error.hpp"
+#include "simulated_profiles.hpp"
 #include "wetfront/observations/parallel_batch.hpp"
 #include "wetfront/observations/profile_interpolation.hpp"
 #include "wetfront/solver/column_run.hpp"
@@ -15,16 +16,6 @@ namespace wetfront::cli {
 namespace {
 
 namespace obs = observations;
-
-obs::SimulatedProfiles simulated(const solver::ColumnRun& run, bool heads) {
-  obs::SimulatedProfiles profiles;
-  profiles.depths_cm = run.cell_depths_cm;
-  for (const auto& snapshot : run.profiles) {
-    profiles.times_day.push_back(snapshot.time_days);
-    profiles.values.push_back(heads ? snapshot.head_cm : snapshot.water_content);
-  }
-  return profiles;
-}
 
 bool is_tensiometer(const SensorRecord& r) { return r.kind == "tensiometer"; }
 
@@ -84,8 +75,8 @@ ScoredRun SeasonModel::run(const obs::ParameterSet& values, profiles::RunRecord*
     return scored;
   }
   const double end_day = season->problem.end_day;
-  const obs::SimulatedProfiles heads = simulated(column, true);
-  const obs::SimulatedProfiles contents = simulated(column, false);
+  const obs::SimulatedProfiles heads = simulated_profiles(column, true);
+  const obs::SimulatedProfiles contents = simulated_profiles(column, false);
   std::vector<double> residuals;
   std::vector<double> head_sim, head_obs, content_sim, content_obs;
   for (const auto& r : records_.sensor_readings) {

@@ -2,12 +2,28 @@
 
 #include <algorithm>
 #include <cctype>
+#include <fstream>
+#include <sstream>
 
 #include <fmt/format.h>
 
 #include "input_error.hpp"
 
 namespace wetfront::cli {
+
+toml::table read_site_document(const std::filesystem::path& site_file) {
+  const std::string file = site_file.string();
+  std::ifstream stream(site_file, std::ios::binary);
+  if (!stream) throw InputError(file, 0, "", "cannot open the site file (missing or unreadable)");
+  std::stringstream buffer;
+  buffer << stream.rdbuf();
+  try {
+    return toml::parse(buffer.str(), file);
+  } catch (const toml::parse_error& error) {
+    throw InputError(file, error.source().begin.line, "", fmt::format("not valid TOML: {}", error.description()));
+  }
+}
+
 namespace {
 
 std::size_t edit_distance(std::string_view a, std::string_view b) {

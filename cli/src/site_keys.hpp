@@ -2,6 +2,7 @@
 // value read with its unit, and every error naming the file, line and key.
 #pragma once
 
+#include <filesystem>
 #include <optional>
 #include <span>
 #include <string>
@@ -13,6 +14,10 @@
 #include "quantity.hpp"
 
 namespace wetfront::cli {
+
+// The parsed TOML document of a site file. Throws InputError naming the file (and the line of
+// a syntax error) when it cannot be opened or is not valid TOML.
+toml::table read_site_document(const std::filesystem::path& site_file);
 
 // The closest allowed name by edit distance when it is a plausible typo; empty otherwise.
 std::optional<std::string> did_you_mean(std::string_view name, std::span<const std::string_view> allowed);

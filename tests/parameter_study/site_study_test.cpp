@@ -2,6 +2,8 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <fstream>
+#include <sstream>
 #include <string>
 
 #include "parameter_study.hpp"
@@ -13,30 +15,19 @@ namespace {
 using testing::ScratchSite;
 
 // The loam subsoil of the demo (site values Ks 20 cm/d, n 1.5) is what the studies adjust.
-const std::string kLoamStudy = R"(
-[fit]
-head_uncertainty = "5 cm"
-
-[[adjustable]]
-parameter = "saturated_conductivity"
-layer = "loam subsoil"
-range = ["5 cm/d", "80 cm/d"]
-scale = "log"
-grid_points = 3
-
-[[adjustable]]
-parameter = "n"
-layer = "loam subsoil"
-range = [1.25, 1.8]
-grid_points = 3
-)";
+std::string loam_study() {
+  std::ifstream in(WETFRONT_SOURCE_DIR "/tests/parameter_study/data/loam-study.toml");
+  std::stringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
 
 // About three and a half months keeps each run near a third of a second.
 const std::string kEnd = "2025-07-15";
 
 TEST(TwinExperiment, CalibrationRecoversTheTrueLoamValuesWithinTwoStandardErrors) {
   ScratchSite site("twin-calibration");
-  testing::add_study(site, kLoamStudy);
+  testing::add_study(site, loam_study());
   // Truth: Ks 12 cm/d, n 1.4; noise of 5 cm on every head, as [fit] states. The calibration
   // starts from the site file's values, 20 cm/d and 1.5.
   const observations::ParameterSet truth{12.0, 1.4};
@@ -72,7 +63,7 @@ TEST(TwinExperiment, CalibrationRecoversTheTrueLoamValuesWithinTwoStandardErrors
 
 TEST(TwinSweep, TheGridPointThatMadeTheReadingsRanksFirstWithZeroObjective) {
   ScratchSite site("twin-sweep");
-  testing::add_study(site, kLoamStudy);
+  testing::add_study(site, loam_study());
   // The middle grid point: Ks 20 cm/d (log-midpoint of 5 and 80), n 1.525; no noise.
   testing::write_twin_readings(site, kEnd, {20.0, 1.525}, 0.0, 1);
   const SeasonModel model = testing::load_model(site, kEnd);
@@ -89,7 +80,7 @@ TEST(TwinSweep, TheGridPointThatMadeTheReadingsRanksFirstWithZeroObjective) {
 
 TEST(SweepThreads, OneAndTwoThreadsGiveIdenticalResults) {
   ScratchSite site("threads");
-  testing::add_study(site, kLoamStudy);
+  testing::add_study(site, loam_study());
   const SeasonModel model = testing::load_model(site, "2025-05-15");
   const SweepSettings one{.full_grid = false, .sample_size = 4, .seed = 5, .threads = 1};
   SweepSettings two = one;
@@ -110,20 +101,10 @@ TEST(Unresolvable, AParameterThatActsOnlyAfterTheLastReadingIsReported) {
   // The crop's late-season coefficient acts from late August; the run and its readings end in
   // mid-July, so it cannot change a single simulated reading.
   ScratchSite site("unresolvable");
-  testing::add_study(site, R"(
-[fit]
-head_uncertainty = "5 cm"
-
-[[adjustable]]
-parameter = "saturated_conductivity"
-layer = "loam subsoil"
-range = ["5 cm/d", "80 cm/d"]
-scale = "log"
-
-[[adjustable]]
-parameter = "kc_end"
-range = [0.3, 0.8]
-)");
+  // The loam study's Ks entry with kc_end in place of n.
+  std::string toml = loam_study();
+  toml = toml.substr(0, toml.rfind("[[adjustable]]")) + "[[adjustable]]\nparameter = \"kc_end\"\nrange = [0.3, 0.8]\n";
+  testing::add_study(site, toml);
   testing::write_twin_readings(site, kEnd, {12.0, 0.5}, 5.0, 3);
   const SeasonModel model = testing::load_model(site, kEnd);
   CalibrationSettings settings;

@@ -8,7 +8,7 @@
 
 #include <fmt/format.h>
 
-#include "wetfront/observations/profile_interpolation.hpp"
+#include "simulated_profiles.hpp"
 #include "wetfront/profiles/run_record.hpp"
 
 namespace wetfront::cli::testing {
@@ -27,12 +27,7 @@ std::size_t write_twin_readings(const ScratchSite& site, const std::string& end_
   profiles::RunRecord record;
   const ScoredRun run = model.run(truth, &record);
   if (!run.complete) throw std::runtime_error("twin site: the model failed under the true values: " + run.failure);
-  observations::SimulatedProfiles heads;
-  heads.depths_cm = record.run.cell_depths_cm;
-  for (const auto& snapshot : record.run.profiles) {
-    heads.times_day.push_back(snapshot.time_days);
-    heads.values.push_back(snapshot.head_cm);
-  }
+  const observations::SimulatedProfiles heads = simulated_profiles(record.run, true);
   std::mt19937_64 generator(seed);
   std::normal_distribution<double> noise(0.0, noise_cm);
   std::size_t written = 0;
