@@ -4,9 +4,9 @@
 //
 // Scoring (the objective): the weighted sum of squared residuals
 //   S = sum over tensiometer readings ((h_sim - h_obs) / sigma_h)^2
-//     + sum over probe readings ((theta_sim - theta_obs) / sigma_theta)^2   (only with sigma_theta)
+//     + sum over probe and core readings ((theta_sim - theta_obs) / sigma_theta)^2   (only with sigma_theta)
 // with sigma the stated reading uncertainty, i.e. weights 1 / sigma^2. Tensiometer readings
-// beyond the working limit, and readings outside the run, are left out.
+// beyond the working limit, readings outside the run and well levels are left out.
 #pragma once
 
 #include <cstddef>

@@ -51,6 +51,28 @@ constexpr const char* kCalibrationCautions =
     "  - Every recharge number here is an estimate. Decisions on water use, recharge or abstraction rest\n"
     "    with local regulations and licensed professionals, not with this program.\n";
 
+// Which parameters drive the season band, in two plain measures: how far one standard error of
+// each parameter moves season recharge (|s_k| se_k), and its first-order share of the variance.
+std::string drivers_text(const obs::CalibrationResult& fit, const obs::FirstOrderInterval& season) {
+  std::vector<std::size_t> order(fit.parameters.size());
+  for (std::size_t k = 0; k < order.size(); ++k) order[k] = k;
+  const auto moved = [&](std::size_t k) {
+    const auto e = static_cast<Eigen::Index>(k);
+    return std::abs(fit.output_sensitivity(0, e)) * fit.standard_errors[e];
+  };
+  std::sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) { return moved(a) > moved(b); });
+  std::string out = fmt::format("What drives the season band (first order, sd {} mm):\n", mm(season.standard_deviation));
+  bool beyond = false;
+  for (const std::size_t k : order) {
+    out += fmt::format("  {}: one standard error moves season recharge by {} mm; {:.0f}% of the variance\n",
+                       fit.parameters[k].name, mm(moved(k)), 100 * season.variance_share[k]);
+    beyond = beyond || season.variance_share[k] < 0 || season.variance_share[k] > 1;
+  }
+  if (beyond)
+    out += "  (shares below 0 or above 100% come from correlated parameters whose effects on recharge partly cancel)\n";
+  return out;
+}
+
 }  // namespace
 
 std::string objective_text(const SeasonModel& model) {
@@ -60,12 +82,12 @@ std::string objective_text(const SeasonModel& model) {
       "  {} tensiometer readings, uncertainty {} cm of water (weight 1/{}^2 per cm^2)",
       model.compared_heads(), number(w.head_uncertainty_cm), number(w.head_uncertainty_cm));
   if (w.water_content_uncertainty) {
-    text += fmt::format(";\n  {} probe readings, uncertainty {} cm3/cm3", model.compared_water_contents(),
+    text += fmt::format(";\n  {} water-content readings (probes and cores), uncertainty {} cm3/cm3", model.compared_water_contents(),
                         number(*w.water_content_uncertainty));
   } else {
-    text += ";\n  probe readings are not compared (give [fit] water_content_uncertainty to include them)";
+    text += ";\n  water contents are not compared (give [fit] water_content_uncertainty to include probes and cores)";
   }
-  return text + "\n  Tensiometer readings beyond their working limit are left out.\n";
+  return text + "\n  Tensiometer readings beyond their working limit and observation-well levels are left out.\n";
 }
 
 std::string parameters_text(const SeasonModel& model) {
@@ -244,16 +266,7 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   if (!study.band.empty())
     out += fmt::format("Sampled band: {} parameter sets drawn from the calibrated covariance ({} ran to the end, {} failed).\n",
                        study.band_runs_complete + study.band_runs_failed, study.band_runs_complete, study.band_runs_failed);
-  if (!study.first_order.empty()) {
-    const auto& season = study.first_order.front();
-    std::vector<std::size_t> order(fit.parameters.size());
-    for (std::size_t k = 0; k < order.size(); ++k) order[k] = k;
-    std::sort(order.begin(), order.end(),
-              [&](std::size_t a, std::size_t b) { return std::abs(season.variance_share[a]) > std::abs(season.variance_share[b]); });
-    out += fmt::format("What drives the season band (first-order share of its variance; sd {} mm):", mm(season.standard_deviation));
-    for (const std::size_t k : order) out += fmt::format(" {} {:.0f}%;", fit.parameters[k].name, 100 * season.variance_share[k]);
-    out.back() = '\n';
-  }
+  if (!study.first_order.empty()) out += drivers_text(fit, study.first_order.front());
   return out + kCalibrationCautions;
 }
 

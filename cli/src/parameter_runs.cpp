@@ -17,12 +17,15 @@ namespace {
 
 namespace obs = observations;
 
-bool is_tensiometer(const SensorRecord& r) { return r.kind == "tensiometer"; }
+// Heads from tensiometers; water contents from probes and core samples. Well levels are not
+// compared: they describe the water table below the column, which the bottom boundary holds.
+bool is_head(const SensorRecord& r) { return r.quantity == kPressureHead; }
+bool is_water_content(const SensorRecord& r) { return r.quantity == kWaterContent; }
 
 // Whether a reading enters the objective.
 bool compared(const SensorRecord& r, const obs::Observation& o, const FitWeights& weights, double end_day) {
   if (!o.reliable || o.day < 0 || o.day > end_day + 1e-9) return false;
-  return is_tensiometer(r) || weights.water_content_uncertainty.has_value();
+  return is_head(r) || (is_water_content(r) && weights.water_content_uncertainty.has_value());
 }
 
 }  // namespace
@@ -34,7 +37,7 @@ SeasonModel::SeasonModel(SiteSetup site, ParameterStudy study)
   for (const auto& r : records_.sensor_readings) {
     for (const auto& o : r.series.observations) {
       if (!compared(r, o, study_.weights, end_day)) continue;
-      ++(is_tensiometer(r) ? head_readings_ : water_content_readings_);
+      ++(is_head(r) ? head_readings_ : water_content_readings_);
     }
   }
   if (head_readings_ + water_content_readings_ == 0) {
@@ -80,10 +83,10 @@ ScoredRun SeasonModel::run(const obs::ParameterSet& values, profiles::RunRecord*
   std::vector<double> residuals;
   std::vector<double> head_sim, head_obs, content_sim, content_obs;
   for (const auto& r : records_.sensor_readings) {
-    const bool tensiometer = is_tensiometer(r);
+    const bool tensiometer = is_head(r);
     for (const auto& o : r.series.observations) {
       if (!compared(r, o, study_.weights, end_day)) continue;
-      const auto value = obs::simulated_value_at(tensiometer ? heads : contents, o.day, r.depth_cm);
+      const auto value = obs::simulated_value_at(tensiometer ? heads : contents, o.day, o.depth_cm);
       if (!value) {
         scored.failure = fmt::format("no simulated value for {} at day {:.3f}", r.name, o.day);
         return scored;

@@ -121,3 +121,35 @@ TEST(Unresolvable, AParameterThatActsOnlyAfterTheLastReadingIsReported) {
 
 }  // namespace
 }  // namespace wetfront::cli
+
+namespace wetfront::cli {
+namespace {
+
+TEST(Objective, ProbeReadingsCountOnlyWithAWaterContentUncertaintyAndAreWeightedByIt) {
+  ScratchSite site("objective");
+  std::string toml = loam_study();
+  testing::add_study(site, toml);
+  const SeasonModel heads_only = testing::load_model(site, "2025-05-15");
+  EXPECT_EQ(heads_only.compared_water_contents(), 0u);
+  const ScoredRun a = heads_only.run({20.0, 1.5});
+  ASSERT_TRUE(a.complete) << a.failure;
+  EXPECT_EQ(static_cast<std::size_t>(a.residuals.size()), heads_only.compared_heads());
+  EXPECT_FALSE(a.water_contents.has_value());
+
+  site.replace("site.toml", "head_uncertainty = \"5 cm\"", "head_uncertainty = \"5 cm\"\nwater_content_uncertainty = \"2 %\"");
+  const SeasonModel both = testing::load_model(site, "2025-05-15");
+  ASSERT_GT(both.compared_water_contents(), 0u);
+  const ScoredRun b = both.run({20.0, 1.5});
+  ASSERT_TRUE(b.complete) << b.failure;
+  ASSERT_EQ(static_cast<std::size_t>(b.residuals.size()), both.compared_heads() + both.compared_water_contents());
+  ASSERT_TRUE(b.water_contents.has_value());
+  // The head residuals are the same; the probe residuals are (simulated - observed) / 0.02, so
+  // their sum of squares is count x (RMSE / 0.02)^2 (definition of the RMSE).
+  const double head_part = a.objective;
+  const double content_part = b.objective - head_part;
+  EXPECT_NEAR(content_part,
+              b.water_contents->count * std::pow(b.water_contents->root_mean_square_error / 0.02, 2), 1e-9 * b.objective);
+}
+
+}  // namespace
+}  // namespace wetfront::cli
