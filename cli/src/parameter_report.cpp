@@ -90,9 +90,9 @@ std::string objective_text(const SeasonModel& model) {
   return text + "\n  Tensiometer readings beyond their working limit and observation-well levels are left out.\n";
 }
 
-std::string parameters_text(const SeasonModel& model) {
-  std::string text = fmt::format("Adjustable parameters ({}):\n", model.study().parameters.size());
-  for (const auto& p : model.study().parameters) {
+std::string parameters_text(const ParameterStudy& study) {
+  std::string text = fmt::format("Adjustable parameters ({}):\n", study.parameters.size());
+  for (const auto& p : study.parameters) {
     const auto& r = p.range;
     text += fmt::format("  {}: {} to {}, {} scale, site value {}\n", r.name, parameter_value_text(r, r.lower),
                         parameter_value_text(r, r.upper), scale_text(r), parameter_value_text(r, r.start));
@@ -134,7 +134,7 @@ ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep) {
 std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std::size_t shown, double seconds, unsigned threads) {
   const SiteSetup& site = model.site();
   std::string out = fmt::format("Parameter sweep: {}, {} to {}\n\n", site.name, site.run_start_text, site.run_end_text);
-  out += parameters_text(model) + "\n" + objective_text(model);
+  out += parameters_text(model.study()) + "\n" + objective_text(model);
   std::vector<double> per_run;
   std::vector<double> complete_recharge;
   std::size_t failed = 0;
@@ -205,7 +205,7 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   const SiteSetup& site = model.site();
   const obs::CalibrationResult& fit = study.fit;
   std::string out = fmt::format("Calibration: {}, {} to {}\n\n", site.name, site.run_start_text, site.run_end_text);
-  out += parameters_text(model) + "\n" + objective_text(model);
+  out += parameters_text(model.study()) + "\n" + objective_text(model);
   out += fmt::format("\nLevenberg-Marquardt on the search scale (log10 for log parameters): {} after {} iteration(s),\n"
                      "{} model runs in {:.1f} s on {} thread(s).\n",
                      fit.stop_reason, fit.iterations, fit.runs, seconds, threads);

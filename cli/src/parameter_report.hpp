@@ -12,7 +12,7 @@ namespace wetfront::cli {
 std::string objective_text(const SeasonModel& model);
 
 // The adjustable parameters with their ranges, scales and site values.
-std::string parameters_text(const SeasonModel& model);
+std::string parameters_text(const ParameterStudy& study);
 
 // Every run, best first: rank, set number, values, objective, metrics, season and per-visit
 // recharge (mm).

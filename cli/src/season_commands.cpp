@@ -9,7 +9,9 @@
 
 #include <fmt/format.h>
 
+#include "adjustable_parameters.hpp"
 #include "input_error.hpp"
+#include "parameter_report.hpp"
 #include "report_table.hpp"
 #include "season_report.hpp"
 #include "season_setup.hpp"
@@ -218,7 +220,9 @@ void add_check_command(CLI::App& app) {
               "Example:\n  wetfront check examples/demo/site.toml");
   cmd->callback([options] {
     const Season season = prepare_season(load_site_file(options->site, {options->from, options->to}));
+    const ParameterStudy study = load_parameter_study(season.site);
     fmt::print("{}", resolved_setup(season));
+    if (!study.parameters.empty()) fmt::print("{}", parameters_text(study));
     fmt::print("Site file is usable.\n");
   });
 }
