@@ -129,19 +129,24 @@ std::string storage_section(const StorageCheck& storage) {
 std::string water_table_section(const WaterTableCheck& w) {
   std::string out = "Recharge from the water table\n";
   out += fmt::format("  Water-table fluctuation (Healy & Cook 2002) from well {}: recharge = specific yield x rise of the\n"
-                     "  water table between visits (rises only), specific yield {}{}; the rise is taken against a fall of\n"
-                     "  {} cm/d without recharge. Readings within {} d of a visit count as read at it. Beside the model's\n"
-                     "  drainage at the recharge plane; they differ when their signs differ or one exceeds the other by more\n"
-                     "  than a factor of {} (both below {} mm agree).\n",
-                     w.well, number(w.specific_yield), w.specific_yield_note.empty() ? "" : fmt::format(" ({})", w.specific_yield_note),
-                     number(w.recession_cm_per_d), kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
+                     "  water table between visits (rises only), with specific yield {}; the rise is taken against a fall\n"
+                     "  of {} cm/d without recharge.\n",
+                     w.well, number(w.specific_yield), number(w.recession_cm_per_d));
+  if (!w.specific_yield_note.empty()) out += fmt::format("  Specific yield: {}.\n", w.specific_yield_note);
+  out += fmt::format("  Readings within {} d of a visit count as read at it. Beside the model's drainage at the recharge\n"
+                     "  plane; they differ when their signs differ or one exceeds the other by more than a factor of {}\n"
+                     "  (both below {} mm agree). See the visit table for every interval.\n",
+                     kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
   const EstimateSummary s = summarise(w.intervals);
   out += fmt::format("  Intervals with an estimate: {} of {}; over them the model drained {} mm, the water table gives {} mm;\n"
                      "  they differ in {} interval(s).\n",
                      s.estimated, w.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
   if (!s.reasons.empty()) {
     out += "  Where they differ, consider:\n";
-    for (const auto& reason : s.reasons) out += fmt::format("    - {}\n", reason);
+    for (const auto& reason : s.reasons) {
+      // The tensiometer-gradient reason does not apply to a well.
+      if (reason.rfind("sensor depth", 0) != 0) out += fmt::format("    - {}\n", reason);
+    }
     out += "    - specific yield: the estimate scales with it, and a value from a table for the texture can be off by a\n"
            "      factor of two or more\n"
            "    - the water table answers more than the plot: water flowing in or out of the aquifer sideways, pumping\n"

@@ -43,7 +43,7 @@ TEST(RunAndShow, DemoRunWritesAFileThatShowReadsBack) {
   EXPECT_EQ(record.run_start_date, "2025-04-01");
   EXPECT_EQ(record.visit_days.size(), 28u);
   EXPECT_EQ(record.visit_balance.size(), 29u);
-  EXPECT_EQ(record.sensors.size(), 7u);  // four tensiometers, three probes
+  EXPECT_EQ(record.sensors.size(), 9u);  // four tensiometers, three probes, core samples, a well
   ASSERT_EQ(record.flux_plane_depths_cm, std::vector<double>{150.0});
   const auto total = profiles::season_total(record.run.balances);
   // Every term present and the balance closed to a small fraction of the water moved

@@ -77,11 +77,15 @@ TEST(SiteLoader, DemoBoundariesSensorsAndGrid) {
   EXPECT_DOUBLE_EQ(std::get<solver::FixedHead>(site.bottom).head_cm, -50.0);
   ASSERT_TRUE(std::holds_alternative<solver::Hydrostatic>(site.initial));
   EXPECT_DOUBLE_EQ(std::get<solver::Hydrostatic>(site.initial).water_table_depth_cm, 300.0);
-  ASSERT_EQ(site.sensors.size(), 7u);  // four tensiometers, probes at 20, 50 and 80 cm
+  ASSERT_EQ(site.sensors.size(), 9u);  // four tensiometers, probes at 20, 50 and 80 cm, cores, a well
   EXPECT_EQ(site.sensors[0].name, "T30");
   EXPECT_EQ(site.sensors[0].kind, "tensiometer");
   EXPECT_DOUBLE_EQ(site.sensors[3].depth_cm, 120.0);
   EXPECT_EQ(site.sensors[4].kind, "water content probe");
+  EXPECT_EQ(site.sensors[7].kind, "core samples");
+  EXPECT_EQ(site.sensors[8].kind, "observation well");
+  EXPECT_DOUBLE_EQ(site.sensors[8].specific_yield, 0.10);
+  EXPECT_DOUBLE_EQ(site.sensors[8].depth_cm, 0.0);  // no fixed depth: no grid face for it
   EXPECT_DOUBLE_EQ(site.recharge_plane_depth_cm, 150.0);
   const std::vector<double> faces = {20, 30, 40, 50, 60, 80, 90, 120, 150, 250};
   EXPECT_EQ(site.grid.required_face_depths_cm, faces);

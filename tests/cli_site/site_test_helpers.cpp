@@ -79,4 +79,14 @@ ProgramResult run_program(const std::string& arguments, const std::filesystem::p
   return result;
 }
 
+void keep_tensiometers_and_probes(const ScratchSite& site) {
+  std::string text = site.read("site.toml");
+  const auto from = text.find("# Oven-dried cores");
+  const auto to = text.find("[recharge]");
+  if (from == std::string::npos || to == std::string::npos || to < from) {
+    throw std::runtime_error("test setup: the demo site file has no core-samples block before [recharge]");
+  }
+  site.write("site.toml", text.erase(from, to - from));
+}
+
 }  // namespace wetfront::cli::testing

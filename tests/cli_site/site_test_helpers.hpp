@@ -29,6 +29,10 @@ class ScratchSite {
   std::filesystem::path folder_;
 };
 
+// Removes the demo's core samples and observation well (the [[sensors]] tables after the last
+// probe) from the scratch site file, leaving tensiometers and probes only.
+void keep_tensiometers_and_probes(const ScratchSite& site);
+
 struct ProgramResult {
   int exit_code = -1;
   std::string out;

@@ -112,6 +112,7 @@ TEST(StoredWater, TrapezoidOverThreeProbesByHand) {
 
 TEST(StoredWater, FewerThanTwoProbeDepthsGiveANote) {
   ScratchSite site("storage-one-depth");
+  testing::keep_tensiometers_and_probes(site);  // cores at several depths would give a storage
   // All three probes at 20 cm: one depth, no layer to integrate over.
   site.replace("site.toml", "depth = \"50 cm\"\nreadings = \"probe-50cm.csv\"", "depth = \"20 cm\"\nreadings = \"probe-50cm.csv\"");
   site.replace("site.toml", "depth = \"80 cm\"\nreadings = \"probe-80cm.csv\"", "depth = \"20 cm\"\nreadings = \"probe-80cm.csv\"");
@@ -130,6 +131,7 @@ TEST(StoredWater, FewerThanTwoProbeDepthsGiveANote) {
 
 TEST(StoredWater, NoProbesGiveANote) {
   ScratchSite site("storage-none");
+  testing::keep_tensiometers_and_probes(site);
   for (const std::string depth : {"20", "50", "80"}) {
     site.replace("site.toml",
                  fmt::format("[[sensors]]\nname = \"P{0}\"\nkind = \"water content probe\"\ndepth = \"{0} cm\"\n"

@@ -3,6 +3,7 @@
 // samples in the sensor comparison and the stored water, and bad files named by file and line.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <fstream>
 #include <limits>
@@ -29,7 +30,11 @@ using testing::ScratchSite;
 const std::vector<std::string> kVisits = {"2025-04-08", "2025-04-15", "2025-04-22", "2025-04-29", "2025-05-06"};
 
 // A [[sensors]] block placed before [recharge] in the demo site file.
-void add_sensor(const ScratchSite& site, const std::string& block) { site.replace("site.toml", "[recharge]", block + "\n[recharge]"); }
+// The demo's own cores and well are removed first, so the tests set their own.
+void add_sensor(const ScratchSite& site, const std::string& block) {
+  testing::keep_tensiometers_and_probes(site);
+  site.replace("site.toml", "[recharge]", block + "\n[recharge]");
+}
 
 std::string well_block(const std::string& extra = "") {
   return "[[sensors]]\nname = \"W1\"\nkind = \"observation well\"\nreadings = \"well.csv\"\nspecific_yield = 0.1\n" + extra;
@@ -70,7 +75,8 @@ TEST(WaterTableEstimate, ReportCsvAndRunFileCarryTheHandWorkedAmounts) {
                                site.folder());
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(run.out.find("Recharge from the water table"), std::string::npos) << run.out;
-  EXPECT_NE(run.out.find("specific yield 0.1 (invented for the test)"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("with specific yield 0.1;"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("Specific yield: invented for the test."), std::string::npos) << run.out;
   EXPECT_NE(run.out.find("Intervals with an estimate: 4 of 5"), std::string::npos) << run.out;
   EXPECT_NE(run.out.find("the water table gives 25.0 mm"), std::string::npos) << run.out;
 
@@ -214,6 +220,7 @@ TEST(CoreSamples, EnterTheComparisonPerDepthAndPooledWithTheProbes) {
 // taken there at 50 cm stands in. By hand: (0.30 + 0.20) / 2 x 30 cm = 7.5 cm.
 TEST(CoreSamples, StandInForAMissingProbeReadingInTheStoredWater) {
   ScratchSite site("cores-storage");
+  testing::keep_tensiometers_and_probes(site);
   site.replace("site.toml", "[[sensors]]\nname = \"P80\"", "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
                                                           "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
   site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
@@ -296,7 +303,10 @@ TEST(WellSiteKeys, DepthAndMissingSpecificYieldAreErrorsWithTheLine) {
     (void)load_site_file(site.site_file());
     ADD_FAILURE() << "accepted a well with a depth";
   } catch (const InputError& error) {
-    EXPECT_NE(std::string(error.what()).find("site.toml:141: key 'sensors[8].depth'"), std::string::npos) << error.what();
+    const std::string text = site.read("site.toml");
+    const auto line = 1 + std::count(text.begin(), text.begin() + static_cast<long>(text.find("depth = \"300 cm\"\nreadings")), '\n');
+    EXPECT_NE(std::string(error.what()).find(fmt::format("site.toml:{}: key 'sensors[8].depth'", line)), std::string::npos)
+        << error.what();
     EXPECT_NE(std::string(error.what()).find("its readings give the depth to water"), std::string::npos) << error.what();
   }
   ScratchSite second("well-keys-yield");
