@@ -113,8 +113,13 @@ TEST(WaterTableEstimate, ReportCsvAndRunFileCarryTheHandWorkedAmounts) {
   EXPECT_NEAR(w.start_depth_cm[1], 300.0, 1e-12);
   EXPECT_NEAR(w.end_depth_cm[1], 290.0, 1e-12);
 
-  const auto show = run_program(fmt::format("show '{}'", out.string()), site.folder());
+  const auto show = run_program(fmt::format("show '{}' --sensors-csv '{}'", out.string(),
+                                            (site.folder() / "again-sensors.csv").string()),
+                                site.folder());
   ASSERT_EQ(show.exit_code, 0) << show.err;
+  // The fit metrics written by show from the run file are those run wrote.
+  EXPECT_EQ(site.read("again-sensors.csv"), site.read("w-sensors.csv"));
+  EXPECT_NE(site.read("w-sensors.csv").find("all tensiometers,,pressure head,cm,"), std::string::npos);
   const auto section = [](const std::string& text) {
     const auto from = text.find("Sensors against the model");
     return text.substr(from, text.find("Solver:") - from);
