@@ -245,10 +245,15 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   ReportTable residuals;
   residuals.title = "Fit to the readings";
   residuals.headers = {"", "objective", "head RMSE [cm]", "head bias [cm]", "head NSE", "head KGE"};
+  const bool contents = study.after.water_contents.has_value();
+  if (contents) residuals.headers.insert(residuals.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
   for (const auto* run : {&study.before, &study.after}) {
-    residuals.add_row({run == &study.before ? "at start" : "calibrated", number(run->objective, 5),
-                       metric(run->heads.root_mean_square_error), metric(run->heads.bias), metric(run->heads.nash_sutcliffe),
-                       metric(run->heads.kling_gupta)});
+    std::vector<std::string> row{run == &study.before ? "at start" : "calibrated", number(run->objective, 5),
+                                 metric(run->heads.root_mean_square_error), metric(run->heads.bias),
+                                 metric(run->heads.nash_sutcliffe), metric(run->heads.kling_gupta)};
+    if (contents && run->water_contents)
+      row.insert(row.end(), {metric(run->water_contents->root_mean_square_error), metric(run->water_contents->bias)});
+    residuals.add_row(std::move(row));
   }
   out += "\n" + format_table(residuals);
   if (fit.residual_count() > static_cast<int>(fit.parameters.size())) {

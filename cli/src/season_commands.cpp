@@ -127,7 +127,12 @@ std::string resolved_setup(const Season& season) {
   out += "Sensors:\n";
   if (s.sensors.empty()) out += "  none\n";
   for (const auto& sensor : s.sensors) {
-    out += fmt::format("  {} ({}) at {} cm: {}\n", sensor.name, sensor.kind, number(sensor.depth_cm), sensor.readings.string());
+    // Wells and core samples have no fixed depth: each reading carries its own.
+    const bool fixed_depth = sensor.kind == kTensiometer || sensor.kind == kWaterContentProbe;
+    const std::string where = fixed_depth ? fmt::format(" at {} cm", number(sensor.depth_cm))
+                              : sensor.kind == kObservationWell ? fmt::format(", specific yield {}", number(sensor.specific_yield))
+                                                                : std::string();
+    out += fmt::format("  {} ({}){}: {}\n", sensor.name, sensor.kind, where, sensor.readings.string());
   }
   out += fmt::format("Recharge plane: {} cm\n", number(s.recharge_plane_depth_cm));
   out += fmt::format("Solver: relative tolerance {}, storage tolerance {} cm, max step {} d\n",

@@ -6,6 +6,7 @@
 
 #include <fmt/format.h>
 
+#include "simulated_profiles.hpp"
 #include "wetfront/observations/profile_interpolation.hpp"
 #include "wetfront/observations/profile_storage.hpp"
 #include "wetfront/observations/recharge_estimates.hpp"
@@ -15,16 +16,6 @@ namespace wetfront::cli {
 namespace {
 
 namespace obs = observations;
-
-obs::SimulatedProfiles simulated(const solver::ColumnRun& run, bool heads) {
-  obs::SimulatedProfiles profiles;
-  profiles.depths_cm = run.cell_depths_cm;
-  for (const auto& snapshot : run.profiles) {
-    profiles.times_day.push_back(snapshot.time_days);
-    profiles.values.push_back(heads ? snapshot.head_cm : snapshot.water_content);
-  }
-  return profiles;
-}
 
 bool compares(const SensorRecord& r, bool heads) {
   return r.quantity == (heads ? kPressureHead : kWaterContent);
@@ -47,7 +38,7 @@ void compare_kind(const std::vector<SensorRecord>& compared, const solver::Colum
     records.push_back(&r);
   }
   if (series.empty() || run.profiles.size() < 2) return;
-  const auto report = obs::compare_with_simulation(series, simulated(run, heads));
+  const auto report = obs::compare_with_simulation(series, simulated_profiles(run, heads));
   for (std::size_t i = 0; i < records.size(); ++i) {
     const SensorRecord& r = *records[i];
     check.sensors.push_back({r.name, r.kind, r.depth_cm, r.quantity, r.unit, report.sensors[i].metrics,
@@ -224,7 +215,7 @@ StorageCheck check_storage(const std::vector<SensorRecord>& readings, const prof
   if (!check.usable() || record.visit_balance.empty()) return check;
 
   const bool simulated_available = record.run.profiles.size() >= 2;
-  const obs::SimulatedProfiles profiles = simulated_available ? simulated(record.run, false) : obs::SimulatedProfiles{};
+  const obs::SimulatedProfiles profiles = simulated_available ? simulated_profiles(record.run, false) : obs::SimulatedProfiles{};
   // The storage at one visit: at each depth the mean of the readings there, and the model at
   // the same reading times and depths.
   auto storage_at = [&](double day) {
@@ -289,7 +280,7 @@ profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, con
   const std::vector<SensorRecord> compared = compared_series(readings);
   for (const bool heads : {true, false}) {
     if (run.profiles.size() < 2) break;
-    const obs::SimulatedProfiles profiles = simulated(run, heads);
+    const obs::SimulatedProfiles profiles = simulated_profiles(run, heads);
     for (const auto& r : compared) {
       if (!compares(r, heads)) continue;
       for (const auto& o : r.series.observations) {

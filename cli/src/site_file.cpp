@@ -4,7 +4,6 @@
 #include <array>
 #include <cctype>
 #include <cmath>
-#include <fstream>
 #include <sstream>
 
 #include <fmt/format.h>
@@ -653,16 +652,7 @@ void read_numerics(const SiteTable& root, SiteSetup& site) {
 
 SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOverride& period) {
   const std::string file = site_file.string();
-  std::ifstream stream(site_file, std::ios::binary);
-  if (!stream) throw InputError(file, 0, "", "cannot open the site file (missing or unreadable)");
-  std::stringstream buffer;
-  buffer << stream.rdbuf();
-  toml::table document;
-  try {
-    document = toml::parse(buffer.str(), file);
-  } catch (const toml::parse_error& error) {
-    throw InputError(file, error.source().begin.line, "", fmt::format("not valid TOML: {}", error.description()));
-  }
+  const toml::table document = read_site_document(site_file);
   const SiteTable root(document, "", file);
   const auto top = all_top_keys();
   root.only_keys(top);

@@ -383,4 +383,13 @@ std::vector<std::string> read_texts(hid_t parent, std::string_view name) {
   return values;
 }
 
+void set_identity_attributes(hid_t file, const FileIdentity& identity) {
+  set_text_attribute(file, ".", "record_format", identity.format);
+  set_int_attribute(file, ".", "record_format_version", identity.version);
+  set_text_attribute(file, ".", "program_version", identity.program_version);
+  set_text_attribute(file, ".", "site_name", identity.site_name);
+  set_text_attribute(file, ".", "run_start_date", identity.run_start_date);
+  set_text_attribute(file, ".", "input_hash", identity.input_hash);
+}
+
 }  // namespace wetfront::profiles::hdf5

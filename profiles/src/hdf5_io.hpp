@@ -63,6 +63,15 @@ std::vector<std::int64_t> read_integers(hid_t parent, std::string_view name, int
                                         std::vector<std::size_t>& dims);
 std::vector<std::string> read_texts(hid_t parent, std::string_view name);
 
+// What a wetfront file is and where it came from, as attributes of `file`: record_format,
+// record_format_version, program_version, site_name, run_start_date, input_hash.
+struct FileIdentity {
+  std::string_view format;
+  int version = 0;
+  std::string_view program_version, site_name, run_start_date, input_hash;
+};
+void set_identity_attributes(hid_t file, const FileIdentity& identity);
+
 // Full HDF5 path of an object, for messages.
 std::string object_path(hid_t object);
 

@@ -86,13 +86,9 @@ void write_study_run(hid_t runs, const StudyRun& study_run, const std::string& t
 }
 
 void write_contents(hid_t file, const StudyRecord& record) {
-  h5::set_text_attribute(file, ".", "record_format", kStudyFormat);
-  h5::set_int_attribute(file, ".", "record_format_version", kStudyFormatVersion);
+  h5::set_identity_attributes(file, {kStudyFormat, kStudyFormatVersion, record.program_version, record.site_name,
+                                     record.run_start_date, record.input_hash});
   h5::set_text_attribute(file, ".", "study_kind", record.study_kind);
-  h5::set_text_attribute(file, ".", "program_version", record.program_version);
-  h5::set_text_attribute(file, ".", "site_name", record.site_name);
-  h5::set_text_attribute(file, ".", "run_start_date", record.run_start_date);
-  h5::set_text_attribute(file, ".", "input_hash", record.input_hash);
   h5::set_text_attribute(file, ".", "sign_convention", layout::kSignConvention);
   for (const auto& [name, text] : record.notes) h5::set_text_attribute(file, ".", name, text);
   const std::string time_units = days_since_units(record.run_start_date);

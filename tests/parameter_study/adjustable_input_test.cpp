@@ -98,6 +98,7 @@ TEST(AdjustableInput, ProgramExitsWithOneAndWritesNothing) {
 
 TEST(AdjustableInput, ASiteWithoutAdjustableParametersIsRefusedByTheStudyCommands) {
   ScratchSite site("no-study");
+  testing::add_study(site, "");  // removes the demo's own study
   const auto result = testing::run_program(fmt::format("sweep '{}' --quiet", site.site_file().string()), site.folder());
   EXPECT_EQ(result.exit_code, 1);
   EXPECT_NE(result.err.find("no [[adjustable]] entries"), std::string::npos) << result.err;

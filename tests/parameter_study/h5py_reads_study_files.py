@@ -41,8 +41,12 @@ def main():
         site = Path(tmp) / "site"
         shutil.copytree(demo, site, ignore=shutil.ignore_patterns("*.h5", "*-visits.csv"))
         study = (Path(__file__).parent / "data" / "loam-study.toml").read_text()
-        with open(site / "site.toml", "a") as f:
-            f.write("\n" + study)
+        site_text = (site / "site.toml").read_text()
+        # The demo's own study ([fit] and [[adjustable]] at the end) gives way to the test's.
+        cuts = [i for i in (site_text.find("\n[fit]"), site_text.find("\n[[adjustable]]")) if i >= 0]
+        if cuts:
+            site_text = site_text[: min(cuts) + 1]
+        (site / "site.toml").write_text(site_text + "\n" + study)
         common = [str(site / "site.toml"), "--to", "2025-05-10", "--quiet", "--threads", "2"]
         subprocess.run([wetfront, "sweep", *common, "--grid", "--keep", "2"], check=True)
         subprocess.run([wetfront, "calibrate", *common, "--max-runs", "12", "--band-runs", "4"], check=True)

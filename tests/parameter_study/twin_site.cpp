@@ -1,5 +1,6 @@
 #include "twin_site.hpp"
 
+#include <algorithm>
 #include <fstream>
 #include <random>
 #include <sstream>
@@ -13,7 +14,13 @@
 
 namespace wetfront::cli::testing {
 
-void add_study(const ScratchSite& site, const std::string& toml) { site.write("site.toml", site.read("site.toml") + "\n" + toml); }
+void add_study(const ScratchSite& site, const std::string& toml) {
+  // The demo's own study ([fit] and [[adjustable]], at the end of its site file) gives way.
+  std::string text = site.read("site.toml");
+  const auto own = std::min(text.find("\n[fit]"), text.find("\n[[adjustable]]"));
+  if (own != std::string::npos) text.erase(own + 1);
+  site.write("site.toml", text + "\n" + toml);
+}
 
 SeasonModel load_model(const ScratchSite& site, const std::string& end_date) {
   SiteSetup setup = load_site_file(site.site_file(), {"", end_date});

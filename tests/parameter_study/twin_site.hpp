@@ -12,7 +12,8 @@
 
 namespace wetfront::cli::testing {
 
-// Appends [fit] and [[adjustable]] entries (TOML text) to the scratch site's site.toml.
+// Replaces the [fit] and [[adjustable]] entries at the end of the scratch site's site.toml by
+// `toml` (or appends it when there are none).
 void add_study(const ScratchSite& site, const std::string& toml);
 
 // The site and study as the commands load them, for a run ending on `end_date`.
