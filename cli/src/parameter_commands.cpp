@@ -116,7 +116,7 @@ void add_sweep_command(CLI::App& app) {
     progress.finish();
     const unsigned threads = std::min<unsigned>(observations::thread_count(o->threads), static_cast<unsigned>(sweep.runs.size()));
     const std::filesystem::path csv = sibling(out, ".csv");
-    write_sweep_file(out, model, sweep, o->kept, WETFRONT_VERSION);
+    write_sweep_file(out, model, sweep, o->kept, o->threads, WETFRONT_VERSION);
     write_csv(sweep_table(model, sweep), csv.string());
     if (!o->quiet) {
       fmt::print("{}", sweep_report(model, sweep, o->shown, seconds, threads));

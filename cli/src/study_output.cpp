@@ -1,11 +1,13 @@
 #include "study_output.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 
 #include <fmt/format.h>
 
 #include "input_error.hpp"
+#include "wetfront/observations/parallel_batch.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/profiles/study_file.hpp"
 
@@ -86,7 +88,7 @@ void save(const std::filesystem::path& path, const profiles::StudyRecord& record
 }  // namespace
 
 void write_sweep_file(const std::filesystem::path& path, const SeasonModel& model, const SweepResult& sweep, std::size_t kept,
-                      const std::string& program_version) {
+                      unsigned threads, const std::string& program_version) {
   profiles::StudyRecord record = study_record(model, "parameter sweep", program_version);
   record.notes.push_back({"sampling", sweep.method});
   record.tables.push_back(parameter_table(model));
@@ -129,14 +131,16 @@ void write_sweep_file(const std::filesystem::path& path, const SeasonModel& mode
   sets.matrices = {values, recharge};
   record.tables.push_back(std::move(sets));
 
-  for (std::size_t r = 0; r < sweep.ranking.size() && record.runs.size() < kept; ++r) {
+  // The best complete runs again, in parallel, for their profiles (deterministic: the same runs).
+  std::size_t count = 0;
+  while (count < std::min(kept, sweep.ranking.size()) && sweep.runs[sweep.ranking[count]].complete) ++count;
+  std::vector<profiles::RunRecord> records(count);
+  observations::run_batch(count, threads, [&](std::size_t r) { model.run(sweep.runs[sweep.ranking[r]].values, &records[r]); });
+  for (std::size_t r = 0; r < count; ++r) {
     const ScoredRun& best = sweep.runs[sweep.ranking[r]];
-    if (!best.complete) break;
-    profiles::RunRecord run_record;
-    model.run(best.values, &run_record);
     record.runs.push_back({fmt::format("rank_{}", r + 1),
                            fmt::format("set {}, rank {} by objective ({})", sweep.ranking[r] + 1, r + 1, best.objective),
-                           labelled_values(model, best.values), std::move(run_record.run)});
+                           labelled_values(model, best.values), std::move(records[r].run)});
   }
   save(path, record);
 }

@@ -10,9 +10,10 @@
 namespace wetfront::cli {
 
 // The ranked table of every set and the profiles of the `kept` best complete runs (run again
-// to get their profiles; the runs are deterministic, so they are the runs of the table).
+// on `threads` threads to get their profiles; the runs are deterministic, so they are the runs
+// of the table).
 void write_sweep_file(const std::filesystem::path& path, const SeasonModel& model, const SweepResult& sweep, std::size_t kept,
-                      const std::string& program_version);
+                      unsigned threads, const std::string& program_version);
 
 // Parameters with standard errors, covariance and correlation, the recharge band per interval,
 // and the profiles of the calibrated run.

@@ -61,17 +61,17 @@ class CachedModel {
   void differences(const Eigen::VectorXd& p, Eigen::MatrixXd* residual_jacobian, Eigen::MatrixXd* output_jacobian) {
     const auto count = static_cast<Eigen::Index>(parameters_.size());
     std::vector<Eigen::VectorXd> points{p};
-    for (Eigen::Index k = 0; k < count; ++k) points.push_back(shifted(p, k, +1));
+    for (Eigen::Index k = 0; k < count; ++k) points.push_back(shifted(p, k, false));
     ensure(points);
     const ModelRun& base = run(p);
     if (!base.ok) throw std::runtime_error(fmt::format("the model failed at the point of a difference step: {}", base.failure));
     if (residual_jacobian) residual_jacobian->resize(base.residuals.size(), count);
     if (output_jacobian) output_jacobian->resize(base.outputs.size(), count);
     for (Eigen::Index k = 0; k < count; ++k) {
-      Eigen::VectorXd q = shifted(p, k, +1);
+      Eigen::VectorXd q = shifted(p, k, false);
       const ModelRun* other = &run(q);
       if (!other->ok) {  // the other side, if the run beyond failed
-        q = shifted(p, k, -1);
+        q = shifted(p, k, true);
         other = &run(q);
         if (!other->ok)
           throw std::runtime_error(fmt::format("the model failed on both sides of a difference step in '{}': {}",
@@ -102,14 +102,13 @@ class CachedModel {
     return options_.difference_step * (to_search_scale(parameter, parameter.upper) - to_search_scale(parameter, parameter.lower));
   }
 
-  // p moved by one step in parameter k, forward unless that leaves the range.
-  Eigen::VectorXd shifted(const Eigen::VectorXd& p, Eigen::Index k, int direction) const {
+  // p moved by one step in parameter k: forward, or backward when forward would leave the
+  // range; `other_side` gives the opposite point (for a run that failed on the first side).
+  Eigen::VectorXd shifted(const Eigen::VectorXd& p, Eigen::Index k, bool other_side) const {
     const auto& parameter = parameters_[static_cast<std::size_t>(k)];
-    const double upper = to_search_scale(parameter, parameter.upper);
+    const bool forward_fits = p[k] + step(k) <= to_search_scale(parameter, parameter.upper);
     Eigen::VectorXd q = p;
-    const double forward = p[k] + step(k);
-    q[k] = (direction > 0 && forward <= upper) ? forward : p[k] - step(k);
-    if (direction < 0 && forward <= upper && q[k] < to_search_scale(parameter, parameter.lower)) q[k] = forward;
+    q[k] = forward_fits != other_side ? p[k] + step(k) : p[k] - step(k);
     return q;
   }
 
