@@ -129,6 +129,12 @@ void compare_with_model(EstimateInterval& interval) {
 
 namespace {
 
+// Sorted, with depths closer than kCoreDepthStepCm kept once.
+void sort_distinct(std::vector<double>& depths) {
+  std::sort(depths.begin(), depths.end());
+  depths.erase(std::unique(depths.begin(), depths.end(), same_depth), depths.end());
+}
+
 // The series compared with the model: tensiometers and probes as they are, core samples split
 // into one series per depth ("NAME at 30 cm"), wells left out (they give the water table).
 std::vector<SensorRecord> compared_series(const std::vector<SensorRecord>& readings) {
@@ -141,8 +147,7 @@ std::vector<SensorRecord> compared_series(const std::vector<SensorRecord>& readi
     }
     std::vector<double> depths;
     for (const auto& o : r.series.observations) depths.push_back(o.depth_cm);
-    std::sort(depths.begin(), depths.end());
-    depths.erase(std::unique(depths.begin(), depths.end()), depths.end());
+    sort_distinct(depths);
     for (const double depth : depths) {
       SensorRecord one = r;
       one.name = fmt::format("{} at {} cm", r.name, depth);
@@ -151,7 +156,7 @@ std::vector<SensorRecord> compared_series(const std::vector<SensorRecord>& readi
       one.series.observations.clear();
       one.lines.clear();
       for (std::size_t k = 0; k < r.series.observations.size(); ++k) {
-        if (r.series.observations[k].depth_cm != depth) continue;
+        if (!same_depth(r.series.observations[k].depth_cm, depth)) continue;
         one.series.observations.push_back(r.series.observations[k]);
         if (k < r.lines.size()) one.lines.push_back(r.lines[k]);
       }
@@ -170,8 +175,7 @@ std::vector<double> distinct_depths(const std::vector<const SensorRecord*>& reco
       depths.push_back(r->depth_cm);
     }
   }
-  std::sort(depths.begin(), depths.end());
-  depths.erase(std::unique(depths.begin(), depths.end()), depths.end());
+  sort_distinct(depths);
   return depths;
 }
 
@@ -182,13 +186,13 @@ std::vector<const obs::Observation*> readings_at(const std::vector<const SensorR
                                                  const std::vector<const SensorRecord*>& cores, double depth, double day) {
   std::vector<const obs::Observation*> found;
   for (const SensorRecord* p : probes) {
-    if (p->depth_cm != depth) continue;
+    if (!same_depth(p->depth_cm, depth)) continue;
     if (const obs::Observation* o = reading_near(*p, day)) found.push_back(o);
   }
   if (!found.empty()) return found;
   for (const SensorRecord* c : cores) {
     for (const auto& o : c->series.observations) {
-      if (o.depth_cm == depth && std::abs(o.day - day) <= kVisitReadingWindowDays) found.push_back(&o);
+      if (same_depth(o.depth_cm, depth) && std::abs(o.day - day) <= kVisitReadingWindowDays) found.push_back(&o);
     }
   }
   return found;
@@ -208,7 +212,7 @@ StorageCheck check_storage(const std::vector<SensorRecord>& readings, const prof
   for (const auto* p : probes) check.probe_names.push_back(p->name);
   for (const auto* c : cores) {
     const bool helps = std::any_of(c->series.observations.begin(), c->series.observations.end(), [&](const auto& o) {
-      return std::find(check.depths_cm.begin(), check.depths_cm.end(), o.depth_cm) != check.depths_cm.end();
+      return std::any_of(check.depths_cm.begin(), check.depths_cm.end(), [&](double d) { return same_depth(d, o.depth_cm); });
     });
     if (helps) check.probe_names.push_back(c->name);
   }

@@ -35,9 +35,9 @@ double number_at(const CsvTable& table, std::size_t row, std::size_t column) {
   }
 }
 
-SensorRecord read_one(const SensorSetup& sensor, forcing::TimePoint run_start) {
+SensorRecord read_one(const SensorSetup& sensor, forcing::TimePoint run_start, double column_depth_cm) {
   if (sensor.kind == kObservationWell) return read_well_levels(sensor, run_start);
-  if (sensor.kind == kCoreSamples) return read_core_samples(sensor, run_start);
+  if (sensor.kind == kCoreSamples) return read_core_samples(sensor, run_start, column_depth_cm);
   const CsvTable table = CsvTable::read(sensor.readings.string());
   SensorRecord record;
   record.name = sensor.name;
@@ -122,7 +122,8 @@ SensorRecord read_one(const SensorSetup& sensor, forcing::TimePoint run_start) {
 
 std::vector<SensorRecord> read_sensor_readings(const SiteSetup& site) {
   std::vector<SensorRecord> records;
-  for (const auto& sensor : site.sensors) records.push_back(read_one(sensor, site.run_start));
+  const double column_depth_cm = site.layers.empty() ? 0.0 : site.layers.back().bottom_depth_cm;
+  for (const auto& sensor : site.sensors) records.push_back(read_one(sensor, site.run_start, column_depth_cm));
   return records;
 }
 

@@ -13,6 +13,7 @@
 //                         optional `tare mass` (g, kg) weighed with them (oven-dried cores)
 #pragma once
 
+#include <cmath>
 #include <cstddef>
 #include <string>
 #include <string_view>
@@ -53,8 +54,14 @@ struct SensorRecord {
 std::vector<SensorRecord> read_sensor_readings(const SiteSetup& site);
 
 // The readers for one observation well and one core-samples file (well_core_readings.cpp).
-// Core times must not decrease (several cores share a visit time).
+// Core times must not decrease (several cores share a visit time). Core depths are rounded to
+// kCoreDepthStepCm and must lie within the column (0 < depth <= column_depth_cm).
 SensorRecord read_well_levels(const SensorSetup& well, forcing::TimePoint run_start);
-SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_start);
+SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_start, double column_depth_cm);
+
+// Sensor and core depths closer than this are the same depth (a depth in m or mm converted to
+// cm carries binary rounding, 0.55 m -> 55.00000000000001 cm).
+inline constexpr double kCoreDepthStepCm = 1e-6;  // must stay 1e-6: well_core_readings.cpp rounds to it
+inline bool same_depth(double a_cm, double b_cm) { return std::abs(a_cm - b_cm) <= kCoreDepthStepCm; }
 
 }  // namespace wetfront::cli

@@ -3,6 +3,7 @@
 // Core masses go through the laboratory routine soils::core_properties:
 //   theta = (wet - dry) / (rho_w V), rho_w = 1 g/cm3 (soils/core_samples.hpp).
 #include <array>
+#include <cmath>
 #include <optional>
 #include <stdexcept>
 #include <utility>
@@ -100,7 +101,13 @@ SensorRecord read_well_levels(const SensorSetup& well, forcing::TimePoint run_st
   return record;
 }
 
-SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_start) {
+namespace {
+// To the nearest 1e-6 cm (kCoreDepthStepCm): an integer count of steps divided by 1e6, which
+// gives the double nearest the decimal depth.
+double round_core_depth_cm(double depth_cm) { return std::round(depth_cm * 1e6) / 1e6; }
+}  // namespace
+
+SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_start, double column_depth_cm) {
   const CsvTable table = CsvTable::read(cores.readings.string());
   SensorRecord record = start_record(cores, kWaterContent, "cm3/cm3");
   const std::size_t time_col = table.require_column("time");
@@ -139,10 +146,16 @@ SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_
     const double day = day_at(table, row, time_col, run_start);
     if (day < previous_day) throw table.error_at(row, time_col, "times must not decrease down the file");
     previous_day = day;
-    const double depth_cm = number_at(table, row, depth_col) * depth_factor;
+    // Rounded so that a depth given in m or mm matches the same depth of a probe (0.55 m x 100
+    // is 55.00000000000001 cm in binary floating point).
+    const double depth_cm = round_core_depth_cm(number_at(table, row, depth_col) * depth_factor);
     if (!(depth_cm > 0)) {
       throw table.error_at(row, depth_col, fmt::format("a core depth below the surface is greater than zero, got {} {}",
                                                        table.text(row, depth_col), table.column(depth_col).unit));
+    }
+    if (depth_cm > column_depth_cm) {
+      throw table.error_at(row, depth_col, fmt::format("a core depth must lie within the soil column (0 to {} cm), got {} {}",
+                                                       column_depth_cm, table.text(row, depth_col), table.column(depth_col).unit));
     }
     double theta = 0;
     if (content_col) {
@@ -158,6 +171,23 @@ SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_
       core.tare_mass_g = tare_col ? number_at(table, row, *tare_col) * tare_factor : 0.0;
       core.wet_mass_g = number_at(table, row, wet_col) * wet_factor;
       core.oven_dry_mass_g = number_at(table, row, dry_col) * dry_factor;
+      // The ring and the tare are checked against their own columns; the wet mass after them
+      // (soils::core_properties).
+      if (!(core.ring_volume_cm3 > 0)) {
+        throw table.error_at(row, volume_col, fmt::format("a ring volume is greater than zero, got {} {}", table.text(row, volume_col),
+                                                          table.column(volume_col).unit));
+      }
+      if (tare_col && !(core.tare_mass_g >= 0)) {
+        throw table.error_at(row, *tare_col, fmt::format("a tare mass is zero or more, got {} {}", table.text(row, *tare_col),
+                                                         table.column(*tare_col).unit));
+      }
+      if (!(core.oven_dry_mass_g > core.tare_mass_g)) {
+        throw table.error_at(row, dry_col,
+                             tare_col ? fmt::format("the dry mass ({} g) must exceed the tare mass ({} g): the ring holds no soil",
+                                                    core.oven_dry_mass_g, core.tare_mass_g)
+                                      : fmt::format("a dry mass is greater than zero, got {} {}", table.text(row, dry_col),
+                                                    table.column(dry_col).unit));
+      }
       try {
         theta = soils::core_properties(core).volumetric_water_content;
       } catch (const std::invalid_argument& error) {

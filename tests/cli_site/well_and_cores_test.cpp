@@ -246,6 +246,44 @@ TEST(CoreSamples, StandInForAMissingProbeReadingInTheStoredWater) {
   EXPECT_NEAR(*check.visits[2].observed_cm, 7.5, 1e-12);
 }
 
+// A core depth in metres converted to cm carries binary rounding (0.55 x 100 =
+// 55.00000000000001); read as 55 cm it stands in for the probe at 55 cm. By hand: (0.30 + 0.20)
+// / 2 x 35 cm = 8.75 cm between 20 and 55 cm.
+TEST(CoreSamples, DepthInMetresMatchesAProbeDepthInCentimetres) {
+  ScratchSite site("cores-metres");
+  testing::keep_tensiometers_and_probes(site);
+  site.replace("site.toml", "[[sensors]]\nname = \"P80\"", "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
+                                                          "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
+  site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
+  site.replace("site.toml", "name = \"P50\"\nkind = \"water content probe\"\ndepth = \"50 cm\"", "name = \"P50\"\nkind = \"water content probe\"\ndepth = \"55 cm\"");
+  site.write("probe-20cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
+  site.write("probe-80cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
+  site.write("probe-50cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.22\n");
+  site.write("cores.csv", "time,depth [m],water content [%]\n2025-04-15T10:00,0.55,20\n");
+  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-20"}));
+  const SensorRecord* cores = nullptr;
+  for (const auto& r : season.sensor_readings) {
+    if (r.name == "C") cores = &r;
+  }
+  ASSERT_NE(cores, nullptr);
+  ASSERT_EQ(cores->series.observations.size(), 1u);
+  EXPECT_EQ(cores->series.observations[0].depth_cm, 55.0);
+  const solver::ColumnRun run = solver::simulate(season.problem);
+  const profiles::RunRecord record = make_record(season, run, "test");
+  const StorageCheck check = check_storage(season.sensor_readings, record);
+  ASSERT_EQ(check.depths_cm.size(), 2u);
+  EXPECT_EQ(check.depths_cm[0], 20.0);
+  EXPECT_NEAR(check.depths_cm[1], 55.0, kCoreDepthStepCm);
+  EXPECT_EQ(check.probe_names.back(), "C");
+  ASSERT_GE(check.visits.size(), 3u);
+  ASSERT_TRUE(check.visits[2].observed_cm.has_value());
+  EXPECT_NEAR(*check.visits[2].observed_cm, 8.75, 1e-9);
+  // One series for the core depth, named with the depth as read.
+  const SensorCheck sensors = check_sensors(season, season.sensor_readings, record);
+  const bool named = std::any_of(sensors.sensors.begin(), sensors.sensors.end(), [](const auto& r) { return r.name == "C at 55 cm"; });
+  EXPECT_TRUE(named);
+}
+
 struct BadCase {
   const char* label;
   const char* file;         // the file written
@@ -288,6 +326,14 @@ INSTANTIATE_TEST_SUITE_P(
                 "cores.csv:1: a core-samples file needs either a 'water content' column or the columns 'wet mass'"},
         BadCase{"core-depth-zero", "cores.csv", "time,depth [cm],water content [%]\n2025-04-08,0,20\n", kCores,
                 "cores.csv:2: column 'depth': a core depth below the surface is greater than zero"},
+        BadCase{"core-below-column", "cores.csv", "time,depth [cm],water content [%]\n2025-04-08,20,20\n2025-04-08,300,20\n", kCores,
+                "cores.csv:3: column 'depth': a core depth must lie within the soil column (0 to 250 cm), got 300 cm"},
+        BadCase{"core-ring-zero", "cores.csv",
+                "time,depth [cm],wet mass [g],dry mass [g],ring volume [cm3]\n2025-04-08,20,165,135,0\n", kCores,
+                "cores.csv:2: column 'ring volume': a ring volume is greater than zero, got 0 cm3"},
+        BadCase{"core-tare-above-dry", "cores.csv",
+                "time,depth [cm],wet mass [g],dry mass [g],ring volume [cm3],tare mass [g]\n2025-04-08,20,165,135,100,140\n", kCores,
+                "cores.csv:2: column 'dry mass': the dry mass (135 g) must exceed the tare mass (140 g)"},
         BadCase{"core-mass-unit", "cores.csv",
                 "time,depth [cm],wet mass [lb],dry mass [g],ring volume [cm3]\n2025-04-08,20,150,135,100\n", kCores,
                 "cores.csv:1: column 'wet mass': the column needs a unit in the header, one of g or kg"}),
