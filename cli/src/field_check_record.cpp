@@ -7,6 +7,7 @@
 #include <limits>
 
 #include "sensor_check.hpp"
+#include "simulated_profiles.hpp"
 
 namespace wetfront::cli {
 namespace {
@@ -37,6 +38,31 @@ std::vector<EstimateInterval> intervals_from(const profiles::RunRecord& record, 
     intervals.push_back(std::move(interval));
   }
   return intervals;
+}
+
+// The readings within the run's times but above the shallowest or below the deepest cell
+// centre: not stored as a count, so counted again from the stored readings and the profiles
+// (a stored reading is unused and has no simulated value there).
+void count_outside_depth(const profiles::RunRecord& record, SensorCheck& check) {
+  if (record.run.profiles.size() < 2) return;
+  const observations::SimulatedProfiles axes = simulated_profiles(record.run, true);
+  auto outside = [&](const profiles::ComparedReading& r) {
+    return !r.used && r.time_days >= axes.times_day.front() && r.time_days <= axes.times_day.back() &&
+           (r.depth_cm < axes.depths_cm.front() || r.depth_cm > axes.depths_cm.back());
+  };
+  const auto& c = *record.sensor_comparison;
+  for (const auto* readings : {&c.pressure_head, &c.water_content}) {
+    const std::string quantity(readings == &c.pressure_head ? kPressureHead : kWaterContent);
+    for (const auto& r : *readings) {
+      if (!outside(r)) continue;
+      for (auto& row : check.sensors) {
+        if (row.name == r.sensor) ++row.outside_depth;
+      }
+      for (auto& row : check.pooled) {
+        if (row.quantity == quantity) ++row.outside_depth;
+      }
+    }
+  }
 }
 
 }  // namespace
@@ -98,6 +124,7 @@ SensorCheck check_from_record(const profiles::RunRecord& record) {
       row.metrics.kling_gupta = m.kling_gupta;
       (std::isnan(m.depth_cm) ? check.pooled : check.sensors).push_back(std::move(row));
     }
+    count_outside_depth(record, check);
   }
   if (record.darcy_estimate) {
     const auto& d = *record.darcy_estimate;

@@ -42,11 +42,13 @@ void compare_kind(const std::vector<SensorRecord>& compared, const solver::Colum
   for (std::size_t i = 0; i < records.size(); ++i) {
     const SensorRecord& r = *records[i];
     check.sensors.push_back({r.name, r.kind, r.depth_cm, r.quantity, r.unit, report.sensors[i].metrics,
-                             report.sensors[i].unreliable_left_out, report.sensors[i].outside_simulation});
+                             report.sensors[i].unreliable_left_out, report.sensors[i].outside_simulation,
+                             report.sensors[i].outside_depth});
     order.push_back(static_cast<std::size_t>(&r - compared.data()));
   }
   check.pooled.push_back({pooled_name(records, heads), "", std::numeric_limits<double>::quiet_NaN(), records.front()->quantity,
-                          records.front()->unit, report.overall, report.unreliable_left_out, report.outside_simulation});
+                          records.front()->unit, report.overall, report.unreliable_left_out, report.outside_simulation,
+                          report.outside_depth});
 }
 
 // The head of a reliable reading within the window of `day`, the nearest one.

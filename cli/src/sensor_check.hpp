@@ -21,8 +21,10 @@ struct SensorFitRow {
   std::string quantity;    // "pressure head" or "water content"
   std::string unit;        // "cm" or "cm3/cm3"
   observations::FitMetrics metrics;
+  // Each left-out reading counts once: outside the run first, then outside the depths.
   int beyond_working_limit = 0;  // left out: tensiometer beyond its working limit
   int outside_run = 0;           // left out: before the start or after the end reached
+  int outside_depth = 0;         // left out: above the shallowest or below the deepest cell centre
 };
 
 // One visit interval of a recharge estimate from field data beside the model's drainage.

@@ -48,21 +48,28 @@ std::string sensor_section(const SensorCheck& sensors) {
     const int digits = r.unit == "cm" ? 1 : 3;
     table.add_row({r.name, std::isnan(r.depth_cm) ? std::string("") : number(r.depth_cm),
                    fmt::format("{} [{}]", r.quantity, r.unit), fmt::format("{}", r.metrics.count),
-                   fmt::format("{}", r.beyond_working_limit + r.outside_run), value(r.metrics.bias, digits),
+                   fmt::format("{}", r.beyond_working_limit + r.outside_run + r.outside_depth), value(r.metrics.bias, digits),
                    value(r.metrics.root_mean_square_error, digits), value(r.metrics.nash_sutcliffe, 2),
                    value(r.metrics.kling_gupta, 2)});
   };
   for (const auto& r : sensors.sensors) add(r);
   for (const auto& r : sensors.pooled) add(r);
   out += format_table(table);
-  int limit = 0, outside = 0;
+  int limit = 0, outside = 0, off_depth = 0;
   for (const auto& r : sensors.pooled) {
     if (r.unit == "cm") limit += r.beyond_working_limit;
     outside += r.outside_run;
+    off_depth += r.outside_depth;
   }
   out += fmt::format("  Left out: {} tensiometer reading(s) beyond the working limit (the water column cavitates at high tension,\n"
                      "  so the reading no longer gives the soil's head); {} reading(s) outside the time the run covers.\n",
                      limit, outside);
+  if (off_depth > 0) {
+    out += fmt::format("  Also left out: {} reading(s) above the shallowest or below the deepest cell centre, where the model\n"
+                       "  gives no value to interpolate.\n", off_depth);
+  }
+  out += "  A reading left out for more than one reason counts once: outside the run first, then outside the cell\n"
+         "  centres, then beyond the working limit.\n";
   out += "  Pooled rows combine all sensors of one kind; heads and water contents are never pooled together.\n"
          "  NSE and KGE are n/a where the readings have no spread.\n";
   if (sensors.darcy) {
@@ -159,12 +166,12 @@ ReportTable sensor_metrics_table(const SensorCheck& sensors) {
   ReportTable table;
   table.title = "Fit metrics per sensor and pooled";
   table.headers = {"sensor", "depth [cm]", "quantity", "unit", "readings used", "left out beyond working limit",
-                   "left out outside run", "bias [see unit]", "RMSE [see unit]", "NSE [1]", "KGE [1]"};
+                   "left out outside run", "left out outside cell centres", "bias [see unit]", "RMSE [see unit]", "NSE [1]", "KGE [1]"};
   auto add = [&](const SensorFitRow& r) {
     auto plain = [](double v) { return std::isnan(v) ? std::string("") : fmt::format("{:.6g}", v); };
     table.add_row({r.name, std::isnan(r.depth_cm) ? std::string("") : number(r.depth_cm), r.quantity, r.unit,
                    fmt::format("{}", r.metrics.count), fmt::format("{}", r.beyond_working_limit), fmt::format("{}", r.outside_run),
-                   plain(r.metrics.bias), plain(r.metrics.root_mean_square_error), plain(r.metrics.nash_sutcliffe),
+                   fmt::format("{}", r.outside_depth), plain(r.metrics.bias), plain(r.metrics.root_mean_square_error), plain(r.metrics.nash_sutcliffe),
                    plain(r.metrics.kling_gupta)});
   };
   for (const auto& r : sensors.sensors) add(r);

@@ -135,9 +135,11 @@ TEST(SensorsAgainstModel, ReadingsAtTheWorkingLimitAreLeftOutAndCounted) {
   int in_april = 0;
   for (const auto& o : season.sensor_readings.front().series.observations) in_april += o.day < 15 && !o.reliable ? 1 : 0;
   EXPECT_EQ(in_april, 2);
-  // Summer readings beyond the limit (after the shortened run) are counted with them.
-  int beyond = 0;
-  for (const auto& r : season.sensor_readings) beyond += r.beyond_working_limit;
+  // By hand from the demo files: up to 2025-05-20 the demo tensiometers read at most 21.3 kPa
+  // (T90 on 2025-04-08), so within the shortened run only the two T30 readings set above 80 kPa
+  // are beyond the limit. Summer readings beyond it fall after the run's end and count as
+  // outside the run, not here.
+  const int beyond = 2;
   const auto run = run_program(fmt::format("run '{}' --out '{}' --to 2025-05-20", site.site_file().string(),
                                            (site.folder() / "s.h5").string()), site.folder());
   ASSERT_EQ(run.exit_code, 0) << run.err;

@@ -56,5 +56,24 @@ TEST(SensorComparison, BiasPerSensorAndPooled) {
   EXPECT_EQ(with_all.unreliable_left_out, 0);
 }
 
+// A reading both after the run and beyond the working limit counts as outside the run; one
+// within the run but below the deepest cell centre counts apart, as outside the depths.
+TEST(SensorComparison, EachLeftOutReadingCountsOnceOutsideTheRunFirst) {
+  SensorSeries s{"tensiometer 60 cm", {}};
+  s.observations.push_back({1.0, 60, -170, true});
+  s.observations.push_back({5.0, 60, -900, false});  // after the run and unreliable
+  s.observations.push_back({2.0, 80, -200, true});   // below the deepest centre (70 cm)
+  s.observations.push_back({3.0, 60, -900, false});  // unreliable only
+  const std::vector<SensorSeries> sensors = {s};
+  const ComparisonReport report = compare_with_simulation(sensors, falling_heads());
+  EXPECT_EQ(report.sensors[0].metrics.count, 1);
+  EXPECT_EQ(report.sensors[0].outside_simulation, 1);
+  EXPECT_EQ(report.sensors[0].outside_depth, 1);
+  EXPECT_EQ(report.sensors[0].unreliable_left_out, 1);
+  EXPECT_EQ(report.outside_simulation, 1);
+  EXPECT_EQ(report.outside_depth, 1);
+  EXPECT_EQ(report.unreliable_left_out, 1);
+}
+
 }  // namespace
 }  // namespace wetfront::observations

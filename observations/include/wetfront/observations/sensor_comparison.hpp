@@ -18,8 +18,11 @@ struct ComparisonOptions {
 struct SensorFit {
   std::string name;
   FitMetrics metrics;
+  // Each left-out reading is counted once, under the first reason in this order: outside the
+  // simulated times, outside the simulated depths, marked unreliable.
   int unreliable_left_out = 0;
-  int outside_simulation = 0;  // observation times or depths the profiles do not cover
+  int outside_simulation = 0;  // observation times the profiles do not cover
+  int outside_depth = 0;       // within the times, at a depth the profiles do not cover
 };
 
 struct ComparisonReport {
@@ -27,6 +30,7 @@ struct ComparisonReport {
   FitMetrics overall;          // all used pairs of all sensors pooled
   int unreliable_left_out = 0;
   int outside_simulation = 0;
+  int outside_depth = 0;
 };
 
 // Throws std::invalid_argument when the profiles fail check_profiles.
