@@ -6,6 +6,8 @@
 #include <cmath>
 #include <limits>
 
+#include <fmt/format.h>
+
 #include "sensor_check.hpp"
 #include "simulated_profiles.hpp"
 
@@ -63,6 +65,27 @@ void count_outside_depth(const profiles::RunRecord& record, SensorCheck& check) 
       }
     }
   }
+}
+
+// The water-content sources from the metric rows: a row named like a probe of the run file's
+// sensor list ("P20 (water content probe)") is that probe; a row "C at 20 cm" of a core-samples
+// entry C is that entry at its depth.
+std::vector<StorageSource> storage_sources(const profiles::RunRecord& record, const SensorCheck& check) {
+  std::vector<StorageSource> sources;
+  const std::string probe_suffix = fmt::format(" ({})", kWaterContentProbe);
+  const std::string core_suffix = fmt::format(" ({})", kCoreSamples);
+  for (const auto& row : check.sensors) {
+    if (row.quantity != kWaterContent) continue;
+    for (const auto& sensor : record.sensors) {
+      if (sensor.name == row.name + probe_suffix) {
+        sources.push_back({row.name, false, row.depth_cm});
+      } else if (sensor.name.ends_with(core_suffix)) {
+        const std::string core = sensor.name.substr(0, sensor.name.size() - core_suffix.size());
+        if (row.name.starts_with(core + " at ")) sources.push_back({core, true, row.depth_cm});
+      }
+    }
+  }
+  return sources;
 }
 
 }  // namespace
@@ -155,16 +178,10 @@ SensorCheck check_from_record(const profiles::RunRecord& record) {
     }
     check.storage = std::move(storage);
   } else if (record.sensor_comparison) {
-    // No stored water in the file: the site had water contents at fewer than two depths; keep
-    // those depths so that the report says so, as `run` did.
+    // No stored water in the file: the site had water contents at fewer than two depths; find
+    // them by the rule `run` used, so that the report says the same.
     StorageCheck storage;
-    for (const auto& row : check.sensors) {
-      if (row.quantity != kWaterContent) continue;
-      if (std::find(storage.depths_cm.begin(), storage.depths_cm.end(), row.depth_cm) == storage.depths_cm.end()) {
-        storage.depths_cm.push_back(row.depth_cm);
-        storage.probe_names.push_back(row.name);
-      }
-    }
+    choose_storage_depths(storage_sources(record, check), storage);
     if (!storage.usable()) check.storage = std::move(storage);
   }
   return check;

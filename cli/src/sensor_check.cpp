@@ -168,19 +168,6 @@ std::vector<SensorRecord> compared_series(const std::vector<SensorRecord>& readi
   return compared;
 }
 
-std::vector<double> distinct_depths(const std::vector<const SensorRecord*>& records) {
-  std::vector<double> depths;
-  for (const auto* r : records) {
-    if (r->kind == kCoreSamples) {
-      for (const auto& o : r->series.observations) depths.push_back(o.depth_cm);
-    } else {
-      depths.push_back(r->depth_cm);
-    }
-  }
-  sort_distinct(depths);
-  return depths;
-}
-
 // The readings at `depth` that count for a visit on `day`: the nearest reading of every probe
 // there within the window; when none of them has one, every core sample at that depth within
 // the window.
@@ -202,6 +189,25 @@ std::vector<const obs::Observation*> readings_at(const std::vector<const SensorR
 
 }  // namespace
 
+void choose_storage_depths(const std::vector<StorageSource>& sources, StorageCheck& check) {
+  std::vector<double> probe_depths, core_depths;
+  for (const auto& s : sources) (s.core ? core_depths : probe_depths).push_back(s.depth_cm);
+  sort_distinct(probe_depths);
+  sort_distinct(core_depths);
+  check.depths_cm = probe_depths.size() < 2 && core_depths.size() >= 2 ? core_depths : probe_depths;
+  check.probe_names.clear();
+  for (const bool core : {false, true}) {
+    for (const auto& s : sources) {
+      if (s.core != core) continue;
+      const bool at_a_depth =
+          std::any_of(check.depths_cm.begin(), check.depths_cm.end(), [&](double d) { return same_depth(d, s.depth_cm); });
+      if (at_a_depth && std::find(check.probe_names.begin(), check.probe_names.end(), s.name) == check.probe_names.end()) {
+        check.probe_names.push_back(s.name);
+      }
+    }
+  }
+}
+
 StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record) {
   StorageCheck check;
   std::vector<const SensorRecord*> probes, cores;
@@ -209,15 +215,12 @@ StorageCheck check_storage(const std::vector<SensorRecord>& readings, const prof
     if (r.kind == kWaterContentProbe) probes.push_back(&r);
     if (r.kind == kCoreSamples) cores.push_back(&r);
   }
-  check.depths_cm = distinct_depths(probes);
-  if (check.depths_cm.size() < 2 && distinct_depths(cores).size() >= 2) check.depths_cm = distinct_depths(cores);
-  for (const auto* p : probes) check.probe_names.push_back(p->name);
+  std::vector<StorageSource> sources;
+  for (const auto* p : probes) sources.push_back({p->name, false, p->depth_cm});
   for (const auto* c : cores) {
-    const bool helps = std::any_of(c->series.observations.begin(), c->series.observations.end(), [&](const auto& o) {
-      return std::any_of(check.depths_cm.begin(), check.depths_cm.end(), [&](double d) { return same_depth(d, o.depth_cm); });
-    });
-    if (helps) check.probe_names.push_back(c->name);
+    for (const auto& o : c->series.observations) sources.push_back({c->name, true, o.depth_cm});
   }
+  choose_storage_depths(sources, check);
   if (!check.usable() || record.visit_balance.empty()) return check;
 
   const bool simulated_available = record.run.profiles.size() >= 2;

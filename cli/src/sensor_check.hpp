@@ -75,7 +75,7 @@ struct StorageInterval {
 
 struct StorageCheck {
   std::vector<double> depths_cm;       // distinct probe depths (or core depths without two probe depths), increasing
-  std::vector<std::string> probe_names;  // probes, then core-sample entries that give readings at these depths
+  std::vector<std::string> probe_names;  // probes at these depths, then core-sample entries with readings at them
   std::vector<StorageVisit> visits;    // the run start and every visit
   std::vector<StorageInterval> intervals;  // one per visit interval
   bool usable() const { return depths_cm.size() >= 2; }
@@ -94,6 +94,20 @@ inline constexpr double kVisitReadingWindowDays = 1.0;
 // The factor and the amount below which two recharge estimates count as agreeing.
 inline constexpr double kAgreementFactor = 2.0;
 inline constexpr double kNegligibleRechargeCm = 0.01;  // 0.1 mm
+
+// One source of water contents for the stored water: a probe at its depth, or one core
+// sampling depth of a core-samples entry.
+struct StorageSource {
+  std::string name;     // the probe or the core-samples entry
+  bool core = false;
+  double depth_cm = 0;
+};
+
+// The one rule for the stored-water depths, used by `run` (from the readings) and `show` (from
+// the run file): the distinct probe depths; the distinct core depths instead when the probes
+// give fewer than two and the cores two or more. Fills depths_cm and, as sources, the probes
+// and then the core entries with a depth among them (each name once, in the order given).
+void choose_storage_depths(const std::vector<StorageSource>& sources, StorageCheck& check);
 
 // The stored-water comparison alone (check_sensors calls it). The depths are those of the
 // probes; at a visit where no probe at a depth has a reading, core samples taken at that depth

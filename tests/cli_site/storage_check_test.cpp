@@ -129,6 +129,41 @@ TEST(StoredWater, FewerThanTwoProbeDepthsGiveANote) {
   EXPECT_EQ(header.find("storage change 20"), std::string::npos) << header;
 }
 
+// Probes at one depth (20 cm) and cores at one other (50 cm): neither gives two depths, so run
+// reports the probe depth alone; show, from the run file, must say the same (it takes the
+// depths by the same rule, not from every water-content row).
+TEST(StoredWater, RunAndShowTakeTheDepthsByOneRule) {
+  ScratchSite site("storage-rule");
+  testing::keep_tensiometers_and_probes(site);
+  site.replace("site.toml", "depth = \"50 cm\"\nreadings = \"probe-50cm.csv\"", "depth = \"20 cm\"\nreadings = \"probe-50cm.csv\"");
+  site.replace("site.toml", "depth = \"80 cm\"\nreadings = \"probe-80cm.csv\"", "depth = \"20 cm\"\nreadings = \"probe-80cm.csv\"");
+  site.replace("site.toml", "[recharge]", "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\nreadings = \"cores.csv\"\n\n[recharge]");
+  site.write("cores.csv", "time,depth [cm],water content [%]\n2025-04-08T10:00,50,25\n2025-04-15T10:00,50,24\n");
+  const auto out = site.folder() / "s.h5";
+  const auto run = run_program(fmt::format("run '{}' --out '{}' --to 2025-04-20", site.site_file().string(), out.string()),
+                               site.folder());
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  const std::string note = "this site has them at one depth only (20 cm).";
+  EXPECT_NE(run.out.find(note), std::string::npos) << run.out;
+  const auto show = run_program(fmt::format("show '{}'", out.string()), site.folder());
+  ASSERT_EQ(show.exit_code, 0) << show.err;
+  EXPECT_NE(show.out.find(note), std::string::npos) << show.out;
+}
+
+// Probes at 20 and 50 cm and cores at 20 and 110 cm: the depths are the probes'; the cores are
+// a source because of their 20 cm samples. A core-samples entry with samples only at depths
+// between the probes is not a source.
+TEST(StoredWater, SourcesAreTheSensorsAtTheStorageDepths) {
+  StorageCheck check;
+  choose_storage_depths({{"P20", false, 20}, {"P50", false, 50}, {"A", true, 20}, {"A", true, 110}, {"B", true, 35}}, check);
+  EXPECT_EQ(check.depths_cm, (std::vector<double>{20, 50}));
+  EXPECT_EQ(check.probe_names, (std::vector<std::string>{"P20", "P50", "A"}));
+  // One probe depth: the two core depths are used, and the probe at neither is no source.
+  choose_storage_depths({{"P35", false, 35}, {"A", true, 20}, {"A", true, 110}}, check);
+  EXPECT_EQ(check.depths_cm, (std::vector<double>{20, 110}));
+  EXPECT_EQ(check.probe_names, (std::vector<std::string>{"A"}));
+}
+
 TEST(StoredWater, NoProbesGiveANote) {
   ScratchSite site("storage-none");
   testing::keep_tensiometers_and_probes(site);
