@@ -114,7 +114,7 @@ with open(HERE / "pan-readings.csv", "w") as f:
 TRUE_SUBSOIL = {"saturated_conductivity": '"12 cm/d"', "n": "1.4"}
 NOISE_HEAD_CM = 5.0                  # tensiometer heads, cm of water
 NOISE_WATER_CONTENT = 0.01           # probes and cores, cm3/cm3
-NOISE_WELL_CM = 2.0                  # depth to water, cm
+NOISE_WELL_CM = 0.5                  # depth to water, cm: a tape or logger reading (common practice)
 CM_PER_KPA = 10.1972                 # 1 kPa of tension as cm of water (standard gravity)
 noise = np.random.default_rng(20250402)
 
