@@ -74,11 +74,16 @@ std::optional<DarcyCheck> darcy_check(const Season& season, const std::vector<Se
   const std::size_t upper_layer = soil.layer_index_at(upper->depth_cm);
   const std::size_t lower_layer = soil.layer_index_at(lower->depth_cm);
   const std::size_t middle_layer = soil.layer_index_at(middle);
+  // What obs::darcy_recharge does: at each visit K(h_mean) with h_mean the arithmetic mean of
+  // the two heads; an interval's amount is the mean of the fluxes at its two visits times its
+  // length.
   check.soil_note = fmt::format("K from the hydraulic model of layer '{}'", soil.layers()[middle_layer].name);
   if (upper_layer != lower_layer) {
     check.soil_note += fmt::format(" (the cups sit in different layers, '{}' and '{}'; K is taken at their middle depth)",
                                    soil.layers()[upper_layer].name, soil.layers()[lower_layer].name);
   }
+  check.soil_note += ", at the arithmetic mean head of the pair at each visit; an interval's estimate is the mean of the "
+                     "fluxes at its two visits times its length";
   const obs::TensiometerPair tensiometers{soil.model_at(middle), upper->depth_cm, lower->depth_cm};
   for (const auto& b : record.visit_balance) {
     DarcyInterval interval;

@@ -83,7 +83,7 @@ void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const h5::Dataset& 
   const double depths[2] = {d.upper_depth_cm, d.lower_depth_cm};
   h5::Dataset depth = h5::write_vector(group.id(), "sensor_depth", depths, {"cm", "depth of each tensiometer cup"});
   h5::set_text_attribute(depth.id(), ".", "positive", "down");
-  write_one_text(group.id(), "conductivity_note", d.conductivity_note, "which layer's hydraulic model gives the conductivity");
+  write_one_text(group.id(), "conductivity_note", d.conductivity_note, "which layer's hydraulic model gives the conductivity, at which head, and how an interval's estimate is formed");
   write_agreement(group.id(), interval_end, d.amount_cm, d.agreement, d.missing,
                   "Darcy estimate of the flow below the pair in the interval (positive downward; NaN: no estimate)");
 }

@@ -71,12 +71,27 @@ TEST(SensorsAgainstModel, DemoRunReportsEverySensorTheDarcyColumnAndStoredWater)
   EXPECT_NE(report_row(run.out, "all probes and cores").find(" 116 "), std::string::npos);
   EXPECT_NE(run.out.find("beyond the working limit"), std::string::npos);
   EXPECT_NE(run.out.find("by Darcy's law"), std::string::npos);
+  // The averaging of the Darcy estimate is stated, in the report and in the run file.
+  const std::string averaging = "at the arithmetic mean head of the pair at each visit; an interval's estimate is the mean "
+                                "of the fluxes at its two visits times its length";
+  std::string flat;  // the report with its line breaks and indents as single spaces
+  for (std::size_t k = 0; k < run.out.size(); ++k) {
+    if (run.out.compare(k, 3, "\n  ") == 0) {
+      flat += ' ';
+      k += 2;
+    } else {
+      flat += run.out[k];
+    }
+  }
+  EXPECT_NE(flat.find(averaging), std::string::npos) << run.out;
   // The run file holds readings beside simulated values and the metrics; show prints them.
   const profiles::RunRecord record = profiles::read_run(out);
   ASSERT_TRUE(record.sensor_comparison.has_value());
   EXPECT_EQ(record.sensor_comparison->pressure_head.size(), 4u * 28u);
   EXPECT_EQ(record.sensor_comparison->water_content.size(), 3u * 28u - 3u + 7u * 5u);
   EXPECT_EQ(record.sensor_comparison->metrics.size(), 7u + 5u + 2u);
+  ASSERT_TRUE(record.darcy_estimate.has_value());
+  EXPECT_NE(record.darcy_estimate->conductivity_note.find(averaging), std::string::npos) << record.darcy_estimate->conductivity_note;
   const auto show = run_program(fmt::format("show '{}'", out.string()), site.folder());
   ASSERT_EQ(show.exit_code, 0) << show.err;
   for (const std::string name : {"T30", "T60", "T90", "T120", "P20", "P50", "P80", "cores at 50 cm", "all tensiometers",
