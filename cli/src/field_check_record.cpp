@@ -109,8 +109,8 @@ void store_field_checks(const SensorCheck& check, profiles::RunRecord& record) {
     stored.recession_cm_per_d = w.recession_cm_per_d;
     stored.specific_yield_note = w.specific_yield_note;
     for (const auto& i : w.intervals) {
-      stored.start_depth_cm.push_back(or_missing(i.start_level_cm));
-      stored.end_depth_cm.push_back(or_missing(i.end_level_cm));
+      stored.start_depth_cm.push_back(or_missing(i.start_depth_cm));
+      stored.end_depth_cm.push_back(or_missing(i.end_depth_cm));
       stored.amount_cm.push_back(or_missing(i.estimate_cm));
       stored.agreement.push_back(agreement_text(i));
       stored.missing.push_back(i.missing);
@@ -159,8 +159,8 @@ SensorCheck check_from_record(const profiles::RunRecord& record) {
     WaterTableCheck water_table{w.well, w.specific_yield, w.recession_cm_per_d, w.specific_yield_note,
                                 intervals_from(record, w.amount_cm, w.missing)};
     for (std::size_t i = 0; i < water_table.intervals.size(); ++i) {
-      if (i < w.start_depth_cm.size()) water_table.intervals[i].start_level_cm = present(w.start_depth_cm[i]);
-      if (i < w.end_depth_cm.size()) water_table.intervals[i].end_level_cm = present(w.end_depth_cm[i]);
+      if (i < w.start_depth_cm.size()) water_table.intervals[i].start_depth_cm = present(w.start_depth_cm[i]);
+      if (i < w.end_depth_cm.size()) water_table.intervals[i].end_depth_cm = present(w.end_depth_cm[i]);
     }
     check.water_table = std::move(water_table);
   }

@@ -37,8 +37,9 @@ struct EstimateInterval {
   bool disagree = false;
   double ratio = 0;
   std::vector<std::string> reasons;
-  // Water-table fluctuation only: the water-table depth read at the interval's ends.
-  std::optional<double> start_level_cm, end_level_cm;
+  // Water-table fluctuation only: the depth of the water table below the surface (positive
+  // down) read at the interval's ends.
+  std::optional<double> start_depth_cm, end_depth_cm;
 };
 using DarcyInterval = EstimateInterval;
 

@@ -33,16 +33,17 @@ std::optional<WaterTableCheck> check_water_table(const Season& season, const std
     interval.model_cm = b.plane_flux_cm.empty() ? 0.0 : b.plane_flux_cm.front();
     const observations::Observation* start = reading_near(*well, b.start_day);
     const observations::Observation* end = reading_near(*well, b.end_day);
-    if (start) interval.start_level_cm = start->value;
-    if (end) interval.end_level_cm = end->value;
+    if (start) interval.start_depth_cm = start->value;
+    if (end) interval.end_depth_cm = end->value;
     if (start && end && end->day > start->day) {
       const observations::WaterTableReading levels[2] = {{start->day, start->value}, {end->day, end->value}};
       interval.estimate_cm = observations::water_table_recharge(method, levels).front().amount_cm;
       compare_with_model(interval);
     } else {
+      const char* which = start ? "the end visit" : end ? "the start visit" : "either visit";
       interval.missing = start && end ? fmt::format("the same reading of well {} is nearest to both visits", well->name)
-                                      : fmt::format("no reading of well {} within {} d of the {} visit", well->name,
-                                                    kVisitReadingWindowDays, start ? "end" : "start");
+                                      : fmt::format("no reading of well {} within {} d of {}", well->name,
+                                                    kVisitReadingWindowDays, which);
     }
     check.intervals.push_back(std::move(interval));
   }

@@ -144,6 +144,26 @@ TEST(WaterTableEstimate, RecessionRateCountsARiseAgainstTheFall) {
   EXPECT_NEAR(*check->intervals[1].estimate_cm, 0.15, 1e-12);
 }
 
+// A single well reading (8 April): the interval before it lacks its start, the one after it
+// its end, and the next one both ends; each says which.
+TEST(WaterTableEstimate, MissingReadingsNameTheVisitsWithout) {
+  ScratchSite site("well-missing");
+  add_sensor(site, well_block());
+  site.write("well.csv", well_file({3.00}));
+  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-23"}));
+  const solver::ColumnRun run = solver::simulate(season.problem);
+  const profiles::RunRecord record = make_record(season, run, "test");
+  const auto check = check_water_table(season, season.sensor_readings, record);
+  ASSERT_TRUE(check.has_value());
+  ASSERT_GE(check->intervals.size(), 3u);
+  EXPECT_EQ(check->intervals[0].missing, "no reading of well W1 within 1 d of the start visit");
+  EXPECT_EQ(check->intervals[1].missing, "no reading of well W1 within 1 d of the end visit");
+  EXPECT_EQ(check->intervals[2].missing, "no reading of well W1 within 1 d of either visit");
+  EXPECT_FALSE(check->intervals[2].start_depth_cm.has_value());
+  ASSERT_TRUE(check->intervals[1].start_depth_cm.has_value());
+  EXPECT_NEAR(*check->intervals[1].start_depth_cm, 300.0, 1e-12);
+}
+
 // The visit rows add up to the season: drainage at the plane and every balance term, and the
 // water-table total of the report is the sum of its intervals.
 TEST(WaterTableEstimate, PerVisitRowsSumToTheSeasonTotals) {
