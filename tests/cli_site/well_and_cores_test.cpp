@@ -164,8 +164,9 @@ TEST(WaterTableEstimate, MissingReadingsNameTheVisitsWithout) {
   EXPECT_NEAR(*check->intervals[1].start_depth_cm, 300.0, 1e-12);
 }
 
-// The visit rows add up to the season: drainage at the plane and every balance term, and the
-// water-table total of the report is the sum of its intervals.
+// The visit rows add up to the season in every balance term (water input, evaporation, runoff,
+// infiltration, transpiration, bottom and plane fluxes, ponded, stored and error changes), and
+// the water-table total of the report is the sum of its intervals.
 TEST(WaterTableEstimate, PerVisitRowsSumToTheSeasonTotals) {
   ScratchSite site("well-sums");
   add_sensor(site, well_block());
@@ -176,24 +177,37 @@ TEST(WaterTableEstimate, PerVisitRowsSumToTheSeasonTotals) {
   ASSERT_EQ(run.exit_code, 0) << run.err;
   const profiles::RunRecord record = profiles::read_run(out);
   const auto total = profiles::season_total(record.run.balances);
-  double drainage = 0, input = 0, evaporation = 0, transpiration = 0, storage = 0, bottom = 0;
+  // Every term of the interval balance, summed over the visit rows.
+  profiles::IntervalBalance sum;
+  sum.plane_flux_cm.assign(total.plane_flux_cm.size(), 0.0);
   for (const auto& b : record.visit_balance) {
-    drainage += b.plane_flux_cm.front();
-    input += b.water_input_cm;
-    evaporation += b.actual_evaporation_cm;
-    transpiration += b.transpiration_cm;
-    storage += b.storage_change_cm;
-    bottom += b.bottom_flux_cm;
+    sum.water_input_cm += b.water_input_cm;
+    sum.potential_evaporation_cm += b.potential_evaporation_cm;
+    sum.actual_evaporation_cm += b.actual_evaporation_cm;
+    sum.runoff_cm += b.runoff_cm;
+    sum.infiltration_cm += b.infiltration_cm;
+    sum.transpiration_cm += b.transpiration_cm;
+    sum.bottom_flux_cm += b.bottom_flux_cm;
+    ASSERT_EQ(b.plane_flux_cm.size(), sum.plane_flux_cm.size());
+    for (std::size_t k = 0; k < b.plane_flux_cm.size(); ++k) sum.plane_flux_cm[k] += b.plane_flux_cm[k];
+    sum.ponded_change_cm += b.ponded_change_cm;
+    sum.storage_change_cm += b.storage_change_cm;
+    sum.balance_error_change_cm += b.balance_error_change_cm;
   }
   // Telescoping differences of the same cumulative numbers: equal up to the rounding of the
   // additions (a few units in the last place; common practice for floating-point sums).
-  const double tolerance = 1e-13 * (std::abs(total.water_input_cm) + 1.0);
-  EXPECT_NEAR(drainage, total.plane_flux_cm.front(), tolerance);
-  EXPECT_NEAR(input, total.water_input_cm, tolerance);
-  EXPECT_NEAR(evaporation, total.actual_evaporation_cm, tolerance);
-  EXPECT_NEAR(transpiration, total.transpiration_cm, tolerance);
-  EXPECT_NEAR(storage, total.storage_change_cm, tolerance);
-  EXPECT_NEAR(bottom, total.bottom_flux_cm, tolerance);
+  const double tolerance = 1e-13 * (std::abs(total.water_input_cm) + std::abs(total.potential_evaporation_cm) + 1.0);
+  EXPECT_NEAR(sum.water_input_cm, total.water_input_cm, tolerance);
+  EXPECT_NEAR(sum.potential_evaporation_cm, total.potential_evaporation_cm, tolerance);
+  EXPECT_NEAR(sum.actual_evaporation_cm, total.actual_evaporation_cm, tolerance);
+  EXPECT_NEAR(sum.runoff_cm, total.runoff_cm, tolerance);
+  EXPECT_NEAR(sum.infiltration_cm, total.infiltration_cm, tolerance);
+  EXPECT_NEAR(sum.transpiration_cm, total.transpiration_cm, tolerance);
+  EXPECT_NEAR(sum.bottom_flux_cm, total.bottom_flux_cm, tolerance);
+  for (std::size_t k = 0; k < total.plane_flux_cm.size(); ++k) EXPECT_NEAR(sum.plane_flux_cm[k], total.plane_flux_cm[k], tolerance);
+  EXPECT_NEAR(sum.ponded_change_cm, total.ponded_change_cm, tolerance);
+  EXPECT_NEAR(sum.storage_change_cm, total.storage_change_cm, tolerance);
+  EXPECT_NEAR(sum.balance_error_change_cm, total.balance_error_change_cm, tolerance);
   ASSERT_TRUE(record.water_table_estimate.has_value());
   double estimate = 0, model = 0;
   for (std::size_t i = 0; i < record.visit_balance.size(); ++i) {
