@@ -100,8 +100,8 @@ def plot_sensor_heads(data, target):
     if not data["sensor_names"]:
         axis.text(0.5, 0.5, "no sensors in this run file", ha="center", va="center", transform=axis.transAxes)
     for name, depth in zip(data["sensor_names"], data["sensor_depths"]):
-        if depth <= 0:
-            continue  # an observation well or core samples: their readings carry the depths
+        if not np.isfinite(depth) or depth <= 0:
+            continue  # an observation well or core samples (NaN, or 0 in older files): their readings carry the depths
         axis.plot(times, head_at_depth(data, depth), label=f"{name} ({depth:g} cm)")
     axis.set_ylabel("pressure head (cm of water)")
     axis.set_title(title(data, "simulated pressure head at the sensor depths"))
