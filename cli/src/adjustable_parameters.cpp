@@ -10,6 +10,7 @@
 
 #include "input_error.hpp"
 #include "site_keys.hpp"
+#include "wetfront/forcing/crop_coefficient.hpp"
 #include "wetfront/forcing/pan_coefficient.hpp"
 #include "wetfront/soils/parameter_checks.hpp"
 
@@ -164,6 +165,18 @@ StudyParameter read_adjustable(const SiteTable& entry, const SiteSetup& site) {
   } catch (const std::invalid_argument& error) {
     entry.fail("range", error.what());
   }
+  // Both ends must be values the site accepts, so that no run of a study fails for its range.
+  ParameterStudy alone;
+  alone.parameters.push_back(result);
+  for (const double end : {result.range.lower, result.range.upper}) {
+    try {
+      (void)with_parameters(site, alone, {end});
+    } catch (const std::invalid_argument& error) {
+      entry.fail("range", fmt::format("the {} end {} is not a value the site can take: {}",
+                                      end == result.range.lower ? "lower" : "upper", parameter_value_text(result.range, end),
+                                      error.what()));
+    }
+  }
   return result;
 }
 
@@ -234,6 +247,10 @@ SiteSetup with_parameters(const SiteSetup& site, const ParameterStudy& study, co
     }
   }
   for (const auto& layer : changed.layers) soils::check_hydraulic_model(layer.model, "layer '" + layer.name + "'");
+  forcing::check_crop_curve(changed.crop.kc_curve);
+  (void)forcing::pan_coefficient(changed.pan.coefficient);  // throws for a value outside (0, 1.2]
+  if (const auto depth = bottom_water_table_depth(changed); depth && *depth < 0)
+    throw std::invalid_argument(fmt::format("water table depth {} cm: it must be at or below the surface", *depth));
   return changed;
 }
 

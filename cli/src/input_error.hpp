@@ -9,7 +9,7 @@
 namespace wetfront::cli {
 
 // Exit codes of the `wetfront` program.
-enum ExitCode : int { exit_ok = 0, exit_bad_input = 1, exit_solver_failure = 2 };
+enum ExitCode : int { exit_ok = 0, exit_bad_input = 1, exit_solver_failure = 2, exit_internal_failure = 3 };
 
 class InputError : public std::runtime_error {
  public:

@@ -30,7 +30,7 @@ class ProgressLine {
   // Ends the line, so that what follows starts on a fresh one.
   void finish() {
     const std::lock_guard guard(lock_);
-    if (printed_) fmt::print(stderr, "\n");
+    if (printed_) std::fputc('\n', stderr);
     printed_ = false;
   }
   void operator()(std::size_t done, std::size_t planned, bool at_most) {
@@ -41,10 +41,14 @@ class ProgressLine {
     last_ = now;
     const double seconds = std::chrono::duration<double>(now - started_).count();
     const double left = done > 0 ? seconds / static_cast<double>(done) * static_cast<double>(planned - std::min(done, planned)) : 0.0;
-    fmt::print(stderr, "\rwetfront: {} of {}{} runs, {:.0f} s, {} {:.0f} s left   ", done, at_most ? "at most " : "", planned,
-               seconds, at_most ? "at most about" : "about", left);
-    std::fflush(stderr);
-    printed_ = true;
+    try {
+      fmt::print(stderr, "\rwetfront: {} of {}{} runs, {:.0f} s, {} {:.0f} s left   ", done, at_most ? "at most " : "", planned,
+                 seconds, at_most ? "at most about" : "about", left);
+      std::fflush(stderr);
+      printed_ = true;
+    } catch (const std::exception&) {
+      quiet_ = true;  // stderr is closed or full: the runs matter more than the progress line
+    }
   }
   double seconds() const { return std::chrono::duration<double>(std::chrono::steady_clock::now() - started_).count(); }
 
@@ -116,8 +120,8 @@ void add_sweep_command(CLI::App& app) {
     progress.finish();
     const unsigned threads = std::min<unsigned>(observations::thread_count(o->threads), static_cast<unsigned>(sweep.runs.size()));
     const std::filesystem::path csv = sibling(out, ".csv");
-    write_sweep_file(out, model, sweep, o->kept, o->threads, WETFRONT_VERSION);
-    write_csv(sweep_table(model, sweep), csv.string());
+    write_files_together({{csv, sweep_table(model, sweep)}},
+                         [&] { write_sweep_file(out, model, sweep, o->kept, o->threads, WETFRONT_VERSION); });
     if (!o->quiet) {
       fmt::print("{}", sweep_report(model, sweep, o->shown, seconds, threads));
       fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
@@ -158,8 +162,8 @@ void add_calibrate_command(CLI::App& app) {
     const double seconds = progress.seconds();
     progress.finish();
     const std::filesystem::path csv = sibling(out, ".csv");
-    write_calibration_file(out, model, study, WETFRONT_VERSION);
-    write_csv(calibration_recharge_table(model, study), csv.string());
+    write_files_together({{csv, calibration_recharge_table(model, study)}},
+                         [&] { write_calibration_file(out, model, study, WETFRONT_VERSION); });
     if (!o->quiet) {
       fmt::print("{}", calibration_report(model, study, seconds, observations::thread_count(o->threads)));
       fmt::print("\nWrote {} and {}\n", out.string(), csv.string());

@@ -172,7 +172,7 @@ ReportTable calibration_recharge_table(const SeasonModel& model, const Calibrati
   ReportTable table;
   table.title = fmt::format("Recharge across {}", plane_text(model));
   table.headers = {"interval", "from", "to", "at start [mm]", "calibrated [mm]", "first-order 95% low [mm]",
-                   "first-order 95% high [mm]", "sampled 5% [mm]", "sampled median [mm]", "sampled 95% [mm]"};
+                   "first-order 95% high [mm]", "sampled 2.5% [mm]", "sampled median [mm]", "sampled 97.5% [mm]"};
   const auto& ends = model.interval_end_days();
   for (std::size_t i = 0; i <= ends.size(); ++i) {
     // Row 0 is the season; row i the interval ending at ends[i - 1].
@@ -192,7 +192,7 @@ ReportTable calibration_recharge_table(const SeasonModel& model, const Calibrati
       row.insert(row.end(), 2, "");
     }
     if (i < study.band.size()) {
-      row.insert(row.end(), {mm(study.band[i].p5), mm(study.band[i].p50), mm(study.band[i].p95)});
+      row.insert(row.end(), {mm(study.band[i].low), mm(study.band[i].median), mm(study.band[i].high)});
     } else {
       row.insert(row.end(), 3, "");
     }
@@ -259,7 +259,7 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   if (fit.residual_count() > static_cast<int>(fit.parameters.size())) {
     const double s2 = study.after.objective / (fit.residual_count() - static_cast<int>(fit.parameters.size()));
     out += fmt::format("Residual variance per reading {:.3g} (1 when the stated uncertainties describe the misfit; above 1 the\n"
-                       "model or the readings differ by more, and the standard errors have been scaled up by its square root).\n",
+                       "model or the readings differ by more; the standard errors are scaled by its square root).\n",
                        s2);
   }
   if (!fit.warnings.empty()) {

@@ -26,7 +26,7 @@ struct ScoredRun {
   Eigen::VectorXd residuals;                  // weighted, one per compared reading
   double objective = 0;                       // sum of squared weighted residuals; +inf when !complete
   observations::FitMetrics heads;             // tensiometer readings used, cm
-  std::optional<observations::FitMetrics> water_contents;  // probe readings, when they count
+  std::optional<observations::FitMetrics> water_contents;  // probe and core readings, when they count
   double season_recharge_cm = 0;              // across the recharge plane, positive downward
   std::vector<double> visit_recharge_cm;      // per visit interval
 };

@@ -53,6 +53,10 @@ CalibrationStudy run_calibration(const SeasonModel& model, const CalibrationSett
     if (progress) progress(++done, planned);
   };
   study.fit = obs::calibrate(ranges, model.batch(settings.threads, tick), settings.options);
+  if (!study.fit.converged)
+    study.fit.warnings.push_back(fmt::format("the fit did not converge ({}): the values, standard errors and bands describe the "
+                                             "point where it stopped, not an optimum; raise --max-runs or start nearer",
+                                             study.fit.stop_reason));
   // The runs at the start and at the optimum again, with their metrics (cheap next to the fit).
   const std::vector<obs::ParameterSet> ends{study.fit.start, study.fit.best};
   auto end_runs = model.run_all(ends, settings.threads);
@@ -70,7 +74,13 @@ CalibrationStudy run_calibration(const SeasonModel& model, const CalibrationSett
     study.band_note = "no sampled band was asked for";
     return study;
   }
-  const auto sets = obs::draw_parameter_sets(ranges, study.fit.best_search, study.fit.covariance, settings.band_runs, settings.seed);
+  std::vector<obs::ParameterSet> sets;
+  try {
+    sets = obs::draw_parameter_sets(ranges, study.fit.best_search, study.fit.covariance, settings.band_runs, settings.seed);
+  } catch (const std::invalid_argument& error) {  // the fit stands; only the band is missing
+    study.band_note = fmt::format("no sampled band: {}", error.what());
+    return study;
+  }
   const auto runs = model.run_all(sets, settings.threads, tick);
   std::vector<std::vector<double>> values(static_cast<std::size_t>(outputs.size()));
   for (const auto& run : runs) {
@@ -86,7 +96,7 @@ CalibrationStudy run_calibration(const SeasonModel& model, const CalibrationSett
     study.band_note = "no sampled band: fewer than two of the drawn parameter sets ran to the end";
     return study;
   }
-  for (const auto& v : values) study.band.push_back({obs::percentile(v, 0.05), obs::percentile(v, 0.5), obs::percentile(v, 0.95)});
+  for (const auto& v : values) study.band.push_back({obs::percentile(v, 0.025), obs::percentile(v, 0.5), obs::percentile(v, 0.975)});
   return study;
 }
 

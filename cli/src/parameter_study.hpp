@@ -41,9 +41,10 @@ struct CalibrationSettings {
   std::uint64_t seed = 1;
 };
 
-// Percentiles of an output over the sampled runs.
+// Percentiles of an output over the sampled runs: the central 95 %, like the first-order
+// interval beside it, and the median.
 struct SampledBand {
-  double p5 = 0, p50 = 0, p95 = 0;
+  double low = 0, median = 0, high = 0;  // 2.5, 50 and 97.5 %
 };
 
 struct CalibrationStudy {

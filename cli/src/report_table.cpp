@@ -2,11 +2,12 @@
 
 #include <algorithm>
 #include <cmath>
-#include <fstream>
+#include <memory>
 
 #include <fmt/format.h>
 
 #include "input_error.hpp"
+#include "wetfront/profiles/file_save.hpp"
 
 namespace wetfront::cli {
 namespace {
@@ -57,16 +58,46 @@ std::string format_table(const ReportTable& table) {
   return out;
 }
 
-void write_csv(const ReportTable& table, const std::string& path) {
-  std::ofstream out(path);
-  if (!out) throw InputError(path, 0, "", "cannot open the file for writing (option --csv)");
+std::string csv_text(const ReportTable& table) {
+  std::string out;
   auto write_row = [&](const std::vector<std::string>& cells) {
-    for (std::size_t c = 0; c < cells.size(); ++c) out << (c > 0 ? "," : "") << csv_field(cells[c]);
-    out << '\n';
+    for (std::size_t c = 0; c < cells.size(); ++c) {
+      if (c > 0) out += ',';
+      out += csv_field(cells[c]);
+    }
+    out += '\n';
   };
   write_row(table.headers);
   for (const auto& row : table.rows) write_row(row);
-  if (!out) throw InputError(path, 0, "", "writing the CSV file failed");
+  return out;
+}
+
+void write_csv(const ReportTable& table, const std::string& path) {
+  try {
+    profiles::StagedFile(path, csv_text(table)).commit();
+  } catch (const std::exception& error) {
+    throw InputError(path, 0, "", fmt::format("cannot write the CSV file: {}", error.what()));
+  }
+}
+
+void write_files_together(const std::vector<std::pair<std::filesystem::path, ReportTable>>& tables,
+                          const std::function<void()>& write_main) {
+  std::vector<std::unique_ptr<profiles::StagedFile>> staged;
+  for (const auto& [path, table] : tables) {
+    try {
+      staged.push_back(std::make_unique<profiles::StagedFile>(path, csv_text(table)));
+    } catch (const std::exception& error) {
+      throw InputError(path.string(), 0, "", fmt::format("cannot write the CSV file: {}", error.what()));
+    }
+  }
+  write_main();
+  for (std::size_t i = 0; i < staged.size(); ++i) {
+    try {
+      staged[i]->commit();
+    } catch (const std::exception& error) {
+      throw InputError(tables[i].first.string(), 0, "", fmt::format("cannot write the CSV file: {}", error.what()));
+    }
+  }
 }
 
 }  // namespace wetfront::cli

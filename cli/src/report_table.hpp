@@ -2,7 +2,10 @@
 // headers carry their unit the same way input files do: "Kfs [cm/d]".
 #pragma once
 
+#include <filesystem>
+#include <functional>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace wetfront::cli {
@@ -17,9 +20,17 @@ struct ReportTable {
 
 // Aligned text with a rule under the header.
 std::string format_table(const ReportTable& table);
-// Writes header and rows as CSV (fields with commas or quotes are quoted). Throws
-// InputError naming the path when it cannot be written.
+// Header and rows as CSV text (fields with commas or quotes are quoted).
+std::string csv_text(const ReportTable& table);
+// Writes csv_text to `path` under a temporary name, renamed when complete. Throws InputError
+// naming the path when it cannot be written.
 void write_csv(const ReportTable& table, const std::string& path);
+// A command's main file and its CSV tables appear together or not at all: the tables are
+// staged under temporary names, write_main writes the main file (itself atomically), and only
+// then are the tables renamed. Throws InputError naming the CSV file that cannot be written;
+// what write_main throws passes through, and then no table appears.
+void write_files_together(const std::vector<std::pair<std::filesystem::path, ReportTable>>& tables,
+                          const std::function<void()>& write_main);
 
 // Number formatting for reports: up to `significant` significant digits, no exponent for
 // ordinary magnitudes.

@@ -28,6 +28,11 @@ int run_app(CLI::App& app, int argc, char** argv) {
   } catch (const std::invalid_argument& error) {
     fmt::print(stderr, "error: {}\n", error.what());
     return exit_bad_input;
+  } catch (const std::exception& error) {
+    // Anything else is a fault of the program or the machine (out of memory, a disk error),
+    // not of the input: say so with its own exit code rather than end without a message.
+    std::fprintf(stderr, "error: internal failure: %s\n", error.what());
+    return exit_internal_failure;
   }
   return exit_ok;
 }

@@ -1,5 +1,6 @@
 // Parses the command line and runs the chosen command, turning errors into exit codes:
-// 0 ok, 1 bad input (file, line and field named on stderr), 2 solver failure.
+// 0 ok, 1 bad input (file, line and field named on stderr), 2 solver failure, 3 a fault of the
+// program or the machine (an unexpected exception, reported with its message).
 #pragma once
 
 #include <CLI/CLI.hpp>

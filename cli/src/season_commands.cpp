@@ -184,14 +184,18 @@ void add_run_command(CLI::App& app) {
     const SensorCheck sensors = check_sensors(season, season.sensor_readings, record);
     if (!season.sensor_readings.empty()) record.sensor_comparison = comparison_record(sensors, season.sensor_readings, record.run);
     store_field_checks(sensors, record);
-    try {
-      profiles::write_run(out, record);
-    } catch (const profiles::RunFileError& error) {
-      throw InputError(error.what());
-    }
-    write_csv(visit_balance_table(record, &sensors), visits_csv_path(out).string());
     const bool metrics = !sensors.sensors.empty() || !sensors.pooled.empty();
-    if (metrics) write_csv(sensor_metrics_table(sensors), sensors_csv_path(out).string());
+    std::vector<std::pair<std::filesystem::path, ReportTable>> tables{{visits_csv_path(out), visit_balance_table(record, &sensors)}};
+    if (metrics) tables.push_back({sensors_csv_path(out), sensor_metrics_table(sensors)});
+    write_files_together(tables, [&] {
+      try {
+        profiles::write_run(out, record);
+      } catch (const profiles::RunFileError& error) {
+        throw InputError(error.what());
+      }
+    });
+    // A metrics table from an earlier run with sensors would no longer describe this run file.
+    if (!metrics) std::filesystem::remove(sensors_csv_path(out));
     if (!options->quiet) {
       fmt::print("{}", season_report(record, season_notes(season), &sensors));
       fmt::print("\nRun time {:.2f} s. Wrote {}{} and {}\n", seconds, out.string(),

@@ -160,19 +160,25 @@ void write_calibration_file(const std::filesystem::path& path, const SeasonModel
   const auto n = fit.parameters.size();
   StudyColumn start{"start", "see unit", "value the calibration started from", fit.start};
   StudyColumn best{"calibrated", "see unit", "calibrated value", fit.best};
-  StudyColumn best_search{"calibrated_search_value", "1", "calibrated value on the search scale (log10 for log parameters)", {}};
-  StudyColumn se{"standard_error", "1", "standard error on the search scale (NaN when unavailable)", {}};
+  StudyColumn best_search{"calibrated_search_value", "see search_unit", "calibrated value on the search scale", {}};
+  StudyColumn se{"standard_error", "see search_unit", "standard error on the search scale (NaN when unavailable)", {}};
+  profiles::StudyTextColumn search_unit{"search_unit", "unit on the search scale: the parameter's unit, or log10 of it", {}};
   for (std::size_t k = 0; k < n; ++k) {
+    const auto& p = fit.parameters[k];
+    search_unit.values.push_back(p.scale == obs::ParameterScale::log ? fmt::format("log10({})", p.unit.empty() ? "1" : p.unit)
+                                                                      : (p.unit.empty() ? "1" : p.unit));
     best_search.values.push_back(fit.best_search[static_cast<Eigen::Index>(k)]);
     se.values.push_back(fit.standard_errors.size() > 0 ? fit.standard_errors[static_cast<Eigen::Index>(k)] : kMissing);
   }
   parameters.columns.insert(parameters.columns.end(), {start, best, best_search, se});
+  parameters.texts.push_back(search_unit);
   if (fit.covariance.size() > 0) {
     const StudyColumn axis = parameters.axis;
     std::vector<double> covariance(fit.covariance.data(), fit.covariance.data() + fit.covariance.size());
     std::vector<double> correlation(fit.correlation.data(), fit.correlation.data() + fit.correlation.size());
     // Both are symmetric, so column-major storage reads the same row-major.
-    parameters.matrices.push_back({"covariance", "1", "covariance of the calibrated values on the search scale", axis, covariance});
+    parameters.matrices.push_back({"covariance", "product of the two parameters' search_unit",
+                                   "covariance of the calibrated values on the search scale", axis, covariance});
     parameters.matrices.push_back({"correlation", "1", "correlation of the calibrated values", axis, correlation});
   }
   record.tables.push_back(std::move(parameters));
@@ -199,12 +205,12 @@ void write_calibration_file(const std::filesystem::path& path, const SeasonModel
                                                [&](std::size_t i) { return study.first_order[i].upper; }));
   }
   if (!study.band.empty()) {
-    recharge.columns.push_back(interval_column("sampled_p05", "5th percentile over the sampled parameter sets",
-                                               [&](std::size_t i) { return study.band[i].p5; }));
+    recharge.columns.push_back(interval_column("sampled_p025", "2.5th percentile over the sampled parameter sets",
+                                               [&](std::size_t i) { return study.band[i].low; }));
     recharge.columns.push_back(interval_column("sampled_p50", "median over the sampled parameter sets",
-                                               [&](std::size_t i) { return study.band[i].p50; }));
-    recharge.columns.push_back(interval_column("sampled_p95", "95th percentile over the sampled parameter sets",
-                                               [&](std::size_t i) { return study.band[i].p95; }));
+                                               [&](std::size_t i) { return study.band[i].median; }));
+    recharge.columns.push_back(interval_column("sampled_p975", "97.5th percentile over the sampled parameter sets",
+                                               [&](std::size_t i) { return study.band[i].high; }));
   }
   record.tables.push_back(std::move(recharge));
   // The season totals as a one-row table: first-order and sampled band of the whole run.
@@ -225,9 +231,9 @@ void write_calibration_file(const std::filesystem::path& path, const SeasonModel
                                 {study.first_order[0].variance_share[k]}});
   }
   if (!study.band.empty()) {
-    season.columns.push_back({"sampled_p05", "cm", "5th percentile over the sampled parameter sets", {study.band[0].p5}});
-    season.columns.push_back({"sampled_p50", "cm", "median over the sampled parameter sets", {study.band[0].p50}});
-    season.columns.push_back({"sampled_p95", "cm", "95th percentile over the sampled parameter sets", {study.band[0].p95}});
+    season.columns.push_back({"sampled_p025", "cm", "2.5th percentile over the sampled parameter sets", {study.band[0].low}});
+    season.columns.push_back({"sampled_p50", "cm", "median over the sampled parameter sets", {study.band[0].median}});
+    season.columns.push_back({"sampled_p975", "cm", "97.5th percentile over the sampled parameter sets", {study.band[0].high}});
   }
   record.tables.push_back(std::move(season));
 

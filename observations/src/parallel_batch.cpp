@@ -27,9 +27,13 @@ void run_batch(std::size_t count, unsigned threads, const std::function<void(std
       } catch (...) {
         errors[i] = std::current_exception();
       }
-      const std::lock_guard guard(lock);
-      ++done;
-      if (finished) finished(done);
+      try {  // nothing may leave a worker thread: a failing callback counts against its task
+        const std::lock_guard guard(lock);
+        ++done;
+        if (finished) finished(done);
+      } catch (...) {
+        if (!errors[i]) errors[i] = std::current_exception();
+      }
     }
   };
   const std::size_t workers = std::min<std::size_t>(thread_count(threads), count);

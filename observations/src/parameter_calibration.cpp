@@ -70,8 +70,13 @@ class CachedModel {
     for (Eigen::Index k = 0; k < count; ++k) {
       Eigen::VectorXd q = shifted(p, k, false);
       const ModelRun* other = &run(q);
-      if (!other->ok) {  // the other side, if the run beyond failed
+      if (!other->ok) {  // the other side, if the run beyond failed and that side lies in the range
+        const auto& parameter = parameters_[static_cast<std::size_t>(k)];
         q = shifted(p, k, true);
+        if (q[k] < to_search_scale(parameter, parameter.lower) || q[k] > to_search_scale(parameter, parameter.upper))
+          throw std::runtime_error(fmt::format("the model failed at a difference step in '{}' ({}) and the other side lies "
+                                               "outside its range",
+                                               parameter.name, other->failure));
         other = &run(q);
         if (!other->ok)
           throw std::runtime_error(fmt::format("the model failed on both sides of a difference step in '{}': {}",

@@ -1,4 +1,4 @@
-#include "file_save.hpp"
+#include "wetfront/profiles/file_save.hpp"
 
 #include <fcntl.h>
 #include <fmt/format.h>
@@ -18,7 +18,7 @@ std::filesystem::path temporary_path_for(const std::filesystem::path& path) {
 }
 
 // Writes all bytes to a new file and forces them to the disk before it takes its final name.
-void write_new_file(const std::filesystem::path& path, const std::vector<char>& bytes) {
+void write_new_file(const std::filesystem::path& path, std::string_view bytes) {
   const int descriptor = open(path.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0644);
   if (descriptor < 0)
     throw std::system_error(errno, std::generic_category(), fmt::format("creating '{}'", path.string()));
@@ -38,16 +38,30 @@ void write_new_file(const std::filesystem::path& path, const std::vector<char>& 
 
 }  // namespace
 
-void save_file_image(const std::filesystem::path& path, const std::vector<char>& bytes) {
-  const std::filesystem::path temporary = temporary_path_for(path);
+StagedFile::StagedFile(std::filesystem::path path, std::string_view bytes)
+    : path_(std::move(path)), temporary_(temporary_path_for(path_)) {
   try {
-    write_new_file(temporary, bytes);
-    std::filesystem::rename(temporary, path);
+    write_new_file(temporary_, bytes);
   } catch (...) {
     std::error_code ignored;
-    std::filesystem::remove(temporary, ignored);
+    std::filesystem::remove(temporary_, ignored);
     throw;
   }
+}
+
+StagedFile::~StagedFile() {
+  if (committed_) return;
+  std::error_code ignored;
+  std::filesystem::remove(temporary_, ignored);
+}
+
+void StagedFile::commit() {
+  std::filesystem::rename(temporary_, path_);
+  committed_ = true;
+}
+
+void save_file_image(const std::filesystem::path& path, const std::vector<char>& bytes) {
+  StagedFile(path, std::string_view(bytes.data(), bytes.size())).commit();
 }
 
 }  // namespace wetfront::profiles

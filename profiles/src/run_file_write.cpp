@@ -3,7 +3,7 @@
 #include <fmt/format.h>
 
 #include "field_checks_io.hpp"
-#include "file_save.hpp"
+#include "wetfront/profiles/file_save.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
 #include "wetfront/profiles/run_file.hpp"
@@ -208,7 +208,8 @@ void write_sensors(hid_t file, const std::vector<Sensor>& sensors) {
   std::vector<std::string> names;
   for (const Sensor& sensor : sensors) names.push_back(sensor.name);
   h5::Dataset depth = h5::write_vector(group.id(), "depth", column(sensors, &Sensor::depth_cm),
-                                       {"cm", "depth of the sensor below the soil surface"});
+                                       {"cm", "depth of the sensor below the soil surface (0 for an observation well or core "
+                                              "samples, whose readings carry their own depths)"});
   set_positive_down(depth);
   h5::make_dimension_scale(depth, "sensor_depth");
   h5::attach_dimension_scale(h5::write_texts(group.id(), "name", names, {"none", "sensor name"}), depth, 0);

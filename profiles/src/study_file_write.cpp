@@ -3,7 +3,7 @@
 
 #include <map>
 
-#include "file_save.hpp"
+#include "wetfront/profiles/file_save.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
 #include "wetfront/profiles/run_file.hpp"

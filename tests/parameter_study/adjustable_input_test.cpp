@@ -56,6 +56,11 @@ std::vector<BadStudy> bad_studies() {
        entry("parameter = \"kc_mid\"\nrange = [1, 1.3]\n") + entry("parameter = \"kc_mid\"\nrange = [0.9, 1.3]\n"),
        "parameter = \"kc_mid\"", {"already adjustable (line"}},
       {"unknown key in an entry", entry("parameter = \"kc_mid\"\nrange = [1, 1.3]\nsteps = 4\n"), "steps = 4", {"steps"}},
+      {"range end the site cannot take", entry("parameter = \"pan_coefficient\"\nrange = [0.5, 1.5]\n"), "range = [0.5, 1.5]",
+       {"upper end 1.5", "at most 1.2"}},
+      {"water content range beyond saturation",
+       entry("parameter = \"residual_water_content\"\nlayer = \"loam subsoil\"\nrange = [\"1 %\", \"50 %\"]\n"),
+       "range = [\"1 %\", \"50 %\"]", {"upper end 0.5", "loam subsoil"}},
       {"head uncertainty without unit", "[fit]\nhead_uncertainty = 10\n", "head_uncertainty = 10", {"fit.head_uncertainty", "cm"}},
       {"negative head uncertainty", "[fit]\nhead_uncertainty = \"-3 cm\"\n", "head_uncertainty = \"-3 cm\"", {"must be positive"}},
   };

@@ -81,9 +81,11 @@ def main():
             assert "stop_reason" in f.attrs
             calibrated = f["parameters/calibrated"][()]
             assert calibrated.shape == (2,)
-            if "covariance" in f["parameters"]:
-                cov = f["parameters/covariance"][()]
-                assert cov.shape == (2, 2) and abs(cov[0, 1] - cov[1, 0]) < 1e-15
+            assert "covariance" in f["parameters"], "both loam parameters are resolved: a covariance is expected"
+            cov = f["parameters/covariance"][()]
+            assert cov.shape == (2, 2) and abs(cov[0, 1] - cov[1, 0]) < 1e-15
+            assert scale_name(f["parameters/covariance"], 1) == "parameter_number"
+            assert [text(u) for u in f["parameters/search_unit"][()]] == ["log10(cm/d)", "1"]
             assert "calibrated" in f["recharge"] and "interval_end" in f["recharge"]
             assert f["runs/calibrated/water_content"].ndim == 2
     print("study files read back")

@@ -52,13 +52,21 @@ TEST(TwinExperiment, CalibrationRecoversTheTrueLoamValuesWithinTwoStandardErrors
   EXPECT_GT(s2, 0.5);
   EXPECT_LT(s2, 1.8);
   EXPECT_LT(study.after.objective, study.before.objective);
-  // The band: first-order interval and sampled percentiles around the calibrated recharge.
+  // The band: the season recharge of the true values lies inside the first-order 95 % interval
+  // (a twin experiment: the truth is known), the interval has a width, and the sampled band is
+  // ordered and overlaps it.
   ASSERT_FALSE(study.first_order.empty());
   ASSERT_FALSE(study.band.empty());
-  EXPECT_LE(study.first_order[0].lower, study.after.season_recharge_cm);
-  EXPECT_GE(study.first_order[0].upper, study.after.season_recharge_cm);
-  EXPECT_LE(study.band[0].p5, study.band[0].p95);
   EXPECT_EQ(study.first_order.size(), model.interval_end_days().size() + 1);
+  const ScoredRun true_run = model.run(truth);
+  ASSERT_TRUE(true_run.complete);
+  EXPECT_GT(study.first_order[0].standard_deviation, 0.0);
+  EXPECT_LE(study.first_order[0].lower, true_run.season_recharge_cm);
+  EXPECT_GE(study.first_order[0].upper, true_run.season_recharge_cm);
+  EXPECT_LT(study.band[0].low, study.band[0].median);
+  EXPECT_LT(study.band[0].median, study.band[0].high);
+  EXPECT_LT(study.band[0].low, study.first_order[0].upper);
+  EXPECT_GT(study.band[0].high, study.first_order[0].lower);
 }
 
 TEST(TwinSweep, TheGridPointThatMadeTheReadingsRanksFirstWithZeroObjective) {
@@ -94,6 +102,28 @@ TEST(SweepThreads, OneAndTwoThreadsGiveIdenticalResults) {
     EXPECT_EQ(a.runs[i].objective, b.runs[i].objective);  // bit for bit
     EXPECT_EQ(a.runs[i].season_recharge_cm, b.runs[i].season_recharge_cm);
     EXPECT_EQ(a.runs[i].visit_recharge_cm, b.runs[i].visit_recharge_cm);
+  }
+}
+
+TEST(CalibrationThreads, OneAndTwoThreadsGiveTheSameFitAndBand) {
+  ScratchSite site("calibration-threads");
+  testing::add_study(site, loam_study());
+  testing::write_twin_readings(site, "2025-05-15", {12.0, 1.4}, 5.0, 11);
+  const SeasonModel model = testing::load_model(site, "2025-05-15");
+  CalibrationSettings settings;
+  settings.options.max_runs = 20;
+  settings.band_runs = 4;
+  settings.threads = 1;
+  const CalibrationStudy one = run_calibration(model, settings);
+  settings.threads = 2;
+  const CalibrationStudy two = run_calibration(model, settings);
+  EXPECT_EQ(one.fit.runs, two.fit.runs);
+  EXPECT_EQ(one.fit.best, two.fit.best);  // bit for bit
+  EXPECT_EQ(one.after.objective, two.after.objective);
+  ASSERT_EQ(one.band.size(), two.band.size());
+  for (std::size_t i = 0; i < one.band.size(); ++i) {
+    EXPECT_EQ(one.band[i].low, two.band[i].low);
+    EXPECT_EQ(one.band[i].high, two.band[i].high);
   }
 }
 

@@ -150,3 +150,31 @@ TEST(LeastSquares, InconsistentProblemsAreRejected) {
   p.parameters[0].fixed = p.parameters[1].fixed = true;
   EXPECT_THROW(ws::solve_least_squares(p, Eigen::Vector2d(0.0, 0.0)), std::invalid_argument);
 }
+
+// The budget is asked before every step: a budget spent from the start stops before any step,
+// with the starting point and its residuals as the result.
+TEST(LeastSquares, SpentBudgetStopsBeforeTheNextStep) {
+  int asked = 0;
+  ws::LeastSquaresOptions options;
+  options.budget_spent = [&asked] { return ++asked >= 3; };  // allows two steps
+  const auto result = ws::solve_least_squares(line_problem(), Eigen::Vector2d(0.0, 0.0), options);
+  EXPECT_EQ(result.stop_reason, ws::StopReason::budget_spent);
+  EXPECT_FALSE(result.converged());
+  EXPECT_EQ(result.iterations, 2);
+  EXPECT_EQ(asked, 3);
+}
+
+// A relative-decrease tolerance ends the run after the first accepted step that gains less than
+// that fraction of S; the fit is then no better than a full run's and no worse than the start.
+TEST(LeastSquares, RelativeDecreaseToleranceStopsOnceStepsGainLittle) {
+  ws::LeastSquaresOptions loose;
+  loose.relative_decrease_tolerance = 0.5;
+  const auto stopped = ws::solve_least_squares(line_problem(), Eigen::Vector2d(0.0, 0.0), loose);
+  const auto full = ws::solve_least_squares(line_problem(), Eigen::Vector2d(0.0, 0.0));
+  EXPECT_EQ(stopped.stop_reason, ws::StopReason::small_decrease);
+  EXPECT_TRUE(stopped.converged());
+  EXPECT_LT(stopped.iterations, full.iterations);
+  EXPECT_GE(stopped.sum_of_squares, full.sum_of_squares - 1e-12);
+  // The default (0) never stops this way.
+  EXPECT_NE(full.stop_reason, ws::StopReason::small_decrease);
+}

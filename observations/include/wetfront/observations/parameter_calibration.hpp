@@ -37,7 +37,9 @@ struct ModelRun {
 using ModelBatch = std::function<std::vector<ModelRun>(const std::vector<ParameterSet>& sets)>;
 
 struct CalibrationOptions {
-  int max_runs = 200;                       // model runs in all; never exceeded
+  // Model runs in all: a step is not started when it could exceed the limit (a retried
+  // difference step after a failed run may still add one run per parameter).
+  int max_runs = 200;
   int max_iterations = 50;
   double difference_step = 0.01;            // fraction of each search range
   double relative_decrease_tolerance = 1e-3;  // converged when a step gains less than this fraction
