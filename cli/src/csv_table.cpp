@@ -139,6 +139,15 @@ double CsvTable::quantity(std::size_t row, std::size_t column, Dimension dimensi
   }
 }
 
+double CsvTable::number(std::size_t row, std::size_t column) const {
+  const std::string& field = text(row, column);
+  try {
+    return parse_number(field, "value");
+  } catch (const InputError&) {
+    throw error_at(row, column, fmt::format("expected a number, got '{}'", field));
+  }
+}
+
 bool CsvTable::flag(std::size_t row, std::size_t column) const {
   const std::string value = lower(text(row, column));
   if (value == "yes" || value == "y" || value == "true" || value == "1") return true;

@@ -47,6 +47,9 @@ class CsvTable {
   // The field as a number in internal units, converted with the column's unit. The unit must
   // be one of the dimension's accepted units (else the error names the header line).
   double quantity(std::size_t row, std::size_t column, Dimension dimension) const;
+  // The field as a plain number, whatever the column's unit (the caller converts); an error at
+  // the field when it is not a number.
+  double number(std::size_t row, std::size_t column) const;
   // A yes/no flag (yes, y, true, 1 / no, n, false, 0; case-insensitive).
   bool flag(std::size_t row, std::size_t column) const;
 

@@ -26,15 +26,6 @@ std::optional<obs::Tension> tension_in(const std::string& unit, double value) {
   return std::nullopt;
 }
 
-double number_at(const CsvTable& table, std::size_t row, std::size_t column) {
-  const std::string& field = table.text(row, column);
-  try {
-    return parse_number(field, "value");
-  } catch (const InputError&) {
-    throw table.error_at(row, column, fmt::format("expected a number, got '{}'", field));
-  }
-}
-
 SensorRecord read_one(const SensorSetup& sensor, forcing::TimePoint run_start, double column_depth_cm) {
   if (sensor.kind == kObservationWell) return read_well_levels(sensor, run_start);
   if (sensor.kind == kCoreSamples) return read_core_samples(sensor, run_start, column_depth_cm);
@@ -92,7 +83,7 @@ SensorRecord read_one(const SensorSetup& sensor, forcing::TimePoint run_start, d
     const double day = forcing::days_since(run_start, *when);
     if (!(day > previous_day)) throw table.error_at(row, time_col, "times must increase down the file");
     previous_day = day;
-    const double raw = number_at(table, row, value_col);
+    const double raw = table.number(row, value_col);
     obs::Observation observation{day, sensor.depth_cm, 0.0, true};
     if (tensiometer) {
       const obs::Tension tension = *tension_in(table.column(value_col).unit, raw);

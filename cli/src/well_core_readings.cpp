@@ -25,15 +25,6 @@ using UnitTable = std::array<std::pair<std::string_view, double>, 2>;
 constexpr UnitTable kMassUnits = {{{"g", 1.0}, {"kg", 1000.0}}};          // to g
 constexpr UnitTable kVolumeUnits = {{{"cm3", 1.0}, {"mL", 1.0}}};         // to cm3
 
-double number_at(const CsvTable& table, std::size_t row, std::size_t column) {
-  const std::string& field = table.text(row, column);
-  try {
-    return parse_number(field, "value");
-  } catch (const InputError&) {
-    throw table.error_at(row, column, fmt::format("expected a number, got '{}'", field));
-  }
-}
-
 // The factor of a column's unit from a short table, or an error at the header naming the choices.
 double factor_of(const CsvTable& table, std::size_t column, const UnitTable& units, std::string_view example) {
   const std::string& unit = table.column(column).unit;
@@ -90,7 +81,7 @@ SensorRecord read_well_levels(const SensorSetup& well, forcing::TimePoint run_st
     const double day = day_at(table, row, time_col, run_start);
     if (!(day > previous_day)) throw table.error_at(row, time_col, "times must increase down the file");
     previous_day = day;
-    const double depth_cm = number_at(table, row, depth_col) * factor;
+    const double depth_cm = table.number(row, depth_col) * factor;
     if (!(depth_cm >= 0)) {
       throw table.error_at(row, depth_col, fmt::format("a depth to water below the ground surface is zero or more, got {} {}",
                                                        table.text(row, depth_col), table.column(depth_col).unit));
@@ -148,7 +139,7 @@ SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_
     previous_day = day;
     // Rounded so that a depth given in m or mm matches the same depth of a probe (0.55 m x 100
     // is 55.00000000000001 cm in binary floating point).
-    const double depth_cm = round_core_depth_cm(number_at(table, row, depth_col) * depth_factor);
+    const double depth_cm = round_core_depth_cm(table.number(row, depth_col) * depth_factor);
     if (!(depth_cm > 0)) {
       throw table.error_at(row, depth_col, fmt::format("a core depth below the surface is greater than zero, got {} {}",
                                                        table.text(row, depth_col), table.column(depth_col).unit));
@@ -159,7 +150,7 @@ SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_
     }
     double theta = 0;
     if (content_col) {
-      theta = number_at(table, row, *content_col) * *content_factor;
+      theta = table.number(row, *content_col) * *content_factor;
       if (!(theta >= 0 && theta <= 1)) {
         throw table.error_at(row, *content_col, fmt::format("a water content must lie between 0 and 100 %, got {} {}",
                                                             table.text(row, *content_col), table.column(*content_col).unit));
@@ -167,10 +158,10 @@ SensorRecord read_core_samples(const SensorSetup& cores, forcing::TimePoint run_
     } else {
       soils::CoreSample core;
       core.name = fmt::format("line {}", table.line_of(row));
-      core.ring_volume_cm3 = number_at(table, row, volume_col) * volume_factor;
-      core.tare_mass_g = tare_col ? number_at(table, row, *tare_col) * tare_factor : 0.0;
-      core.wet_mass_g = number_at(table, row, wet_col) * wet_factor;
-      core.oven_dry_mass_g = number_at(table, row, dry_col) * dry_factor;
+      core.ring_volume_cm3 = table.number(row, volume_col) * volume_factor;
+      core.tare_mass_g = tare_col ? table.number(row, *tare_col) * tare_factor : 0.0;
+      core.wet_mass_g = table.number(row, wet_col) * wet_factor;
+      core.oven_dry_mass_g = table.number(row, dry_col) * dry_factor;
       // The ring and the tare are checked against their own columns; the wet mass after them
       // (soils::core_properties).
       if (!(core.ring_volume_cm3 > 0)) {

@@ -136,6 +136,15 @@ std::vector<char> file_image(const File& file) {
   return image;
 }
 
+std::vector<char> build_in_memory(const std::string& name, const std::function<void(hid_t)>& write) {
+  QuietErrors quiet;
+  File file = create_memory_file(name);
+  write(file.id());
+  std::vector<char> image = file_image(file);
+  file.close("closing the in-memory file");
+  return image;
+}
+
 File open_file_read_only(const std::string& path) {
   PropertyList fapl = new_property_list(H5P_FILE_ACCESS, "file access property list");
   check(H5Pset_fclose_degree(fapl.id(), H5F_CLOSE_SEMI), "setting the file close degree");

@@ -4,6 +4,7 @@
 #pragma once
 
 #include <cstdint>
+#include <functional>
 #include <span>
 #include <string>
 #include <string_view>
@@ -20,6 +21,9 @@ namespace wetfront::profiles::hdf5 {
 File create_memory_file(const std::string& name);
 // The complete bytes of an open file, as they would be on disk (flushes first).
 std::vector<char> file_image(const File& file);
+// A whole file built in memory by `write` (given the file's id), with HDF5's own error printing
+// turned off; its bytes, ready to be saved. Throws Error (or what `write` throws).
+std::vector<char> build_in_memory(const std::string& name, const std::function<void(hid_t)>& write);
 File open_file_read_only(const std::string& path);
 Group create_group(hid_t parent, std::string_view name);
 Group open_group(hid_t parent, std::string_view name);

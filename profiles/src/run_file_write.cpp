@@ -322,11 +322,7 @@ void write_run(const std::filesystem::path& path, const RunRecord& record) {
   // POSIX file systems) only when they are all on the disk.
   std::vector<char> image;
   try {
-    h5::QuietErrors quiet;
-    h5::File file = h5::create_memory_file(path.string());
-    write_contents(file.id(), record);
-    image = h5::file_image(file);
-    file.close("closing the in-memory file");
+    image = h5::build_in_memory(path.string(), [&](hid_t file) { write_contents(file, record); });
   } catch (const std::exception& error) {
     throw failure(error.what());
   }

@@ -106,14 +106,8 @@ void write_study(const std::filesystem::path& path, const StudyRecord& record) {
     return RunFileError(fmt::format("cannot write parameter study file '{}': {}", path.string(), cause));
   };
   if (path.filename().empty()) throw failure("the path names no file");
-  std::vector<char> image;
   try {
-    h5::QuietErrors quiet;
-    h5::File file = h5::create_memory_file(path.string());
-    write_contents(file.id(), record);
-    image = h5::file_image(file);
-    file.close("closing the in-memory file");
-    save_file_image(path, image);
+    save_file_image(path, h5::build_in_memory(path.string(), [&](hid_t file) { write_contents(file, record); }));
   } catch (const std::exception& error) {
     throw failure(error.what());
   }

@@ -1,5 +1,6 @@
 // Bad [[adjustable]] and [fit] entries: refused with the file, the line of the offending key
-// and what was expected; through the program, exit code 1 and no output file.
+// and what was expected; through the program, exit code 1 and no output file. The limits named
+// in the messages are the site file's own (docs/site-file.md); no outside values.
 #include <gtest/gtest.h>
 
 #include <algorithm>

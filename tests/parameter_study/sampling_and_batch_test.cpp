@@ -1,4 +1,6 @@
-// Parameter sets for sweeps and the parallel batch runner.
+// Parameter sets for sweeps and the parallel batch runner. Check values follow by construction
+// from the definitions (even spacing on each scale, one point per stratum: McKay, Beckman &
+// Conover 1979); no outside values.
 #include <gtest/gtest.h>
 
 #include <algorithm>
