@@ -71,7 +71,7 @@ struct CommonOptions {
 };
 
 void add_common(CLI::App* cmd, CommonOptions& o, const std::string& default_out) {
-  cmd->add_option("SITE", o.site, "site file (TOML) with [[adjustable]] parameters; see docs/site-file.md")->required();
+  cmd->add_option("SITE", o.site, "site file (TOML) with [[adjustable]] parameters; see docs/parameter-studies.md")->required();
   cmd->add_option("--out", o.out, "HDF5 file to write (default: the site file's name with " + default_out + ")");
   cmd->add_option("--from", o.from, "start the runs on this date instead (YYYY-MM-DD)");
   cmd->add_option("--to", o.to, "end the runs on this date instead (YYYY-MM-DD)");
@@ -103,7 +103,7 @@ void add_sweep_command(CLI::App& app) {
   cmd->add_option("--show", o->shown, "rows of the ranked table to print (default 10; the CSV has all)");
   cmd->add_option("--keep", o->kept, "profiles of this many best runs go into the HDF5 file (default 3)");
   cmd->footer("Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
-              "Exit codes: 0 done, 1 bad input (nothing written).\n"
+              "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
               "Example:\n  wetfront sweep examples/demo/site.toml --grid");
   cmd->callback([o] {
     const SeasonModel model = load_model(*o);
@@ -135,12 +135,12 @@ void add_calibrate_command(CLI::App& app) {
     std::size_t band_runs = 40;
   };
   auto o = std::make_shared<Options>();
-  CLI::App* cmd = app.add_subcommand("calibrate", "Fit the adjustable parameters to the tensiometer readings and give recharge with an uncertainty band");
+  CLI::App* cmd = app.add_subcommand("calibrate", "Fit the adjustable parameters to the sensor readings and give recharge with an uncertainty band");
   add_common(cmd, *o, "-calibration.h5");
   cmd->add_option("--max-runs", o->max_runs, "limit on model runs for the fit (default 150)")->check(CLI::Range(4, 100000));
   cmd->add_option("--band-runs", o->band_runs, "parameter sets drawn for the sampled recharge band (default 40; 0: none)");
   cmd->footer("Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
-              "Exit codes: 0 done, 1 bad input (nothing written).\n"
+              "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
               "Example:\n  wetfront calibrate examples/demo/site.toml");
   cmd->callback([o] {
     const SeasonModel model = load_model(*o);
