@@ -135,7 +135,6 @@ std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std
   const SiteSetup& site = model.site();
   std::string out = fmt::format("Parameter sweep: {}, {} to {}\n\n", site.name, site.run_start_text, site.run_end_text);
   out += parameters_text(model.study()) + "\n" + objective_text(model);
-  std::vector<double> per_run;
   std::vector<double> complete_recharge;
   std::size_t failed = 0;
   for (const auto& run : sweep.runs) {
