@@ -19,6 +19,7 @@
 namespace wetfront::cli {
 namespace {
 
+using testing::at_depth;
 using testing::run_program;
 using testing::keep_tensiometers_and_probes;
 using testing::ScratchSite;
@@ -160,18 +161,6 @@ TEST(SensorsAgainstModel, ReadingsAtTheWorkingLimitAreLeftOutAndCounted) {
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(run.out.find(fmt::format("Left out: {} tensiometer reading(s) beyond the working limit", beyond)), std::string::npos)
       << run.out;
-}
-
-// Heads at the sensor depth from a profile, linear between the cell centres around it.
-double at_depth(const std::vector<double>& centres, const std::vector<double>& values, double depth) {
-  for (std::size_t i = 0; i + 1 < centres.size(); ++i) {
-    if (centres[i] <= depth && depth <= centres[i + 1]) {
-      const double w = (depth - centres[i]) / (centres[i + 1] - centres[i]);
-      return values[i] + w * (values[i + 1] - values[i]);
-    }
-  }
-  ADD_FAILURE() << "depth outside the cell centres";
-  return 0;
 }
 
 // Readings made from the model's own output must give bias ~0 and NSE ~1: the comparison

@@ -11,6 +11,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include <gtest/gtest.h>
 
 namespace wetfront::cli::testing {
 
@@ -87,6 +88,17 @@ void keep_tensiometers_and_probes(const ScratchSite& site) {
     throw std::runtime_error("test setup: the demo site file has no core-samples block before [recharge]");
   }
   site.write("site.toml", text.erase(from, to - from));
+}
+
+double at_depth(const std::vector<double>& centres, const std::vector<double>& values, double depth) {
+  for (std::size_t i = 0; i + 1 < centres.size(); ++i) {
+    if (centres[i] <= depth && depth <= centres[i + 1]) {
+      const double w = (depth - centres[i]) / (centres[i + 1] - centres[i]);
+      return values[i] + w * (values[i + 1] - values[i]);
+    }
+  }
+  ADD_FAILURE() << "depth outside the cell centres";
+  return 0;
 }
 
 }  // namespace wetfront::cli::testing

@@ -3,6 +3,7 @@
 
 #include <filesystem>
 #include <string>
+#include <vector>
 
 namespace wetfront::cli::testing {
 
@@ -38,6 +39,10 @@ struct ProgramResult {
   std::string out;
   std::string err;
 };
+
+// A profile value at `depth`, linear between the cell centres around it (the interpolation the
+// sensor comparison uses, written out independently); a test failure outside the centres.
+double at_depth(const std::vector<double>& centres, const std::vector<double>& values, double depth);
 
 // Runs the wetfront program with `arguments` (already quoted as needed).
 ProgramResult run_program(const std::string& arguments, const std::filesystem::path& scratch);

@@ -18,6 +18,7 @@
 namespace wetfront::cli {
 namespace {
 
+using testing::at_depth;
 using testing::run_program;
 using testing::ScratchSite;
 
@@ -32,18 +33,6 @@ std::string probe_file(const std::vector<double>& water_content, int skip = -1) 
     text += fmt::format("{}T09:00,{}\n", kVisitDates[k], water_content[k]);
   }
   return text;
-}
-
-// Linear between the cell centres around `depth` (the interpolation the sensor comparison uses).
-double at_depth(const std::vector<double>& centres, const std::vector<double>& values, double depth) {
-  for (std::size_t i = 0; i + 1 < centres.size(); ++i) {
-    if (centres[i] <= depth && depth <= centres[i + 1]) {
-      const double w = (depth - centres[i]) / (centres[i + 1] - centres[i]);
-      return values[i] + w * (values[i + 1] - values[i]);
-    }
-  }
-  ADD_FAILURE() << "depth outside the cell centres";
-  return 0;
 }
 
 // Probes at 20, 50 and 80 cm reading 0.30, 0.20 + 0.01 k and 0.10 at visit k. By hand:
