@@ -2,6 +2,8 @@
 // a year of daily surface fluxes with a dry limit of -15000 cm.
 #pragma once
 
+#include <array>
+#include <cmath>
 #include <fstream>
 #include <stdexcept>
 #include <string>
@@ -38,6 +40,44 @@ inline solver::ColumnProblem year200_column(const std::string& flux_csv) {
   problem.end_day = 365.0;
   for (int day = 0; day <= 365; ++day) problem.output_days.push_back(day);
   return problem;
+}
+
+// Daily heads at 10, 30, 60, 100 and 150 cm: on 1 cm cells the face at depth d lies between
+// cells d-1 and d, so each is the mean of those two cells.
+inline constexpr std::array<int, 5> year200_report_depths_cm = {10, 30, 60, 100, 150};
+using DailyHeads = std::vector<std::array<double, 5>>;
+
+inline DailyHeads daily_heads(const solver::ColumnRun& run) {
+  DailyHeads rows;
+  for (const auto& p : run.profiles) {
+    std::array<double, 5> row{};
+    for (std::size_t k = 0; k < row.size(); ++k) {
+      const auto d = static_cast<std::size_t>(year200_report_depths_cm[k]);
+      row[k] = 0.5 * (p.head_cm[d - 1] + p.head_cm[d]);
+    }
+    rows.push_back(row);
+  }
+  return rows;
+}
+
+// Root-mean-square difference over all days and depths (cm).
+inline double rms_difference(const DailyHeads& a, const DailyHeads& b) {
+  if (a.size() != b.size()) throw std::invalid_argument("daily head tables differ in length");
+  double sum = 0;
+  for (std::size_t i = 0; i < a.size(); ++i)
+    for (std::size_t k = 0; k < a[i].size(); ++k) sum += (a[i][k] - b[i][k]) * (a[i][k] - b[i][k]);
+  return std::sqrt(sum / static_cast<double>(a.size() * a.front().size()));
+}
+
+// Settings of the tight-tolerance reference run that time-stepping errors are measured against.
+inline solver::SolverSettings tight_settings() {
+  solver::SolverSettings s;
+  s.relative_tolerance = 1e-8;
+  s.absolute_tolerance_storage_cm = 1e-11;
+  s.nonlinear_convergence_factor = 0.01;
+  s.max_step_days = 0.05;
+  s.max_steps_per_day = 1000000;
+  return s;
 }
 
 }  // namespace wetfront::bench

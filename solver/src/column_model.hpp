@@ -1,22 +1,24 @@
 // The semi-discrete Richards equation on the column, as a DAE for IDA.
 //
-// Unknowns, all cumulative amounts in cm since the last restart (the Jacobian is banded,
-// 2 lower and 5 upper diagonals):
-//   y[0] W  water input        y[1] V  potential evaporation   y[2] E  actual evaporation
-//   y[3] R  runoff             y[4] P  ponded depth
-//   y[5 + 2j] F_j  water that crossed face j (face 0 the surface, face N the bottom), down +
-//   y[6 + 2i] U_i  water taken from cell i by the sink
-// The stored water of cell i is then a linear function of the unknowns,
+// Unknowns, cumulative amounts in cm since the last restart:
+//   F_j  water that crossed face j (face 0 the surface, face N the bottom), positive down
+//   U_i  water taken by the sink from cell i, only for the cells the sink can reach (i < M)
+// ordered F_0 U_0 F_1 U_1 ... F_(M-1) U_(M-1) F_M F_(M+1) ... F_N, so the Jacobian is banded
+// with two diagonals on either side (one without a sink: tridiagonal).
+// The stored water of cell i is a linear function of the unknowns,
 //   S_i = S_i(restart) + F_i - F_(i+1) - U_i,
 // so conservation holds exactly, whatever the accuracy of the nonlinear solve. Residuals:
-//   F_j' - q_j(h) = 0        Darcy flux on face j (Darcy-Buckingham, q = K (1 - dh/dd))
-//   U_i' - r_i(h_i) dz_i = 0 sink
-//   surface rows, linear in the rates: W' = rain + irrigation, V' = potential evaporation,
-//   and per mode E' = V' or W' - F_0', R' = 0 or W' - V' - F_0', P' = 0 or W' - V' - F_0'.
-// Each cell's head is the inverse of its storage function,
-//   S_i = dz_i [theta(h_i) + Ss max(h_i - h_sat, 0)],
-// in closed form (h(theta) of the soil model; linear above saturation, where the specific
-// storage Ss keeps it one-to-one).
+//   F_j' - q_j(h) = 0          Darcy-Buckingham flux on face j, q = K (1 - dh/dd)
+//   U_i' - r_i(h_i) dz_i = 0   sink
+// Each head and conductivity is read from its soil's storage table, h(S_i / dz_i) and
+// K(h) (storage_table.hpp): no transcendental function in the residual.
+//
+// The surface accounts need no unknowns: over one restart interval the forcing rates w (water
+// input) and v (potential evaporation) and the surface mode are fixed, so with tau = t - t_restart
+//   water input W = w tau, potential evaporation V = v tau, and by mode
+//   flux, full, ponded: actual evaporation E = V;   dry limit: E = W - F_0
+//   full: runoff R = W - V - F_0;   ponded: pond P = P_restart + W - V - F_0
+// which closes the surface balance W - E - R - F_0 - (P - P_restart) = 0 exactly.
 #pragma once
 
 #include <span>
@@ -24,7 +26,9 @@
 
 #include <sundials/sundials_matrix.h>
 
+#include "storage_table.hpp"
 #include "wetfront/solver/column_problem.hpp"
+#include "wetfront/solver/column_run.hpp"
 
 namespace wetfront::solver::detail {
 
@@ -37,6 +41,21 @@ enum class SurfaceMode {
 };
 enum class BottomMode { normal, seepage_closed, seepage_open };
 
+// Event functions (IDARootInit), one slot each; a switch fires when its function falls
+// through zero.
+enum EventSlot : int {
+  surface_limit_event = 0,  // flux: soil can no longer take or give it; ponded: storage full;
+                            // full: runoff stops; dry: soil can supply the demand again
+  pond_emptied_event = 1,   // ponded: the pond is empty
+  seepage_event = 2,        // seepage face: bottom saturates (closed) or outflow stops (open)
+  event_count = 3,
+};
+
+// Amounts at the surface since the last restart (the pond: its depth now).
+struct SurfaceAccounts {
+  double water_input = 0, potential_evaporation = 0, actual_evaporation = 0, runoff = 0, ponded_depth = 0;
+};
+
 // Cumulative totals carried across restarts (the unknowns restart from zero).
 struct Totals {
   double water_input = 0, potential_evaporation = 0, actual_evaporation = 0, runoff = 0, transpiration = 0;
@@ -47,80 +66,96 @@ class ColumnModel {
  public:
   explicit ColumnModel(const ColumnProblem& problem);
 
-  static constexpr std::size_t water_input_index = 0, potential_index = 1, evaporation_index = 2, runoff_index = 3,
-                               pond_index = 4;
-  static std::size_t face_index(std::size_t face) { return 5 + 2 * face; }
-  static std::size_t uptake_index(std::size_t cell) { return 6 + 2 * cell; }
-  static constexpr int lower_bandwidth = 2, upper_bandwidth = 5;
-
   std::size_t cells() const { return grid_.cell_count(); }
-  std::size_t unknowns() const { return 6 + 2 * cells(); }
+  std::size_t uptake_cells() const { return uptake_cells_; }
+  std::size_t face_index(std::size_t face) const { return face + std::min(face, uptake_cells_); }
+  static std::size_t uptake_index(std::size_t cell) { return 2 * cell + 1; }  // cell < uptake_cells()
+  std::size_t unknowns() const { return cells() + 1 + uptake_cells_; }
+  int bandwidth() const { return uptake_cells_ > 0 ? 2 : 1; }
 
   // Holds the forcing of the period that starts at t (piecewise-constant series).
   void begin_period(double t_days);
   std::vector<double> breakpoints() const;
 
   void initial_state(std::span<double> y);
-  // Moves the cumulative unknowns into the totals and the cell storages, and zeroes them.
-  void rebase(std::span<double> y);
+  // Moves the cumulative unknowns and surface accounts into the totals and the cell storages,
+  // zeroes them, and starts a restart interval at t.
+  void rebase(double t_days, std::span<double> y);
   // y' consistent with y under the current modes.
   void consistent_rates(double t, std::span<const double> y, std::span<double> yp);
-  void residual(double t, std::span<const double> y, std::span<const double> yp, std::span<double> r);
+  // Returns false when a cell's stored water lies below its soil's lowest storage.
+  bool residual(double t, std::span<const double> y, std::span<const double> yp, std::span<double> r);
   void jacobian(double t, double cj, std::span<const double> y, SUNMatrix band);
 
-  // Events: one root function per possible switch, used in the current modes.
-  int root_count() const { return 3; }
-  void roots(double t, std::span<const double> y, std::span<double> g);
-  std::vector<int> root_directions() const { return {-1, -1, -1}; }
-  // After a root in slot k: move to the next mode. Returns true for a surface switch.
-  bool switch_mode(int root_slot);
+  // IDA's error weights (1 / tolerance) for a state. Each cell's stored water may err by the
+  // relative tolerance of it plus the absolute tolerance; where the cell conducts (K at least
+  // 1 % of Ks, so its head drives real flow) also by no more than the head tolerance's worth of
+  // storage, dS = dh / (dh/dS). Near saturation dh/dS is 1 / (Ss dz), so without that cap a
+  // storage tolerance lets heads err by metres when Ss is small. A face or sink amount takes
+  // the tighter tolerance of the cells it changes.
+  void error_weights(std::span<const double> y, std::span<double> weights) const;
+
+  // Events: needs only the surface cell (and the bottom cell for a seepage face).
+  void events(double t, std::span<const double> y, std::span<double> g) const;
+  // After an event in this slot: move to the next mode. Returns true for a surface switch.
+  bool switch_mode(EventSlot slot, double t, std::span<const double> y);
   // At a period start: choose the modes that fit the state (new forcing may change them).
-  void choose_modes(std::span<const double> y);
+  void choose_modes(double t, std::span<const double> y);
   SurfaceMode surface_mode() const { return surface_; }
 
   // Diagnostics at a state.
-  double cell_storage(std::size_t cell, std::span<const double> y) const;
+  double cell_storage(std::size_t cell, std::span<const double> y) const {
+    const double uptake = cell < uptake_cells_ ? y[uptake_index(cell)] : 0.0;
+    return base_storage_[cell] + y[face_index(cell)] - y[face_index(cell + 1)] - uptake;
+  }
+  double soil_storage(std::span<const double> y) const;
+  SurfaceAccounts surface_accounts(double t, std::span<const double> y) const;
   const Totals& totals() const { return totals_; }
-  void face_fluxes(double t, std::span<const double> y, std::span<double> flux);
-  void cell_properties(std::span<const double> y, std::span<double> head, std::span<double> theta,
-                       std::span<double> k) const;
-  void sink_rates(double t, std::span<const double> y, std::span<double> rate);
-  double stored_water(std::size_t cell, double head_cm) const;
-  // Inverse of stored_water; NaN when the storage is at or below the residual water content.
-  double head_for_storage(std::size_t cell, double stored_cm) const;
+  double transpiration(std::span<const double> y) const;  // since the run start
+  ProfileSnapshot snapshot(double t, std::span<const double> y);
+  // The head in a cell at a state (for failure reports).
+  double cell_head(std::size_t cell, std::span<const double> y) const;
+  double cell_water_content(std::size_t cell, std::span<const double> y) const;
+  const StorageTable& cell_table(std::size_t cell) const { return *cell_table_[cell]; }
+  const soils::HydraulicModel& cell_model(std::size_t cell) const { return *cell_model_[cell]; }
   const Grid& grid() const { return grid_; }
 
  private:
   struct SurfaceFlux {
     double flux;        // q_0, cm/d positive down
-    double slope_head;  // dq_0 / dh_0
+    double slope_storage;  // dq_0 / dS_0
     double slope_pond;  // dq_0 / dP (only while ponded)
   };
   struct BottomFlux {
     double flux;        // q_N, cm/d positive down
-    double slope_head;  // dq_N / dh_(N-1)
+    double slope_storage;  // dq_N / dS_(N-1)
   };
-  void evaluate_cells(std::span<const double> y);
-  SurfaceFlux surface_flux(std::span<const double> y) const;
-  SurfaceFlux head_limited_flux(double surface_head_cm) const;
-  BottomFlux bottom_flux() const;
-  double surface_head(std::span<const double> y) const;
+  bool evaluate_cells(std::span<const double> y);  // false when a storage is not physical
+  StoragePoint cell_point(std::size_t cell, std::span<const double> y) const;
+  SurfaceFlux surface_flux(double t, std::span<const double> y, const StoragePoint& top) const;
+  SurfaceFlux head_limited_flux(double surface_head_cm, const StoragePoint& top) const;
+  BottomFlux bottom_flux(const StoragePoint& last) const;
+  double surface_head(double t, std::span<const double> y) const;
   double net_input() const { return water_input_ - potential_evaporation_; }
-  double capacity_total(std::size_t cell) const;
-  void surface_residuals(std::span<const double> yp, std::span<double> r) const;
+  double infiltration(std::span<const double> y) const { return y[face_index(0)]; }
 
   Grid grid_;
+  std::vector<StorageTable> tables_;                 // one per soil layer
+  std::vector<const StorageTable*> cell_table_;
   std::vector<const soils::HydraulicModel*> cell_model_;
-  std::vector<double> saturation_head_;   // head at which each cell's Se reaches 1
+  std::vector<double> inverse_thickness_;
+  std::vector<double> centre_distance_;             // between cell j-1 and j, for faces 1..N-1
+  std::size_t uptake_cells_ = 0;
   TopBoundary top_;
   BottomBoundary bottom_boundary_;
   std::shared_ptr<const CellSink> sink_;
-  double specific_storage_;
   FaceConductivity face_kind_;
   double dry_limit_head_ = -15000.0;
   double max_ponded_depth_ = 0.0;
   bool atmospheric_ = false;
   InitialCondition initial_;
+  SolverSettings settings_;
+  std::vector<double> saturated_conductivity_;  // per cell
 
   // Forcing held over the current period.
   double water_input_ = 0, potential_evaporation_ = 0, prescribed_flux_ = 0, prescribed_head_ = 0;
@@ -128,15 +163,15 @@ class ColumnModel {
   SurfaceMode surface_ = SurfaceMode::flux;
   BottomMode bottom_ = BottomMode::normal;
 
+  double restart_time_ = 0;
+  double restart_pond_ = 0;
   std::vector<double> base_storage_;      // S_i at the last restart
   Totals totals_;
 
-  // Workspace, refreshed by evaluate_cells() (kept while the state is unchanged).
-  std::vector<double> head_, conductivity_, conductivity_slope_, capacity_, sink_rate_, sink_slope_;
-  std::vector<double> head_per_storage_;  // dh/dS per cell in jacobian()
-  std::vector<double> evaluated_state_;
-  double evaluated_period_ = -1;
+  // Workspace, refreshed by evaluate_cells(): per cell head, dh/dS, K, dK/dS, sink and its slope.
+  std::vector<double> head_, head_per_storage_, conductivity_, conductivity_per_storage_, sink_rate_, sink_slope_;
   std::vector<double> faces_scratch_;
+  std::vector<double> evaluated_state_;  // the state of the last residual, while the workspace holds it
 };
 
 }  // namespace wetfront::solver::detail

@@ -9,10 +9,19 @@
 
 namespace wetfront::solver::detail {
 
+// One side of a face: head, conductivity, and their slopes with respect to that side's own
+// variable (a cell's stored water, or a pond's depth).
+struct FaceSide {
+  double head_cm;
+  double conductivity;        // cm/d
+  double head_slope;          // dh / d(variable)
+  double conductivity_slope;  // dK / d(variable)
+};
+
 struct FaceFlux {
   double flux;          // cm/d, positive downward
-  double slope_upper;   // dq / dh_upper
-  double slope_lower;   // dq / dh_lower
+  double slope_upper;   // dq / d(upper variable)
+  double slope_lower;   // dq / d(lower variable)
 };
 
 struct MeanAndSlopes {
@@ -29,6 +38,7 @@ inline MeanAndSlopes face_mean(FaceConductivity kind, double a, double b) {
     }
     case FaceConductivity::harmonic: {
       const double s = a + b;
+      if (!(s > 0)) return {0.0, 0.0, 0.0};
       return {2.0 * a * b / s, 2.0 * b * b / (s * s), 2.0 * a * a / (s * s)};
     }
     case FaceConductivity::arithmetic:
@@ -37,13 +47,11 @@ inline MeanAndSlopes face_mean(FaceConductivity kind, double a, double b) {
   }
 }
 
-// Upper and lower side: head (cm), conductivity K (cm/d) and dK/dh.
-inline FaceFlux darcy_face(FaceConductivity kind, double h_upper, double k_upper, double dk_upper, double h_lower,
-                           double k_lower, double dk_lower, double distance_cm) {
-  const auto k = face_mean(kind, k_upper, k_lower);
-  const double gradient = 1.0 - (h_lower - h_upper) / distance_cm;
-  return {k.mean * gradient, k.slope_a * dk_upper * gradient + k.mean / distance_cm,
-          k.slope_b * dk_lower * gradient - k.mean / distance_cm};
+inline FaceFlux darcy_face(FaceConductivity kind, const FaceSide& upper, const FaceSide& lower, double distance_cm) {
+  const auto k = face_mean(kind, upper.conductivity, lower.conductivity);
+  const double gradient = 1.0 - (lower.head_cm - upper.head_cm) / distance_cm;
+  return {k.mean * gradient, k.slope_a * upper.conductivity_slope * gradient + k.mean / distance_cm * upper.head_slope,
+          k.slope_b * lower.conductivity_slope * gradient - k.mean / distance_cm * lower.head_slope};
 }
 
 }  // namespace wetfront::solver::detail

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <stdexcept>
 
 #include <fmt/format.h>
@@ -34,32 +35,70 @@ Grid uniform_grid(double depth_cm, std::size_t cells) {
   return Grid(std::move(faces));
 }
 
-// Fills [top, bottom] with cells that start at thickness `first`, grow by at most `growth`
-// and never exceed `largest`; the last cell is matched to the interval by rescaling.
-static void fill_interval(double top, double bottom, double first, double growth, double largest,
-                          std::vector<double>& faces) {
-  std::vector<double> widths;
-  double width = std::min(first, largest);
-  double covered = 0.0;
-  while (covered + width < bottom - top) {
-    widths.push_back(width);
-    covered += width;
-    width = std::min(width * growth, largest);
+namespace {
+
+// The largest cell allowed at depth z:
+//   s(z) = min( M, s0 + lambda z, min over intervals a of (L_a + lambda dist(z, a)) ),
+// with lambda = (g - 1) / g, M the largest cell, s0 the surface cell, g the growth factor and L_a
+// the length of the interval a between two required faces. A field whose slope is at most
+// lambda changes by at most a factor exp(lambda) < g over one cell that holds a unit share of
+// the integral of dz / s, in either direction (exp(-lambda) > 1 / g), so cells placed by that
+// integral grow and shrink within the growth factor.
+class SizeField {
+ public:
+  SizeField(const GridRequest& r, const std::vector<double>& anchors)
+      : surface_(std::min(r.surface_cell_cm, r.max_cell_cm)), largest_(r.max_cell_cm),
+        slope_((r.growth_factor - 1.0) / r.growth_factor), anchors_(anchors) {}
+
+  double at(double z) const {
+    double s = std::min(largest_, surface_ + slope_ * z);
+    for (std::size_t a = 0; a + 1 < anchors_.size(); ++a) {
+      const double distance = std::max({0.0, anchors_[a] - z, z - anchors_[a + 1]});
+      s = std::min(s, anchors_[a + 1] - anchors_[a] + slope_ * distance);
+    }
+    return s;
   }
-  widths.push_back(bottom - top - covered);
-  // Merge a sliver last cell into its neighbour, then spread the interval evenly over the cells.
-  if (widths.size() > 1 && widths.back() < 0.5 * widths[widths.size() - 2]) {
-    widths[widths.size() - 2] += widths.back();
-    widths.pop_back();
+
+ private:
+  double surface_, largest_, slope_;
+  const std::vector<double>& anchors_;
+};
+
+// Faces strictly inside [top, bottom] for `cells` cells that each hold the same share of the
+// integral of dz / s (trapezoid rule on a fine subdivision, inverted linearly).
+std::vector<double> interior_faces(const SizeField& field, double top, double bottom, std::size_t cells) {
+  constexpr std::size_t samples = 4000;
+  std::vector<double> depth(samples + 1), cumulative(samples + 1, 0.0);
+  for (std::size_t k = 0; k <= samples; ++k) depth[k] = top + (bottom - top) * static_cast<double>(k) / samples;
+  for (std::size_t k = 1; k <= samples; ++k)
+    cumulative[k] = cumulative[k - 1] + 0.5 * (depth[k] - depth[k - 1]) * (1.0 / field.at(depth[k - 1]) + 1.0 / field.at(depth[k]));
+  std::vector<double> faces;
+  std::size_t k = 1;
+  for (std::size_t c = 1; c < cells; ++c) {
+    const double target = cumulative.back() * static_cast<double>(c) / static_cast<double>(cells);
+    while (cumulative[k] < target) ++k;
+    const double w = (target - cumulative[k - 1]) / (cumulative[k] - cumulative[k - 1]);
+    faces.push_back(depth[k - 1] + w * (depth[k] - depth[k - 1]));
   }
-  double depth = top;
-  for (double w : widths) {
-    depth += w;
-    faces.push_back(depth);
-  }
-  faces.back() = bottom;
+  return faces;
 }
 
+double field_integral(const SizeField& field, double top, double bottom) {
+  constexpr int samples = 4000;
+  double total = 0;
+  for (int k = 0; k < samples; ++k) {
+    const double a = top + (bottom - top) * k / samples, b = top + (bottom - top) * (k + 1) / samples;
+    total += 0.5 * (b - a) * (1.0 / field.at(a) + 1.0 / field.at(b));
+  }
+  return total;
+}
+
+}  // namespace
+
+// Builds the grid from the size field, then repairs what rounding the cell counts up can leave:
+// while any cell breaks a limit (thicker than the surface cell at the top, than the largest cell
+// anywhere, or more than the growth factor from a neighbour), the interval holding the offending
+// (thicker) cell gets one more cell. Cells only ever get thinner, so this ends.
 Grid graded_grid(const GridRequest& request) {
   if (!(request.depth_cm > 0)) throw std::invalid_argument("grid depth must be positive");
   if (!(request.surface_cell_cm > 0) || !(request.growth_factor >= 1.0) || !(request.max_cell_cm > 0))
@@ -74,16 +113,37 @@ Grid graded_grid(const GridRequest& request) {
   std::sort(anchors.begin(), anchors.end());
   anchors.erase(std::unique(anchors.begin(), anchors.end(), [](double a, double b) { return std::abs(a - b) < 1e-9; }),
                 anchors.end());
-  std::vector<double> faces = {0.0};
-  for (std::size_t k = 1; k < anchors.size(); ++k) {
-    // Cell size allowed at this depth by growth from the surface cell.
-    const double top = anchors[k - 1];
-    const double last = faces.size() > 1 ? faces.back() - faces[faces.size() - 2] : request.surface_cell_cm;
-    const double first = faces.size() > 1 ? std::min(last * request.growth_factor, request.max_cell_cm)
-                                           : request.surface_cell_cm;
-    fill_interval(top, anchors[k], first, request.growth_factor, request.max_cell_cm, faces);
+  const SizeField field(request, anchors);
+  const std::size_t intervals = anchors.size() - 1;
+  std::vector<std::size_t> cells(intervals);
+  for (std::size_t a = 0; a < intervals; ++a)
+    cells[a] = static_cast<std::size_t>(std::max(1.0, std::ceil(field_integral(field, anchors[a], anchors[a + 1]) - 1e-9)));
+
+  const double g = request.growth_factor * (1 + 1e-12), largest = request.max_cell_cm * (1 + 1e-12);
+  const double first = request.surface_cell_cm * (1 + 1e-12);
+  std::vector<std::vector<double>> inside(intervals);
+  for (std::size_t a = 0; a < intervals; ++a) inside[a] = interior_faces(field, anchors[a], anchors[a + 1], cells[a]);
+  for (int repair = 0;; ++repair) {
+    std::vector<double> faces = {0.0};
+    std::vector<std::size_t> interval_of;  // per cell
+    for (std::size_t a = 0; a < intervals; ++a) {
+      faces.insert(faces.end(), inside[a].begin(), inside[a].end());
+      faces.push_back(anchors[a + 1]);
+      interval_of.resize(faces.size() - 1, a);
+    }
+    auto width = [&faces](std::size_t i) { return faces[i + 1] - faces[i]; };
+    std::optional<std::size_t> offending;
+    if (width(0) > first) offending = 0;
+    for (std::size_t i = 0; i + 1 < faces.size() && !offending; ++i) {
+      if (width(i) > largest) offending = i;
+      else if (i + 1 + 1 < faces.size() && (width(i) > g * width(i + 1) || width(i + 1) > g * width(i)))
+        offending = width(i) > width(i + 1) ? i : i + 1;
+    }
+    if (!offending) return Grid(std::move(faces));
+    if (repair > 100000) throw std::logic_error("graded_grid: the limits could not be met");
+    const std::size_t a = interval_of[*offending];
+    inside[a] = interior_faces(field, anchors[a], anchors[a + 1], ++cells[a]);
   }
-  return Grid(std::move(faces));
 }
 
 }  // namespace wetfront::solver

@@ -151,10 +151,11 @@ RootUptake::RootUptake(RootUptakeSettings settings, const Grid& grid) : settings
 
 void RootUptake::evaluate(double t, std::span<const double> cell_depths_cm, std::span<const double> head_cm,
                           std::span<double> rate_per_day, std::span<double> rate_slope) const {
-  const std::size_t n = cell_thickness_cm_.size();
-  if (cell_depths_cm.size() != n || head_cm.size() != n || rate_per_day.size() != n || rate_slope.size() != n)
-    throw std::invalid_argument(
-        fmt::format("root uptake was set up for {} cells but is evaluated on {}", n, cell_depths_cm.size()));
+  // The leading n cells of the column (the solver passes only those the roots can reach).
+  const std::size_t n = cell_depths_cm.size();
+  if (n > cell_thickness_cm_.size() || head_cm.size() != n || rate_per_day.size() != n || rate_slope.size() != n)
+    throw std::invalid_argument(fmt::format("root uptake was set up for {} cells but is evaluated on {}",
+                                            cell_thickness_cm_.size(), cell_depths_cm.size()));
   const auto& depth_starts = settings_.root_depth_cm.start_days;
   const auto it = std::upper_bound(depth_starts.begin(), depth_starts.end(), t);
   const auto period = it == depth_starts.begin() ? 0 : static_cast<std::size_t>(it - depth_starts.begin()) - 1;
@@ -170,6 +171,11 @@ void RootUptake::evaluate(double t, std::span<const double> cell_depths_cm, std:
     rate_per_day[i] = alpha.value * demand;
     rate_slope[i] = alpha.slope_per_cm * demand;
   }
+}
+
+double RootUptake::deepest_depth_cm() const {
+  const auto& depths = settings_.root_depth_cm.values;
+  return std::min(*std::max_element(depths.begin(), depths.end()), face_depths_cm_.back());
 }
 
 std::vector<double> RootUptake::breakpoints_days() const {

@@ -1,7 +1,10 @@
 // Time integration of the column DAE with IDA (BDF, variable order and step), a banded
 // analytic Jacobian, exact stops at forcing breakpoints and located boundary switches.
-// Every restart (new forcing period or boundary mode) moves the cumulative unknowns into
-// running totals, so they stay small and the error test sees per-period amounts.
+//
+// IDA takes one step per call (IDA_ONE_STEP); output times are read from its interpolant
+// (IDAGetDky) between steps, so the steps, and therefore the results, do not depend on how often
+// the run writes. Every restart (new forcing period or boundary mode) moves the cumulative
+// unknowns into running totals, so they stay small and the error test sees per-period amounts.
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
@@ -11,7 +14,10 @@
 #include <fmt/format.h>
 
 #include "column_model.hpp"
+#include "compiled_kernels.hpp"
+#include "failure_report.hpp"
 #include "ida_handles.hpp"
+#include "newton_solver.hpp"
 #include "wetfront/solver/column_run.hpp"
 
 namespace wetfront::solver {
@@ -28,9 +34,9 @@ bool all_finite(std::span<const double> v) {
 
 int residual_fn(double t, N_Vector y, N_Vector yp, N_Vector r, void* user) {
   auto* model = static_cast<ColumnModel*>(user);
-  if (!all_finite(view(y))) return 1;  // recoverable: IDA cuts the step
-  model->residual(t, view(y), view(yp), view(r));
-  return all_finite(view(r)) ? 0 : 1;
+  // A state outside the soil's physical range, or a non-finite flux, is a recoverable error:
+  // IDA shortens the step.
+  return model->residual(t, view(y), view(yp), view(r)) && all_finite(view(r)) ? 0 : 1;
 }
 
 int jacobian_fn(double t, double cj, N_Vector y, N_Vector, N_Vector, SUNMatrix J, void* user, N_Vector, N_Vector,
@@ -39,17 +45,29 @@ int jacobian_fn(double t, double cj, N_Vector y, N_Vector, N_Vector, SUNMatrix J
   return 0;
 }
 
-int root_fn(double t, N_Vector y, N_Vector, double* g, void* user) {
-  auto* model = static_cast<ColumnModel*>(user);
-  model->roots(t, view(y), {g, static_cast<std::size_t>(model->root_count())});
+int error_weights_fn(N_Vector y, N_Vector weights, void* user) {
+  static_cast<ColumnModel*>(user)->error_weights(view(y), view(weights));
+  return all_finite(view(weights)) ? 0 : -1;
+}
+
+// IDA's own messages would go to stderr; a failed run is reported through RunFailure instead.
+void quiet_errors(int, const char*, const char*, char*, void*) {}
+
+int event_fn(double t, N_Vector y, N_Vector, double* g, void* user) {
+  static_cast<const ColumnModel*>(user)->events(t, view(y), {g, static_cast<std::size_t>(detail::event_count)});
   return 0;
 }
+
+// Two times closer than this are one time (output times and breakpoints built by different
+// arithmetic differ by round-off).
+double same_time_tolerance(double t) { return 1e-9 * std::max(1.0, std::abs(t)); }
 
 void validate(const ColumnProblem& p) {
   if (!(p.end_day > p.start_day)) throw std::invalid_argument("the run must end after it starts");
   for (std::size_t i = 0; i < p.output_days.size(); ++i) {
     const double t = p.output_days[i];
-    if (t < p.start_day || t > p.end_day)
+    const double tol = same_time_tolerance(t);
+    if (t < p.start_day - tol || t > p.end_day + tol)
       throw std::invalid_argument(fmt::format("output time {} d lies outside the run ({} to {} d)", t, p.start_day,
                                               p.end_day));
     if (i > 0 && !(t > p.output_days[i - 1])) throw std::invalid_argument("output times must increase");
@@ -64,42 +82,41 @@ class Integrator {
     const std::size_t n = model.unknowns();
     y_ = detail::make_vector(n, ctx_.get());
     yp_ = detail::make_vector(n, ctx_.get());
+    detail::use_compiled_vector_ops(y_.get());  // IDA's own vectors are clones of these
+    detail::use_compiled_vector_ops(yp_.get());
+    output_y_ = detail::make_vector(n, ctx_.get());
     model.initial_state(view(y_.get()));
+    model.rebase(problem.start_day, view(y_.get()));
     model.begin_period(problem.start_day);
-    model.choose_modes(view(y_.get()));
+    model.choose_modes(problem.start_day, view(y_.get()));
     model.consistent_rates(problem.start_day, view(y_.get()), view(yp_.get()));
-    initial_storage_ = soil_storage();
+    initial_storage_ = model.soil_storage(view(y_.get()));
 
     mem_.reset(detail::check_ptr(IDACreate(ctx_.get()), "IDACreate"));
     void* mem = mem_.get();
     detail::check_flag(IDAInit(mem, residual_fn, problem.start_day, y_.get(), yp_.get()), "IDAInit");
     detail::check_flag(IDASetUserData(mem, &model), "IDASetUserData");
+    detail::check_flag(IDASetErrHandlerFn(mem, quiet_errors, nullptr), "IDASetErrHandlerFn");
     const auto& s = problem.settings;
-    // The unknowns are water amounts moved since the last restart; what the error test should
-    // guard is each cell's stored water, so a face or sink amount may err by the relative
-    // tolerance of the stored water next to it (plus the absolute tolerance).
-    auto weights = detail::make_vector(n, ctx_.get());
-    N_VConst(s.absolute_tolerance_storage_cm, weights.get());
-    auto w = view(weights.get());
-    const auto y0 = view(y_.get());
-    for (std::size_t i = 0; i < model.cells(); ++i) {
-      const double local = s.relative_tolerance * model.cell_storage(i, y0);
-      w[ColumnModel::uptake_index(i)] += local;
-      w[ColumnModel::face_index(i)] += local;
-      if (i + 1 == model.cells()) w[ColumnModel::face_index(i + 1)] += local;
-    }
-    detail::check_flag(IDASVtolerances(mem, s.relative_tolerance, weights.get()), "IDASVtolerances");
+    detail::check_flag(IDAWFtolerances(mem, error_weights_fn), "IDAWFtolerances");
     detail::check_flag(IDASetMaxStep(mem, s.max_step_days), "IDASetMaxStep");
-    detail::check_flag(IDASetMaxNumSteps(mem, s.max_steps_per_output), "IDASetMaxNumSteps");
-    matrix_.reset(detail::check_ptr(SUNBandMatrix(static_cast<sunindextype>(n), ColumnModel::upper_bandwidth, ColumnModel::lower_bandwidth, ctx_.get()), "SUNBandMatrix"));
-    solver_.reset(detail::check_ptr(SUNLinSol_Band(y_.get(), matrix_.get(), ctx_.get()), "SUNLinSol_Band"));
+    const auto bandwidth = static_cast<sunindextype>(model.bandwidth());
+    matrix_.reset(detail::check_ptr(
+        SUNBandMatrixStorage(static_cast<sunindextype>(n), bandwidth, bandwidth, 2 * bandwidth, ctx_.get()),
+        "SUNBandMatrixStorage"));
+    detail::use_compiled_zero(matrix_.get());
+    solver_.reset(detail::check_ptr(detail::make_band_lu_solver(y_.get(), ctx_.get()), "band LU solver"));
     detail::check_flag(IDASetLinearSolver(mem, solver_.get(), matrix_.get()), "IDASetLinearSolver");
+    newton_.reset(detail::check_ptr(detail::make_refreshing_newton(y_.get(), ctx_.get()), "Newton solver"));
+    detail::check_flag(IDASetNonlinearSolver(mem, newton_.get()), "IDASetNonlinearSolver");
     detail::check_flag(IDASetJacFn(mem, jacobian_fn), "IDASetJacFn");
     detail::check_flag(IDASetNonlinConvCoef(mem, s.nonlinear_convergence_factor), "IDASetNonlinConvCoef");
     detail::check_flag(IDASetMaxNonlinIters(mem, s.max_nonlinear_iterations), "IDASetMaxNonlinIters");
-    detail::check_flag(IDARootInit(mem, model.root_count(), root_fn), "IDARootInit");
-    auto directions = model.root_directions();
-    detail::check_flag(IDASetRootDirection(mem, directions.data()), "IDASetRootDirection");
+    detail::check_flag(IDARootInit(mem, detail::event_count, event_fn), "IDARootInit");
+    const int directions[detail::event_count] = {-1, -1, -1};
+    detail::check_flag(IDASetRootDirection(mem, const_cast<int*>(directions)), "IDASetRootDirection");
+    step_budget_ = static_cast<long>(
+        std::max(1.0, problem.end_day - problem.start_day) * static_cast<double>(s.max_steps_per_day));
   }
 
   ColumnRun run() {
@@ -108,40 +125,45 @@ class Integrator {
     result.cell_depths_cm.assign(grid.cell_depths_cm().begin(), grid.cell_depths_cm().end());
     result.face_depths_cm.assign(grid.face_depths_cm().begin(), grid.face_depths_cm().end());
 
+    // Breakpoints inside the run, with any that coincide to round-off (with each other or with
+    // the end) taken as one.
     std::vector<double> stops;
     for (double b : model_.breakpoints())
-      if (b > problem_.start_day && b < problem_.end_day) stops.push_back(b);
+      if (b > problem_.start_day + same_time_tolerance(b) && b < problem_.end_day - same_time_tolerance(b) &&
+          (stops.empty() || b - stops.back() > same_time_tolerance(b)))
+        stops.push_back(b);
     stops.push_back(problem_.end_day);
 
-    const auto& outputs = problem_.output_days;
-    std::size_t next_output = 0;
     double t = problem_.start_day;
-    if (next_output < outputs.size() && outputs[next_output] <= t) record(t, result), ++next_output;
-
+    record_outputs_until(t, result);
     for (double stop : stops) {
       detail::check_flag(IDASetStopTime(mem_.get(), stop), "IDASetStopTime");
       while (t < stop) {
-        const bool to_output = next_output < outputs.size() && outputs[next_output] <= stop;
-        const double tout = to_output ? outputs[next_output] : stop;
         double reached = t;
-        const int flag = IDASolve(mem_.get(), tout, &reached, y_.get(), yp_.get(), IDA_NORMAL);
+        const int flag = IDASolve(mem_.get(), stop, &reached, y_.get(), yp_.get(), IDA_ONE_STEP);
         if (flag < 0) {
           fail(flag, result);
           return result;
         }
+        ++steps_;
+        if (flag == IDA_TSTOP_RETURN) reached = stop;
+        record_outputs_until(reached, result);
         t = reached;
+        if (flag == IDA_TSTOP_RETURN) break;
         if (flag == IDA_ROOT_RETURN) {
           switch_modes(t);
-          restart(t);
           detail::check_flag(IDASetStopTime(mem_.get(), stop), "IDASetStopTime");
         }
-        if (to_output && t >= tout) record(t, result), ++next_output;
+        if (steps_ > step_budget_) {
+          fail(detail::step_budget_exceeded, result);
+          return result;
+        }
       }
-      // A new forcing period starts at `stop`.
-      if (stop < problem_.end_day) {
+      if (stop < problem_.end_day) {  // a new forcing period starts at `stop`
         const auto before = model_.surface_mode();
+        model_.rebase(stop, view(y_.get()));
         model_.begin_period(stop);
-        model_.choose_modes(view(y_.get()));
+        model_.choose_modes(stop, view(y_.get()));
         if (model_.surface_mode() != before) ++stats_.surface_switches;
         restart(stop);
       }
@@ -153,23 +175,18 @@ class Integrator {
   }
 
  private:
-  double soil_storage() const {
-    const auto y = view(y_.get());
-    double total = 0;
-    for (std::size_t i = 0; i < model_.cells(); ++i) total += model_.cell_storage(i, y);
-    return total;
-  }
-
   // A root moves the boundary to its next mode. A switch undone at the same instant (the
-  // root function only touched zero: a tangency that the step's interpolant showed as a
+  // event function only touched zero: a tangency that the step's interpolant showed as a
   // crossing) leaves the mode as it was and is not counted.
   void switch_modes(double t) {
-    std::vector<int> found(static_cast<std::size_t>(model_.root_count()));
-    detail::check_flag(IDAGetRootInfo(mem_.get(), found.data()), "IDAGetRootInfo");
-    for (int k = 0; k < model_.root_count(); ++k) {
-      if (found[static_cast<std::size_t>(k)] == 0) continue;
+    int found[detail::event_count] = {};
+    detail::check_flag(IDAGetRootInfo(mem_.get(), found), "IDAGetRootInfo");
+    for (int k = 0; k < detail::event_count; ++k) {
+      if (found[k] == 0) continue;
+      const auto slot = static_cast<detail::EventSlot>(k);
       const auto before = model_.surface_mode();
-      if (model_.switch_mode(k)) {
+      model_.rebase(t, view(y_.get()));  // the surface accounts close under the old mode
+      if (model_.switch_mode(slot, t, view(y_.get()))) {
         const bool undone = std::abs(t - last_switch_time_) <= 1e-9 && model_.surface_mode() == mode_before_last_switch_;
         stats_.surface_switches += undone ? -1 : 1;
         mode_before_last_switch_ = before;
@@ -177,17 +194,22 @@ class Integrator {
       } else {
         ++stats_.bottom_switches;
       }
-      break;  // one switch at a time; a second one is found again at once if still due
+      restart(t);
+      return;  // one switch at a time; a second one is found again at once if still due
     }
   }
 
-  // Starts a new integration from the current state: the forcing or the boundary mode changed,
-  // so the rates are discontinuous and the BDF history is dropped.
+  // Starts a new integration from the current (rebased) state: the forcing or the boundary
+  // mode changed, so the rates are discontinuous and the BDF history is dropped.
   void restart(double t) {
     collect_statistics();
-    model_.rebase(view(y_.get()));
     model_.consistent_rates(t, view(y_.get()), view(yp_.get()));
+    // The new interval starts with the step the last one ended with (IDA's own first step is
+    // a cautious estimate, and a day's change of forcing rarely needs it).
+    double last_step = 0;
+    IDAGetLastStep(mem_.get(), &last_step);
     detail::check_flag(IDAReInit(mem_.get(), t, y_.get(), yp_.get()), "IDAReInit");
+    if (last_step > 0) detail::check_flag(IDASetInitStep(mem_.get(), last_step), "IDASetInitStep");
     counted_ = {};  // IDAReInit restarts the integrator's counters
   }
 
@@ -208,41 +230,42 @@ class Integrator {
     counted_ = {steps, res, jac, nli, ncf, etf, 0, 0};
   }
 
-  void record(double t, ColumnRun& result) {
-    const auto y = view(y_.get());
-    const std::size_t n = model_.cells();
-    ProfileSnapshot snap;
-    snap.time_days = t;
-    snap.head_cm.resize(n);
-    snap.water_content.resize(n);
-    snap.conductivity_cm_per_d.resize(n);
-    snap.sink_rate_per_day.resize(n);
-    snap.face_flux_cm_per_d.resize(n + 1);
-    model_.cell_properties(y, snap.head_cm, snap.water_content, snap.conductivity_cm_per_d);
-    model_.sink_rates(t, y, snap.sink_rate_per_day);
-    model_.face_fluxes(t, y, snap.face_flux_cm_per_d);
-    snap.ponded_depth_cm = y[ColumnModel::pond_index];
+  // Records every output time up to `reached`: the state itself at (or within round-off of)
+  // `reached`, IDA's interpolant before it.
+  void record_outputs_until(double reached, ColumnRun& result) {
+    const auto& outputs = problem_.output_days;
+    while (next_output_ < outputs.size() && outputs[next_output_] <= reached + same_time_tolerance(reached)) {
+      const double t = outputs[next_output_++];
+      if (std::abs(t - reached) <= same_time_tolerance(reached)) {
+        record(reached, view(y_.get()), result);
+      } else {
+        detail::check_flag(IDAGetDky(mem_.get(), t, 0, output_y_.get()), "IDAGetDky");
+        record(t, view(output_y_.get()), result);
+      }
+    }
+  }
 
+  void record(double t, std::span<const double> y, ColumnRun& result) {
+    result.profiles.push_back(model_.snapshot(t, y));
     const auto& totals = model_.totals();
-    auto face_total = [&](std::size_t face) { return totals.face[face] + y[ColumnModel::face_index(face)]; };
+    const auto surface = model_.surface_accounts(t, y);
+    auto face_total = [&](std::size_t face) { return totals.face[face] + y[model_.face_index(face)]; };
     CumulativeBalance b;
     b.time_days = t;
-    b.water_input_cm = totals.water_input + y[ColumnModel::water_input_index];
-    b.potential_evaporation_cm = totals.potential_evaporation + y[ColumnModel::potential_index];
-    b.actual_evaporation_cm = totals.actual_evaporation + y[ColumnModel::evaporation_index];
-    b.runoff_cm = totals.runoff + y[ColumnModel::runoff_index];
+    b.water_input_cm = totals.water_input + surface.water_input;
+    b.potential_evaporation_cm = totals.potential_evaporation + surface.potential_evaporation;
+    b.actual_evaporation_cm = totals.actual_evaporation + surface.actual_evaporation;
+    b.runoff_cm = totals.runoff + surface.runoff;
     b.infiltration_cm = face_total(0);
-    b.transpiration_cm = totals.transpiration;
-    for (std::size_t i = 0; i < n; ++i) b.transpiration_cm += y[ColumnModel::uptake_index(i)];
-    b.bottom_flux_cm = face_total(n);
+    b.transpiration_cm = model_.transpiration(y);
+    b.bottom_flux_cm = face_total(model_.cells());
     for (std::size_t face : plane_faces_) b.plane_flux_cm.push_back(face_total(face));
-    b.ponded_depth_cm = y[ColumnModel::pond_index];
-    b.soil_storage_cm = soil_storage();
+    b.ponded_depth_cm = surface.ponded_depth;
+    b.soil_storage_cm = model_.soil_storage(y);
     const double change = b.soil_storage_cm - initial_storage_ + b.ponded_depth_cm;  // no pond at the start
     const double net_in =
         b.water_input_cm - b.actual_evaporation_cm - b.runoff_cm - b.transpiration_cm - b.bottom_flux_cm;
     b.balance_error_cm = change - net_in;
-    result.profiles.push_back(std::move(snap));
     result.balances.push_back(std::move(b));
   }
 
@@ -250,46 +273,38 @@ class Integrator {
     collect_statistics();
     result.statistics = stats_;
     result.complete = false;
-    RunFailure f;
-    double t = 0;
+    double t = 0, step = 0;
     IDAGetCurrentTime(mem_.get(), &t);
-    f.time_days = t;
+    IDAGetLastStep(mem_.get(), &step);
+    // The cell with the largest weighted local error, where IDA can tell; else the surface.
+    std::size_t worst = 0;
     auto weights = detail::make_vector(model_.unknowns(), ctx_.get());
     auto errors = detail::make_vector(model_.unknowns(), ctx_.get());
     if (IDAGetErrWeights(mem_.get(), weights.get()) == IDA_SUCCESS &&
         IDAGetEstLocalErrors(mem_.get(), errors.get()) == IDA_SUCCESS) {
       const auto w = view(weights.get());
       const auto e = view(errors.get());
-      std::size_t worst = 0;
       double largest = -1;
-      // The unknown with the largest weighted error: a face or a cell's uptake; name the cell.
-      for (std::size_t k = ColumnModel::face_index(0); k < w.size(); ++k)
-        if (std::abs(w[k] * e[k]) > largest)
-          largest = std::abs(w[k] * e[k]), worst = std::min((k - ColumnModel::face_index(0)) / 2, model_.cells() - 1);
-      f.depth_cm = model_.grid().cell_depths_cm()[worst];
+      for (std::size_t j = 0; j <= model_.cells(); ++j) {
+        const std::size_t k = model_.face_index(j);
+        if (std::abs(w[k] * e[k]) > largest) largest = std::abs(w[k] * e[k]), worst = std::min(j, model_.cells() - 1);
+      }
     }
-    char* name = IDAGetReturnFlagName(flag);
-    const auto y = view(y_.get());
-    const std::size_t cell = static_cast<std::size_t>(
-        std::lower_bound(result.cell_depths_cm.begin(), result.cell_depths_cm.end(), f.depth_cm) -
-        result.cell_depths_cm.begin());
-    f.reason = fmt::format("{} at {:.6g} d: the integrator could not continue (last head there {:.6g} cm)",
-                           name ? name : "IDA failure", t,
-                           model_.head_for_storage(std::min(cell, model_.cells() - 1),
-                                                   model_.cell_storage(std::min(cell, model_.cells() - 1), y)));
-    std::free(name);
-    result.failure = f;
+    result.failure = detail::describe_failure(flag, t, step, step_budget_, worst, model_, view(y_.get()));
   }
 
   const ColumnProblem& problem_;
   ColumnModel& model_;
   detail::ContextHandle ctx_;
-  detail::VectorHandle y_, yp_;
+  detail::VectorHandle y_, yp_, output_y_;
   std::vector<std::size_t> plane_faces_;
   detail::MatrixHandle matrix_;
   detail::SolverHandle solver_;
+  detail::NonlinearSolverHandle newton_;  // destroyed after mem_
   detail::IdaHandle mem_;
   double initial_storage_ = 0;
+  std::size_t next_output_ = 0;
+  long steps_ = 0, step_budget_ = 0;
   double last_switch_time_ = -1.0;
   detail::SurfaceMode mode_before_last_switch_ = detail::SurfaceMode::flux;
   RunStatistics stats_, counted_;

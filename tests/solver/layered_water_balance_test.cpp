@@ -40,9 +40,8 @@ solver::ColumnProblem rain_and_dry_spells(solver::FaceConductivity face, soils::
   problem.end_day = 60.0;
   for (int day = 0; day <= 60; ++day) problem.output_days.push_back(day);
   // A day of this forcing needs a few hundred steps (a few thousand while water perches on the
-  // clay); a run that needs 100000 has stalled, and
-  // should say so quickly rather than after the default 200000.
-  problem.settings.max_steps_per_output = 100000;
+  // clay); a run that needs 20000 a day has stalled and should say so.
+  problem.settings.max_steps_per_day = 20000;
   return problem;
 }
 

@@ -117,7 +117,8 @@ class RootUptake final : public CellSink {
   // forcing period in progress).
   // The start times of the root depth and potential transpiration series.
   std::vector<double> breakpoints_days() const override;
-
+  // The deepest root depth of the season (held at the column bottom).
+  double deepest_depth_cm() const override;
 
  private:
   RootUptakeSettings settings_;

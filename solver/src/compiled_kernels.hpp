@@ -1,0 +1,32 @@
+// Vector arithmetic and the banded LU solve that IDA spends its steps in, compiled with this
+// project's optimisation.
+//
+// Debian 12's libsundials 6.4.1 is built without optimisation: the loops of its serial vector
+// and band solver keep every index on the stack, so at 200 cells IDA spent about three quarters
+// of a step in them (callgrind: ~20 instructions per element of a linear sum). Both are ordinary
+// SUNDIALS extension points: the serial vector keeps its type and storage and only its
+// arithmetic operations are replaced by the same loops compiled here; the linear solver is a
+// SUNDIALS "custom" direct solver working on the library's own band matrix. Results agree with
+// the library's to round-off (tests/solver/compiled_kernels_test.cpp).
+#pragma once
+
+#include <sundials/sundials_context.h>
+#include <sundials/sundials_linearsolver.h>
+#include <sundials/sundials_matrix.h>
+#include <sundials/sundials_nvector.h>
+
+namespace wetfront::solver::detail {
+
+// Replaces the arithmetic operations of a serial vector (clones inherit them).
+void use_compiled_vector_ops(N_Vector serial_vector);
+
+// Replaces the zeroing of a band matrix (IDA zeroes the Jacobian before each evaluation).
+void use_compiled_zero(SUNMatrix band_matrix);
+
+// A direct solver for SUNBandMatrix systems: LU with partial pivoting (the band algorithm of
+// Golub & Van Loan 2013, Matrix Computations, 4th ed., Alg. 4.3.5 with row interchanges), the
+// matrix factored in place in setup and the factors used in solve. The matrix must be created
+// with the storage upper bandwidth mu + ml that pivoting can fill.
+SUNLinearSolver make_band_lu_solver(N_Vector like, SUNContext context);
+
+}  // namespace wetfront::solver::detail
