@@ -4,12 +4,12 @@
 // file and its records are read once.
 #include <benchmark/benchmark.h>
 
-#include "season_setup.hpp"
-#include "site_file.hpp"
+#include "wetfront/site/season_setup.hpp"
+#include "wetfront/site/site_file.hpp"
 
 static void demo_season(benchmark::State& state) {
-  const auto season = wetfront::cli::prepare_season(
-      wetfront::cli::load_site_file(WETFRONT_SOURCE_DIR "/examples/demo/site.toml"));
+  const auto season = wetfront::site::prepare_season(
+      wetfront::site::load_site_file(WETFRONT_SOURCE_DIR "/examples/demo/site.toml"));
   wetfront::solver::RunStatistics stats;
   for (auto _ : state) {
     const auto run = wetfront::solver::simulate(season.problem);

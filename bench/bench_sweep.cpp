@@ -5,23 +5,23 @@
 // is the speed-up from one core to two. The field records are read once, outside the timing.
 #include <benchmark/benchmark.h>
 
-#include "adjustable_parameters.hpp"
-#include "parameter_study.hpp"
-#include "site_file.hpp"
+#include "wetfront/site/adjustable_parameters.hpp"
+#include "wetfront/site/parameter_study.hpp"
+#include "wetfront/site/site_file.hpp"
 
 namespace {
 
 using namespace wetfront;
 
 void sweep(benchmark::State& state) {
-  cli::SiteSetup site = cli::load_site_file(WETFRONT_SOURCE_DIR "/examples/demo/site.toml");
-  cli::ParameterStudy study = cli::load_parameter_study(site);  // the demo's own study
-  const cli::SeasonModel model(std::move(site), std::move(study));
+  site::SiteSetup demo = site::load_site_file(WETFRONT_SOURCE_DIR "/examples/demo/site.toml");
+  site::ParameterStudy study = site::load_parameter_study(demo);  // the demo's own study
+  const site::SeasonModel model(std::move(demo), std::move(study));
   const std::size_t runs = 8;
-  const cli::SweepSettings settings{.full_grid = false, .sample_size = runs, .seed = 1,
+  const site::SweepSettings settings{.full_grid = false, .sample_size = runs, .seed = 1,
                                     .threads = static_cast<unsigned>(state.range(0))};
   for (auto _ : state) {
-    const auto result = cli::run_sweep(model, settings);
+    const auto result = site::run_sweep(model, settings);
     for (const auto& run : result.runs)
       if (!run.complete) state.SkipWithError("a run did not complete");
     benchmark::DoNotOptimize(result.ranking.front());

@@ -6,6 +6,8 @@
 
 namespace wetfront::cli {
 
+using namespace wetfront::site;  // the application library these commands drive
+
 void emit_report(const std::vector<ReportTable>& tables, const std::vector<std::string>& warnings,
                  const std::string& csv_path) {
   for (std::size_t i = 0; i < tables.size(); ++i) {

@@ -7,9 +7,10 @@
 #include "soil_commands.hpp"
 
 int main(int argc, char** argv) {
-  CLI::App app{"wetfront: water movement in the unsaturated zone of a vertical soil column over a season.\n"
-               "Depths in cm positive downward; fluxes positive downward.",
-               "wetfront"};
+  CLI::App app{
+      "wetfront: water movement in the unsaturated zone of a vertical soil column over a season.\n"
+      "Depths in cm positive downward; fluxes positive downward.",
+      "wetfront"};
   app.set_version_flag("--version", std::string("wetfront ") + WETFRONT_VERSION);
   app.require_subcommand(1);
   wetfront::cli::add_soil_commands(app);

@@ -7,13 +7,15 @@
 
 #include <fmt/format.h>
 
-#include "input_error.hpp"
+#include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
-#include "parameter_study.hpp"
-#include "study_output.hpp"
-#include "wetfront/observations/parallel_batch.hpp"
+#include "wetfront/site/parameter_study.hpp"
+#include "wetfront/site/study_output.hpp"
+#include "wetfront/studies/parallel_batch.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 namespace {
 
 std::filesystem::path sibling(const std::filesystem::path& site_file, const std::string& suffix) {
@@ -40,10 +42,11 @@ class ProgressLine {
     if (done < planned && now - last_ < std::chrono::milliseconds(500)) return;
     last_ = now;
     const double seconds = std::chrono::duration<double>(now - started_).count();
-    const double left = done > 0 ? seconds / static_cast<double>(done) * static_cast<double>(planned - std::min(done, planned)) : 0.0;
+    const double left =
+        done > 0 ? seconds / static_cast<double>(done) * static_cast<double>(planned - std::min(done, planned)) : 0.0;
     try {
-      fmt::print(stderr, "\rwetfront: {} of {}{} runs, {:.0f} s, {} {:.0f} s left   ", done, at_most ? "at most " : "", planned,
-                 seconds, at_most ? "at most about" : "about", left);
+      fmt::print(stderr, "\rwetfront: {} of {}{} runs, {:.0f} s, {} {:.0f} s left   ", done, at_most ? "at most " : "",
+                 planned, seconds, at_most ? "at most about" : "about", left);
       std::fflush(stderr);
       printed_ = true;
     } catch (const std::exception&) {
@@ -71,7 +74,8 @@ struct CommonOptions {
 };
 
 void add_common(CLI::App* cmd, CommonOptions& o, const std::string& default_out) {
-  cmd->add_option("SITE", o.site, "site file (TOML) with [[adjustable]] parameters; see docs/parameter-studies.md")->required();
+  cmd->add_option("SITE", o.site, "site file (TOML) with [[adjustable]] parameters; see docs/parameter-studies.md")
+      ->required();
   cmd->add_option("--out", o.out, "HDF5 file to write (default: the site file's name with " + default_out + ")");
   cmd->add_option("--from", o.from, "start the runs on this date instead (YYYY-MM-DD)");
   cmd->add_option("--to", o.to, "end the runs on this date instead (YYYY-MM-DD)");
@@ -84,7 +88,9 @@ SeasonModel load_model(const CommonOptions& o) {
   SiteSetup site = load_site_file(o.site, {o.from, o.to});
   ParameterStudy study = load_parameter_study(site);
   if (study.parameters.empty())
-    throw InputError(o.site, 0, "", "no [[adjustable]] entries: mark the parameters to vary (docs/site-file.md, \"Parameter studies\")");
+    throw base::InputError(
+        o.site, 0, "",
+        "no [[adjustable]] entries: mark the parameters to vary (docs/site-file.md, \"Parameter studies\")");
   return SeasonModel(std::move(site), std::move(study));
 }
 
@@ -96,15 +102,19 @@ void add_sweep_command(CLI::App& app) {
     std::size_t kept = 3;
   };
   auto o = std::make_shared<Options>();
-  CLI::App* cmd = app.add_subcommand("sweep", "Run a site under many parameter sets and rank them against the sensor readings");
+  CLI::App* cmd =
+      app.add_subcommand("sweep", "Run a site under many parameter sets and rank them against the sensor readings");
   add_common(cmd, *o, "-sweep.h5");
-  cmd->add_flag("--grid", o->grid, "every combination of each parameter's grid_points values (default: a Latin hypercube sample)");
-  cmd->add_option("--sample", o->sample, "number of sets in the Latin hypercube sample (default 50)")->check(CLI::Range(1, 100000));
+  cmd->add_flag("--grid", o->grid,
+                "every combination of each parameter's grid_points values (default: a Latin hypercube sample)");
+  cmd->add_option("--sample", o->sample, "number of sets in the Latin hypercube sample (default 50)")
+      ->check(CLI::Range(1, 100000));
   cmd->add_option("--show", o->shown, "rows of the ranked table to print (default 10; the CSV has all)");
   cmd->add_option("--keep", o->kept, "profiles of this many best runs go into the HDF5 file (default 3)");
-  cmd->footer("Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
-              "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
-              "Example:\n  wetfront sweep examples/demo/site.toml --grid");
+  cmd->footer(
+      "Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
+      "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
+      "Example:\n  wetfront sweep examples/demo/site.toml --grid");
   cmd->callback([o] {
     const SeasonModel model = load_model(*o);
     const std::filesystem::path out = o->out.empty() ? sibling(o->site, "-sweep.h5") : std::filesystem::path(o->out);
@@ -112,13 +122,15 @@ void add_sweep_command(CLI::App& app) {
     SweepSettings settings{.full_grid = o->grid, .sample_size = o->sample, .seed = o->seed, .threads = o->threads};
     SweepResult sweep;
     try {
-      sweep = run_sweep(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });
-    } catch (const std::invalid_argument& error) {
-      throw InputError(o->site, 0, "", error.what());
+      sweep =
+          run_sweep(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });
+    } catch (const base::InputError& error) {
+      throw base::InputError(o->site, 0, "", error.what());
     }
     const double seconds = progress.seconds();
     progress.finish();
-    const unsigned threads = std::min<unsigned>(observations::thread_count(o->threads), static_cast<unsigned>(sweep.runs.size()));
+    const unsigned threads =
+        std::min<unsigned>(studies::thread_count(o->threads), static_cast<unsigned>(sweep.runs.size()));
     const std::filesystem::path csv = sibling(out, ".csv");
     write_files_together({{csv, sweep_table(model, sweep)}},
                          [&] { write_sweep_file(out, model, sweep, o->kept, o->threads, WETFRONT_VERSION); });
@@ -135,16 +147,21 @@ void add_calibrate_command(CLI::App& app) {
     std::size_t band_runs = 40;
   };
   auto o = std::make_shared<Options>();
-  CLI::App* cmd = app.add_subcommand("calibrate", "Fit the adjustable parameters to the sensor readings and give recharge with an uncertainty band");
+  CLI::App* cmd = app.add_subcommand(
+      "calibrate", "Fit the adjustable parameters to the sensor readings and give recharge with an uncertainty band");
   add_common(cmd, *o, "-calibration.h5");
-  cmd->add_option("--max-runs", o->max_runs, "limit on model runs for the fit (default 150)")->check(CLI::Range(4, 100000));
-  cmd->add_option("--band-runs", o->band_runs, "parameter sets drawn for the sampled recharge band (default 40; 0: none)");
-  cmd->footer("Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
-              "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
-              "Example:\n  wetfront calibrate examples/demo/site.toml");
+  cmd->add_option("--max-runs", o->max_runs, "limit on model runs for the fit (default 150)")
+      ->check(CLI::Range(4, 100000));
+  cmd->add_option("--band-runs", o->band_runs,
+                  "parameter sets drawn for the sampled recharge band (default 40; 0: none)");
+  cmd->footer(
+      "Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
+      "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
+      "Example:\n  wetfront calibrate examples/demo/site.toml");
   cmd->callback([o] {
     const SeasonModel model = load_model(*o);
-    const std::filesystem::path out = o->out.empty() ? sibling(o->site, "-calibration.h5") : std::filesystem::path(o->out);
+    const std::filesystem::path out =
+        o->out.empty() ? sibling(o->site, "-calibration.h5") : std::filesystem::path(o->out);
     ProgressLine progress(o->quiet);
     CalibrationSettings settings;
     settings.options.max_runs = o->max_runs;
@@ -153,11 +170,12 @@ void add_calibrate_command(CLI::App& app) {
     settings.seed = o->seed;
     CalibrationStudy study;
     try {
-      study = run_calibration(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, true); });
-    } catch (const std::invalid_argument& error) {
-      throw InputError(o->site, 0, "", error.what());
+      study = run_calibration(model, settings,
+                              [&](std::size_t done, std::size_t planned) { progress(done, planned, true); });
+    } catch (const base::InputError& error) {
+      throw base::InputError(o->site, 0, "", error.what());
     } catch (const std::runtime_error& error) {
-      throw InputError(o->site, 0, "", fmt::format("the calibration stopped: {}", error.what()));
+      throw base::InputError(o->site, 0, "", fmt::format("the calibration stopped: {}", error.what()));
     }
     const double seconds = progress.seconds();
     progress.finish();
@@ -165,7 +183,7 @@ void add_calibrate_command(CLI::App& app) {
     write_files_together({{csv, calibration_recharge_table(model, study)}},
                          [&] { write_calibration_file(out, model, study, WETFRONT_VERSION); });
     if (!o->quiet) {
-      fmt::print("{}", calibration_report(model, study, seconds, observations::thread_count(o->threads)));
+      fmt::print("{}", calibration_report(model, study, seconds, studies::thread_count(o->threads)));
       fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
     }
   });

@@ -5,10 +5,12 @@
 
 #include <fmt/format.h>
 
-#include "wetfront/forcing/time_axis.hpp"
-#include "wetfront/observations/parameter_uncertainty.hpp"
+#include "wetfront/base/time_point.hpp"
+#include "wetfront/studies/parameter_uncertainty.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 namespace {
 
 namespace obs = observations;
@@ -20,12 +22,17 @@ std::string mm(double cm) {
 }
 
 std::string date_of(const SeasonModel& model, double day) {
-  return forcing::format_timestamp(forcing::time_after(model.site().run_start, std::round(day * 86400.0) / 86400.0)).substr(0, 10);
+  return base::format_timestamp(base::time_after(model.site().run_start, std::round(day * 86400.0) / 86400.0))
+      .substr(0, 10);
 }
 
-std::string header_of(const obs::AdjustableParameter& p) { return p.unit.empty() ? p.name : fmt::format("{} [{}]", p.name, p.unit); }
+std::string header_of(const studies::AdjustableParameter& p) {
+  return p.unit.empty() ? p.name : fmt::format("{} [{}]", p.name, p.unit);
+}
 
-std::string scale_text(const obs::AdjustableParameter& p) { return p.scale == obs::ParameterScale::log ? "log" : "linear"; }
+std::string scale_text(const studies::AdjustableParameter& p) {
+  return p.scale == studies::ParameterScale::log ? "log" : "linear";
+}
 
 std::string metric(double value) { return std::isfinite(value) ? number(value, 4) : ""; }
 
@@ -53,7 +60,7 @@ constexpr const char* kCalibrationCautions =
 
 // Which parameters drive the season band, in two plain measures: how far one standard error of
 // each parameter moves season recharge (|s_k| se_k), and its first-order share of the variance.
-std::string drivers_text(const obs::CalibrationResult& fit, const obs::FirstOrderInterval& season) {
+std::string drivers_text(const studies::CalibrationResult& fit, const studies::FirstOrderInterval& season) {
   std::vector<std::size_t> order(fit.parameters.size());
   for (std::size_t k = 0; k < order.size(); ++k) order[k] = k;
   const auto moved = [&](std::size_t k) {
@@ -61,7 +68,8 @@ std::string drivers_text(const obs::CalibrationResult& fit, const obs::FirstOrde
     return std::abs(fit.output_sensitivity(0, e)) * fit.standard_errors[e];
   };
   std::sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) { return moved(a) > moved(b); });
-  std::string out = fmt::format("What drives the season band (first order, sd {} mm):\n", mm(season.standard_deviation));
+  std::string out =
+      fmt::format("What drives the season band (first order, sd {} mm):\n", mm(season.standard_deviation));
   bool beyond = false;
   for (const std::size_t k : order) {
     out += fmt::format("  {}: one standard error moves season recharge by {} mm; {:.0f}% of the variance\n",
@@ -82,8 +90,8 @@ std::string objective_text(const SeasonModel& model) {
       "  {} tensiometer readings, uncertainty {} cm of water (weight 1/{}^2 per cm^2)",
       model.compared_heads(), number(w.head_uncertainty_cm), number(w.head_uncertainty_cm));
   if (w.water_content_uncertainty) {
-    text += fmt::format(";\n  {} water-content readings (probes and cores), uncertainty {} cm3/cm3", model.compared_water_contents(),
-                        number(*w.water_content_uncertainty));
+    text += fmt::format(";\n  {} water-content readings (probes and cores), uncertainty {} cm3/cm3",
+                        model.compared_water_contents(), number(*w.water_content_uncertainty));
   } else {
     text += ";\n  water contents are not compared (give [fit] water_content_uncertainty to include probes and cores)";
   }
@@ -106,9 +114,11 @@ ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep) {
   for (const auto& p : model.study().parameters) table.headers.push_back(header_of(p.range));
   table.headers.insert(table.headers.end(), {"objective", "head RMSE [cm]", "head bias [cm]", "head NSE", "head KGE"});
   const bool contents = model.study().weights.water_content_uncertainty.has_value();
-  if (contents) table.headers.insert(table.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
+  if (contents)
+    table.headers.insert(table.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
   table.headers.push_back("season recharge [mm]");
-  for (const double end : model.interval_end_days()) table.headers.push_back(fmt::format("recharge to {} [mm]", date_of(model, end)));
+  for (const double end : model.interval_end_days())
+    table.headers.push_back(fmt::format("recharge to {} [mm]", date_of(model, end)));
   table.headers.push_back("failure");
   for (std::size_t rank = 0; rank < sweep.ranking.size(); ++rank) {
     const ScoredRun& run = sweep.runs[sweep.ranking[rank]];
@@ -117,7 +127,8 @@ ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep) {
     if (run.complete) {
       row.insert(row.end(), {number(run.objective, 5), metric(run.heads.root_mean_square_error), metric(run.heads.bias),
                              metric(run.heads.nash_sutcliffe), metric(run.heads.kling_gupta)});
-      if (contents) row.insert(row.end(), {metric(run.water_contents->root_mean_square_error), metric(run.water_contents->bias)});
+      if (contents)
+        row.insert(row.end(), {metric(run.water_contents->root_mean_square_error), metric(run.water_contents->bias)});
       row.push_back(mm(run.season_recharge_cm));
       for (const double v : run.visit_recharge_cm) row.push_back(mm(v));
       row.push_back("");
@@ -131,24 +142,29 @@ ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep) {
   return table;
 }
 
-std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std::size_t shown, double seconds, unsigned threads) {
+std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std::size_t shown, double seconds,
+                         unsigned threads) {
   const SiteSetup& site = model.site();
   std::string out = fmt::format("Parameter sweep: {}, {} to {}\n\n", site.name, site.run_start_text, site.run_end_text);
   out += parameters_text(model.study()) + "\n" + objective_text(model);
   std::vector<double> complete_recharge;
   std::size_t failed = 0;
   for (const auto& run : sweep.runs) {
-    if (run.complete) complete_recharge.push_back(run.season_recharge_cm);
-    else ++failed;
+    if (run.complete)
+      complete_recharge.push_back(run.season_recharge_cm);
+    else
+      ++failed;
   }
-  out += fmt::format("\nSets: {}, {} runs in {:.1f} s on {} thread(s) (about {:.2f} s of one thread per run)\n", sweep.method,
-                     sweep.runs.size(), seconds, threads, sweep.runs.empty() ? 0.0 : seconds * threads / static_cast<double>(sweep.runs.size()));
+  out += fmt::format("\nSets: {}, {} runs in {:.1f} s on {} thread(s) (about {:.2f} s of one thread per run)\n",
+                     sweep.method, sweep.runs.size(), seconds, threads,
+                     sweep.runs.empty() ? 0.0 : seconds * threads / static_cast<double>(sweep.runs.size()));
   ReportTable full = sweep_table(model, sweep);
   ReportTable top;
-  top.title = fmt::format("Best {} of {} sets (lowest objective first); recharge across {}", std::min(shown, full.rows.size()),
-                          full.rows.size(), plane_text(model));
+  top.title = fmt::format("Best {} of {} sets (lowest objective first); recharge across {}",
+                          std::min(shown, full.rows.size()), full.rows.size(), plane_text(model));
   // The printed table keeps the parameter, fit and season columns; the CSV has every interval.
-  const std::size_t season_column = std::find(full.headers.begin(), full.headers.end(), "season recharge [mm]") - full.headers.begin();
+  const std::size_t season_column =
+      std::find(full.headers.begin(), full.headers.end(), "season recharge [mm]") - full.headers.begin();
   top.headers.assign(full.headers.begin(), full.headers.begin() + static_cast<std::ptrdiff_t>(season_column + 1));
   for (std::size_t i = 0; i < std::min(shown, full.rows.size()); ++i)
     top.add_row({full.rows[i].begin(), full.rows[i].begin() + static_cast<std::ptrdiff_t>(season_column + 1)});
@@ -159,19 +175,31 @@ std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std
     for (std::size_t i = 0; i < tenth; ++i) best_tenth.push_back(sweep.runs[sweep.ranking[i]].season_recharge_cm);
     const auto [low_all, high_all] = std::minmax_element(complete_recharge.begin(), complete_recharge.end());
     const auto [low_best, high_best] = std::minmax_element(best_tenth.begin(), best_tenth.end());
-    out += fmt::format("\nSeason recharge: {} to {} mm over the best {} set(s) (the best tenth); {} to {} mm over all {} complete sets.\n",
-                       mm(*low_best), mm(*high_best), tenth, mm(*low_all), mm(*high_all), complete_recharge.size());
+    out += fmt::format(
+        "\nSeason recharge: {} to {} mm over the best {} set(s) (the best tenth); {} to {} mm over all {} complete "
+        "sets.\n",
+        mm(*low_best), mm(*high_best), tenth, mm(*low_all), mm(*high_all), complete_recharge.size());
   }
-  if (failed > 0) out += fmt::format("{} run(s) did not finish; they are ranked last with the reason in the CSV.\n", failed);
-  out += "A sweep shows which sets are consistent with the readings; it is not a probability distribution of recharge.\n";
+  if (failed > 0)
+    out += fmt::format("{} run(s) did not finish; they are ranked last with the reason in the CSV.\n", failed);
+  out +=
+      "A sweep shows which sets are consistent with the readings; it is not a probability distribution of recharge.\n";
   return out + kSweepCautions;
 }
 
 ReportTable calibration_recharge_table(const SeasonModel& model, const CalibrationStudy& study) {
   ReportTable table;
   table.title = fmt::format("Recharge across {}", plane_text(model));
-  table.headers = {"interval", "from", "to", "at start [mm]", "calibrated [mm]", "first-order 95% low [mm]",
-                   "first-order 95% high [mm]", "sampled 2.5% [mm]", "sampled median [mm]", "sampled 97.5% [mm]"};
+  table.headers = {"interval",
+                   "from",
+                   "to",
+                   "at start [mm]",
+                   "calibrated [mm]",
+                   "first-order 95% low [mm]",
+                   "first-order 95% high [mm]",
+                   "sampled 2.5% [mm]",
+                   "sampled median [mm]",
+                   "sampled 97.5% [mm]"};
   const auto& ends = model.interval_end_days();
   for (std::size_t i = 0; i <= ends.size(); ++i) {
     // Row 0 is the season; row i the interval ending at ends[i - 1].
@@ -200,16 +228,19 @@ ReportTable calibration_recharge_table(const SeasonModel& model, const Calibrati
   return table;
 }
 
-std::string calibration_report(const SeasonModel& model, const CalibrationStudy& study, double seconds, unsigned threads) {
+std::string calibration_report(const SeasonModel& model, const CalibrationStudy& study, double seconds,
+                               unsigned threads) {
   const SiteSetup& site = model.site();
-  const obs::CalibrationResult& fit = study.fit;
+  const studies::CalibrationResult& fit = study.fit;
   std::string out = fmt::format("Calibration: {}, {} to {}\n\n", site.name, site.run_start_text, site.run_end_text);
   out += parameters_text(model.study()) + "\n" + objective_text(model);
-  out += fmt::format("\nLevenberg-Marquardt on the search scale (log10 for log parameters): {} after {} iteration(s),\n"
-                     "{} model runs in {:.1f} s on {} thread(s).\n",
-                     fit.stop_reason, fit.iterations, fit.runs, seconds, threads);
+  out += fmt::format(
+      "\nLevenberg-Marquardt on the search scale (log10 for log parameters): {} after {} iteration(s),\n"
+      "{} model runs in {:.1f} s on {} thread(s).\n",
+      fit.stop_reason, fit.iterations, fit.runs, seconds, threads);
   ReportTable parameters;
-  parameters.title = "Parameters (standard errors on the search scale; the 95% range is best +- 1.96 standard errors, mapped back)";
+  parameters.title =
+      "Parameters (standard errors on the search scale; the 95% range is best +- 1.96 standard errors, mapped back)";
   parameters.headers = {"parameter", "unit", "scale", "start", "calibrated", "standard error", "95% low", "95% high"};
   for (std::size_t k = 0; k < fit.parameters.size(); ++k) {
     const auto& p = fit.parameters[k];
@@ -234,7 +265,8 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
     for (std::size_t a = 0; a < fit.parameters.size(); ++a) {
       std::vector<std::string> row{fit.parameters[a].name};
       for (std::size_t b = 0; b < fit.parameters.size(); ++b)
-        row.push_back(fmt::format("{:.3f}", fit.correlation(static_cast<Eigen::Index>(a), static_cast<Eigen::Index>(b))));
+        row.push_back(
+            fmt::format("{:.3f}", fit.correlation(static_cast<Eigen::Index>(a), static_cast<Eigen::Index>(b))));
       correlation.add_row(std::move(row));
     }
     out += "\n" + format_table(correlation);
@@ -245,11 +277,15 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   residuals.title = "Fit to the readings";
   residuals.headers = {"", "objective", "head RMSE [cm]", "head bias [cm]", "head NSE", "head KGE"};
   const bool contents = study.after.water_contents.has_value();
-  if (contents) residuals.headers.insert(residuals.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
+  if (contents)
+    residuals.headers.insert(residuals.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
   for (const auto* run : {&study.before, &study.after}) {
-    std::vector<std::string> row{run == &study.before ? "at start" : "calibrated", number(run->objective, 5),
-                                 metric(run->heads.root_mean_square_error), metric(run->heads.bias),
-                                 metric(run->heads.nash_sutcliffe), metric(run->heads.kling_gupta)};
+    std::vector<std::string> row{run == &study.before ? "at start" : "calibrated",
+                                 number(run->objective, 5),
+                                 metric(run->heads.root_mean_square_error),
+                                 metric(run->heads.bias),
+                                 metric(run->heads.nash_sutcliffe),
+                                 metric(run->heads.kling_gupta)};
     if (contents && run->water_contents)
       row.insert(row.end(), {metric(run->water_contents->root_mean_square_error), metric(run->water_contents->bias)});
     residuals.add_row(std::move(row));
@@ -257,9 +293,10 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   out += "\n" + format_table(residuals);
   if (fit.residual_count() > static_cast<int>(fit.parameters.size())) {
     const double s2 = study.after.objective / (fit.residual_count() - static_cast<int>(fit.parameters.size()));
-    out += fmt::format("Residual variance per reading {:.3g} (1 when the stated uncertainties describe the misfit; above 1 the\n"
-                       "model or the readings differ by more; the standard errors are scaled by its square root).\n",
-                       s2);
+    out += fmt::format(
+        "Residual variance per reading {:.3g} (1 when the stated uncertainties describe the misfit; above 1 the\n"
+        "model or the readings differ by more; the standard errors are scaled by its square root).\n",
+        s2);
   }
   if (!fit.warnings.empty()) {
     out += "\nWarnings:\n";
@@ -268,8 +305,9 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   out += "\n" + format_table(calibration_recharge_table(model, study));
   if (!study.band_note.empty()) out += study.band_note + "\n";
   if (!study.band.empty())
-    out += fmt::format("Sampled band: {} parameter sets drawn from the calibrated covariance ({} ran to the end, {} failed).\n",
-                       study.band_runs_complete + study.band_runs_failed, study.band_runs_complete, study.band_runs_failed);
+    out += fmt::format(
+        "Sampled band: {} parameter sets drawn from the calibrated covariance ({} ran to the end, {} failed).\n",
+        study.band_runs_complete + study.band_runs_failed, study.band_runs_complete, study.band_runs_failed);
   if (!study.first_order.empty()) out += drivers_text(fit, study.first_order.front());
   return out + kCalibrationCautions;
 }

@@ -3,27 +3,29 @@
 
 #include <string>
 
-#include "parameter_study.hpp"
-#include "report_table.hpp"
+#include "wetfront/site/parameter_study.hpp"
+#include "wetfront/site/report_table.hpp"
 
 namespace wetfront::cli {
 
 // What the objective compares, with the weights and reading counts.
-std::string objective_text(const SeasonModel& model);
+std::string objective_text(const site::SeasonModel& model);
 
 // The adjustable parameters with their ranges, scales and site values.
-std::string parameters_text(const ParameterStudy& study);
+std::string parameters_text(const site::ParameterStudy& study);
 
 // Every run, best first: rank, set number, values, objective, metrics, season and per-visit
 // recharge (mm).
-ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep);
+site::ReportTable sweep_table(const site::SeasonModel& model, const site::SweepResult& sweep);
 
 // The printed sweep report: the first `shown` rows of the table and a recharge summary.
-std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std::size_t shown, double seconds, unsigned threads);
+std::string sweep_report(const site::SeasonModel& model, const site::SweepResult& sweep, std::size_t shown,
+                         double seconds, unsigned threads);
 
 // Per interval: calibrated recharge, first-order interval and sampled band (mm).
-ReportTable calibration_recharge_table(const SeasonModel& model, const CalibrationStudy& study);
+site::ReportTable calibration_recharge_table(const site::SeasonModel& model, const site::CalibrationStudy& study);
 
-std::string calibration_report(const SeasonModel& model, const CalibrationStudy& study, double seconds, unsigned threads);
+std::string calibration_report(const site::SeasonModel& model, const site::CalibrationStudy& study, double seconds,
+                               unsigned threads);
 
 }  // namespace wetfront::cli

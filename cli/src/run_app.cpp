@@ -1,14 +1,28 @@
 #include "run_app.hpp"
 
 #include <cstdio>
-#include <stdexcept>
+#include <exception>
 
 #include <fmt/format.h>
 
-#include "input_error.hpp"
-#include "wetfront/soils/lab_csv.hpp"
+#include "exit_codes.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::cli {
+namespace {
+
+// A fault of the program (a broken precondition, an unexpected exception) or of the machine
+// (out of memory, a disk error): never the user's mistake, and said so.
+int report_internal_fault(const char* what) {
+  std::fprintf(stderr,
+               "error: internal fault of wetfront: %s\n"
+               "This is a fault of the program, not of your input. Please report it with the command line, the "
+               "output of `wetfront --version` and the input files.\n",
+               what);
+  return exit_internal_failure;
+}
+
+}  // namespace
 
 int run_app(CLI::App& app, int argc, char** argv) {
   try {
@@ -19,20 +33,13 @@ int run_app(CLI::App& app, int argc, char** argv) {
   } catch (const CLI::ParseError& error) {
     // --help and --version arrive here with code 0; every other parse error is bad input.
     return app.exit(error) == 0 ? exit_ok : exit_bad_input;
-  } catch (const InputError& error) {
-    fmt::print(stderr, "error: {}\n", error.what());
-    return exit_bad_input;
-  } catch (const soils::LabDataError& error) {
-    fmt::print(stderr, "error: {}\n", error.what());
-    return exit_bad_input;
-  } catch (const std::invalid_argument& error) {
+  } catch (const base::InputError& error) {
     fmt::print(stderr, "error: {}\n", error.what());
     return exit_bad_input;
   } catch (const std::exception& error) {
-    // Anything else is a fault of the program or the machine (out of memory, a disk error),
-    // not of the input: say so with its own exit code rather than end without a message.
-    std::fprintf(stderr, "error: internal failure: %s\n", error.what());
-    return exit_internal_failure;
+    return report_internal_fault(error.what());
+  } catch (...) {
+    return report_internal_fault("an exception of unknown type");
   }
   return exit_ok;
 }

@@ -9,20 +9,25 @@
 
 #include <fmt/format.h>
 
-#include "adjustable_parameters.hpp"
-#include "input_error.hpp"
+#include "wetfront/site/adjustable_parameters.hpp"
+#include "exit_codes.hpp"
+#include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
-#include "report_table.hpp"
+#include "wetfront/site/report_table.hpp"
 #include "season_report.hpp"
-#include "season_setup.hpp"
-#include "sensor_check.hpp"
+#include "wetfront/site/grid_check.hpp"
+#include "wetfront/site/run_season.hpp"
+#include "wetfront/site/season_setup.hpp"
+#include "wetfront/site/sensor_check.hpp"
 #include "sensor_report.hpp"
-#include "site_file.hpp"
+#include "wetfront/site/site_file.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/soils/texture_classes.hpp"
 #include "wetfront/solver/column_run.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 namespace {
 
 std::filesystem::path default_output(const std::filesystem::path& site_file) {
@@ -66,16 +71,19 @@ std::string layer_text(const soils::SoilLayer& layer) {
         using M = std::decay_t<decltype(m)>;
         if constexpr (std::is_same_v<M, soils::VanGenuchtenMualem>) {
           return fmt::format("van Genuchten-Mualem: theta_r {} theta_s {} alpha {} 1/cm n {} Ks {} cm/d l {}",
-                             number(m.residual_water_content), number(m.saturated_water_content), number(m.alpha_per_cm),
-                             number(m.n), number(m.saturated_conductivity_cm_per_d), number(m.pore_connectivity));
+                             number(m.residual_water_content), number(m.saturated_water_content),
+                             number(m.alpha_per_cm), number(m.n), number(m.saturated_conductivity_cm_per_d),
+                             number(m.pore_connectivity));
         } else if constexpr (std::is_same_v<M, soils::VanGenuchtenAirEntry>) {
-          return fmt::format("van Genuchten-Mualem with air entry {} cm: theta_r {} theta_s {} alpha {} 1/cm n {} Ks {} cm/d",
-                             number(m.air_entry_head_cm), number(m.base.residual_water_content),
-                             number(m.base.saturated_water_content), number(m.base.alpha_per_cm), number(m.base.n),
-                             number(m.base.saturated_conductivity_cm_per_d));
+          return fmt::format(
+              "van Genuchten-Mualem with air entry {} cm: theta_r {} theta_s {} alpha {} 1/cm n {} Ks {} cm/d",
+              number(m.air_entry_head_cm), number(m.base.residual_water_content),
+              number(m.base.saturated_water_content), number(m.base.alpha_per_cm), number(m.base.n),
+              number(m.base.saturated_conductivity_cm_per_d));
         } else if constexpr (std::is_same_v<M, soils::BrooksCorey>) {
-          return fmt::format("Brooks-Corey: theta_r {} theta_s {} h_b {} cm lambda {} Ks {} cm/d", number(m.residual_water_content),
-                             number(m.saturated_water_content), number(m.bubbling_head_cm), number(m.pore_size_index),
+          return fmt::format("Brooks-Corey: theta_r {} theta_s {} h_b {} cm lambda {} Ks {} cm/d",
+                             number(m.residual_water_content), number(m.saturated_water_content),
+                             number(m.bubbling_head_cm), number(m.pore_size_index),
                              number(m.saturated_conductivity_cm_per_d));
         } else {
           return fmt::format("Gardner: theta_r {} theta_s {} a {} 1/cm Ks {} cm/d", number(m.residual_water_content),
@@ -94,11 +102,12 @@ std::string resolved_setup(const Season& season) {
   if (!s.description.empty()) out += fmt::format("Description: {}\n", s.description);
   out += fmt::format("Period: {} to {} ({} d), output every {} d, {} output times\n", s.run_start_text, s.run_end_text,
                      number(s.run_length_days), number(s.output_interval_days), season.problem.output_days.size());
-  out += fmt::format("Visits: {}\n", s.visit_dates.empty() ? std::string("none") : fmt::format("{}", fmt::join(s.visit_dates, ", ")));
+  out += fmt::format("Visits: {}\n",
+                     s.visit_dates.empty() ? std::string("none") : fmt::format("{}", fmt::join(s.visit_dates, ", ")));
   out += "Layers (depths in cm):\n";
   for (const auto& layer : s.layers) {
-    out += fmt::format("  {:>6} - {:<6} {}: {}\n", number(layer.top_depth_cm), number(layer.bottom_depth_cm), layer.name,
-                       layer_text(layer));
+    out += fmt::format("  {:>6} - {:<6} {}: {}\n", number(layer.top_depth_cm), number(layer.bottom_depth_cm),
+                       layer.name, layer_text(layer));
   }
   const auto& grid = season.problem.grid;
   double thinnest = 1e300, thickest = 0;
@@ -112,16 +121,20 @@ std::string resolved_setup(const Season& season) {
   out += fmt::format("Surface: dry limit {} cm, ponding up to {} cm before runoff\n", number(s.dry_limit_head_cm),
                      number(s.max_ponded_depth_cm));
   out += fmt::format("Rain: {} ({} mm)\n", s.rain.path.string(), number(season.totals.rain_cm * 10));
-  if (s.irrigation) out += fmt::format("Irrigation: {} ({} mm)\n", s.irrigation->path.string(), number(season.totals.irrigation_cm * 10));
+  if (s.irrigation)
+    out +=
+        fmt::format("Irrigation: {} ({} mm)\n", s.irrigation->path.string(), number(season.totals.irrigation_cm * 10));
   out += fmt::format("Pan: {} ({} mm Class A pan evaporation), pan coefficient Kp {}\n",
                      (s.pan.readings ? s.pan.readings->path : s.pan.daily_evaporation->path).string(),
                      number(season.totals.pan_evaporation_cm * 10), number(season.pan_coefficient, 3));
   const auto& c = s.crop.kc_curve;
-  out += fmt::format("Crop: {}, planted day {}, stages {} / {} / {} / {} d, Kc {} / {} / {}, bare soil {}\n", s.crop.name,
-                     number(c.planting_day), number(c.stages.initial_days), number(c.stages.development_days),
-                     number(c.stages.mid_season_days), number(c.stages.late_season_days), number(c.kc_initial),
-                     number(c.kc_mid), number(c.kc_end), number(c.kc_bare_soil));
-  out += fmt::format("Potential transpiration over the run: {} mm ({})\n", number(season.totals.potential_transpiration_cm * 10),
+  out +=
+      fmt::format("Crop: {}, planted day {}, stages {} / {} / {} / {} d, Kc {} / {} / {}, bare soil {}\n", s.crop.name,
+                  number(c.planting_day), number(c.stages.initial_days), number(c.stages.development_days),
+                  number(c.stages.mid_season_days), number(c.stages.late_season_days), number(c.kc_initial),
+                  number(c.kc_mid), number(c.kc_end), number(c.kc_bare_soil));
+  out += fmt::format("Potential transpiration over the run: {} mm ({})\n",
+                     number(season.totals.potential_transpiration_cm * 10),
                      season.roots_simulated ? "taken up by roots where the soil allows"
                                             : "NOT taken from the soil: root uptake is not simulated in this version");
   out += "Sensors:\n";
@@ -130,13 +143,15 @@ std::string resolved_setup(const Season& season) {
     // Wells and core samples have no fixed depth: each reading carries its own.
     const bool fixed_depth = sensor.kind == kTensiometer || sensor.kind == kWaterContentProbe;
     const std::string where = fixed_depth ? fmt::format(" at {} cm", number(sensor.depth_cm))
-                              : sensor.kind == kObservationWell ? fmt::format(", specific yield {}", number(sensor.specific_yield))
-                                                                : std::string();
+                              : sensor.kind == kObservationWell
+                                  ? fmt::format(", specific yield {}", number(sensor.specific_yield))
+                                  : std::string();
     out += fmt::format("  {} ({}){}: {}\n", sensor.name, sensor.kind, where, sensor.readings.string());
   }
   out += fmt::format("Recharge plane: {} cm\n", number(s.recharge_plane_depth_cm));
   out += fmt::format("Solver: relative tolerance {}, storage tolerance {} cm, max step {} d\n",
-                     s.settings.relative_tolerance, s.settings.absolute_tolerance_storage_cm, number(s.settings.max_step_days));
+                     s.settings.relative_tolerance, s.settings.absolute_tolerance_storage_cm,
+                     number(s.settings.max_step_days));
   for (const auto& note : season.notes) out += fmt::format("note: {}\n", note);
   return out;
 }
@@ -144,11 +159,36 @@ std::string resolved_setup(const Season& season) {
 std::vector<std::string> season_notes(const Season& season) {
   std::vector<std::string> notes = season.notes;
   if (!season.roots_simulated) {
-    notes.push_back(fmt::format("root water uptake is not simulated in this version: the {} mm of potential transpiration "
-                                "were not taken from the soil, so drainage is overestimated",
-                                number(season.totals.potential_transpiration_cm * 10)));
+    notes.push_back(
+        fmt::format("root water uptake is not simulated in this version: the {} mm of potential transpiration "
+                    "were not taken from the soil, so drainage is overestimated",
+                    number(season.totals.potential_transpiration_cm * 10)));
   }
   return notes;
+}
+
+// The refinement check's section of the report.
+std::string grid_check_text(const GridCheck& check) {
+  std::string out = fmt::format("\nGrid check: the season again on cells of half the size ({} cells instead of {})\n",
+                                check.finer_cells, check.cells);
+  if (!check.finer_complete) {
+    out += fmt::format("  the finer run did not finish: {}\n", check.finer_failure);
+  } else {
+    out += fmt::format("  season recharge {} mm on this grid, {} mm on the finer one: change {:+.2f} % (limit {} %){}\n",
+                       number(check.recharge_cm * 10), number(check.finer_recharge_cm * 10), 100 * check.recharge_change,
+                       number(100 * kGridRechargeLimit), check.recharge_too_coarse ? "  TOO COARSE" : "");
+    for (const auto& s : check.sensors) {
+      const double limit = s.quantity == "pressure head" ? kGridHeadLimitCm : kGridWaterContentLimit;
+      out += fmt::format("  {:<24} {:<14} change RMS {} {}, largest {} {} over {} readings (limit {} {} RMS){}\n", s.name,
+                         s.quantity, number(s.rms_change), s.unit, number(s.largest_change), s.unit, s.readings,
+                         number(limit), s.unit, s.too_coarse ? "  TOO COARSE" : "");
+    }
+  }
+  out += check.too_coarse()
+             ? "  The grid is too coarse for these results: set smaller cells in [grid] (surface_cell, max_cell) and "
+               "run again.\n"
+             : "  The grid is fine enough: halving the cells changes none of these beyond its limit.\n";
+  return out;
 }
 
 void add_run_command(CLI::App& app) {
@@ -158,6 +198,7 @@ void add_run_command(CLI::App& app) {
     std::string from;
     std::string to;
     bool quiet = false;
+    bool grid_check = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = app.add_subcommand("run", "Simulate the season at a site and report its water balance");
@@ -166,6 +207,9 @@ void add_run_command(CLI::App& app) {
   cmd->add_option("--from", options->from, "start the run on this date instead (YYYY-MM-DD)");
   cmd->add_option("--to", options->to, "end the run on this date instead (YYYY-MM-DD)");
   cmd->add_flag("--quiet", options->quiet, "print only errors; no report and no progress line");
+  cmd->add_flag("--grid-check", options->grid_check,
+                "also run the season on cells of half the size and report how much recharge and the simulated sensor "
+                "values change");
   cmd->footer(
       "Writes the run file and, next to it, NAME-visits.csv with the balance per visit interval and, with\n"
       "sensor readings, NAME-sensors.csv with the fit metrics per sensor.\n"
@@ -174,30 +218,35 @@ void add_run_command(CLI::App& app) {
   cmd->callback([options] {
     const std::filesystem::path site_file = options->site;
     Season season = prepare_season(load_site_file(site_file, {options->from, options->to}));
-    const std::filesystem::path out = options->out.empty() ? default_output(site_file) : std::filesystem::path(options->out);
+    const std::filesystem::path out =
+        options->out.empty() ? default_output(site_file) : std::filesystem::path(options->out);
     const auto started = std::chrono::steady_clock::now();
-    solver::ColumnRun run = simulate_with_progress(season.problem, options->quiet,
-                                                   fmt::format("{} to {}", season.site.run_start_text, season.site.run_end_text));
+    solver::ColumnRun run = simulate_with_progress(
+        season.problem, options->quiet, fmt::format("{} to {}", season.site.run_start_text, season.site.run_end_text));
     const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
-    const bool complete = run.complete;
-    profiles::RunRecord record = make_record(season, std::move(run), WETFRONT_VERSION);
-    const SensorCheck sensors = check_sensors(season, season.sensor_readings, record);
-    if (!season.sensor_readings.empty()) record.sensor_comparison = comparison_record(sensors, season.sensor_readings, record.run);
-    store_field_checks(sensors, record);
+    const SiteSetup site_setup = season.site;
+    SeasonResult result = finish_season(std::move(season), std::move(run), WETFRONT_VERSION);
+    const bool complete = result.complete;
+    std::optional<GridCheck> grid;
+    if (options->grid_check && complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
+    const profiles::RunRecord& record = result.record;
+    const SensorCheck& sensors = result.sensors;
     const bool metrics = !sensors.sensors.empty() || !sensors.pooled.empty();
-    std::vector<std::pair<std::filesystem::path, ReportTable>> tables{{visits_csv_path(out), visit_balance_table(record, &sensors)}};
+    std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
+        {visits_csv_path(out), visit_balance_table(record, &sensors)}};
     if (metrics) tables.push_back({sensors_csv_path(out), sensor_metrics_table(sensors)});
     write_files_together(tables, [&] {
       try {
         profiles::write_run(out, record);
       } catch (const profiles::RunFileError& error) {
-        throw InputError(error.what());
+        throw base::InputError(error.what());
       }
     });
     // A metrics table from an earlier run with sensors would no longer describe this run file.
     if (!metrics) std::filesystem::remove(sensors_csv_path(out));
     if (!options->quiet) {
-      fmt::print("{}", season_report(record, season_notes(season), &sensors));
+      fmt::print("{}", season_report(record, season_notes(result.season), &sensors));
+      if (grid) fmt::print("{}", grid_check_text(*grid));
       fmt::print("\nRun time {:.2f} s. Wrote {}{} and {}\n", seconds, out.string(),
                  metrics ? fmt::format(", {}", visits_csv_path(out).string()) : std::string(),
                  (metrics ? sensors_csv_path(out) : visits_csv_path(out)).string());
@@ -219,20 +268,35 @@ void add_check_command(CLI::App& app) {
     std::string site;
     std::string from;
     std::string to;
+    bool grid_check = false;
   };
   auto options = std::make_shared<Options>();
-  CLI::App* cmd = app.add_subcommand("check", "Check a site file and its field records, and print the resolved setup without running");
+  CLI::App* cmd = app.add_subcommand(
+      "check", "Check a site file and its field records, and print the resolved setup without running");
   cmd->add_option("SITE", options->site, "site file (TOML); see docs/site-file.md")->required();
   cmd->add_option("--from", options->from, "check for a run starting on this date instead (YYYY-MM-DD)");
   cmd->add_option("--to", options->to, "check for a run ending on this date instead (YYYY-MM-DD)");
-  cmd->footer("Exit codes: 0 the site is usable, 1 it is not (the message names the file, line and key).\n"
-              "Example:\n  wetfront check examples/demo/site.toml");
+  cmd->add_flag("--grid-check", options->grid_check,
+                "run the season on this grid and on cells of half the size (no files written) and report whether the "
+                "grid is fine enough");
+  cmd->footer(
+      "Exit codes: 0 the site is usable, 1 it is not (the message names the file, line and key).\n"
+      "Example:\n  wetfront check examples/demo/site.toml");
   cmd->callback([options] {
     const Season season = prepare_season(load_site_file(options->site, {options->from, options->to}));
     const ParameterStudy study = load_parameter_study(season.site);
     fmt::print("{}", resolved_setup(season));
     if (!study.parameters.empty()) fmt::print("{}", parameters_text(study));
     fmt::print("Site file is usable.\n");
+    if (options->grid_check) {
+      const SeasonResult result = run_season(season.site, WETFRONT_VERSION);
+      if (!result.complete) {
+        fmt::print("Grid check: the season did not finish on this grid{}\n",
+                   result.record.run.failure ? ": " + result.record.run.failure->reason : std::string());
+        throw CLI::RuntimeError(exit_solver_failure);
+      }
+      fmt::print("{}", grid_check_text(check_grid(season.site, result, WETFRONT_VERSION)));
+    }
   });
 }
 
@@ -246,14 +310,15 @@ void add_show_command(CLI::App& app) {
   CLI::App* cmd = app.add_subcommand("show", "Print the report of a finished run again from its HDF5 run file");
   cmd->add_option("RUN", options->run_file, "run file written by `wetfront run`")->required();
   cmd->add_option("--csv", options->csv, "also write the balance per visit interval to this CSV file");
-  cmd->add_option("--sensors-csv", options->sensors_csv, "also write the fit metrics per sensor and pooled to this CSV file");
+  cmd->add_option("--sensors-csv", options->sensors_csv,
+                  "also write the fit metrics per sensor and pooled to this CSV file");
   cmd->footer("Example:\n  wetfront show examples/demo/site.h5");
   cmd->callback([options] {
     profiles::RunRecord record;
     try {
       record = profiles::read_run(options->run_file);
     } catch (const profiles::RunFileError& error) {
-      throw InputError(error.what());
+      throw base::InputError(error.what());
     }
     std::optional<SensorCheck> sensors;
     if (record.sensor_comparison || record.darcy_estimate || record.water_table_estimate || record.stored_water) {
@@ -261,8 +326,9 @@ void add_show_command(CLI::App& app) {
     }
     if (!options->sensors_csv.empty()) {
       if (!sensors || (sensors->sensors.empty() && sensors->pooled.empty())) {
-        throw InputError(fmt::format("{}: the run file holds no sensor comparison, so there are no fit metrics for {}",
-                                     options->run_file, options->sensors_csv));
+        throw base::InputError(
+            fmt::format("{}: the run file holds no sensor comparison, so there are no fit metrics for {}",
+                        options->run_file, options->sensors_csv));
       }
     }
     fmt::print("{}", season_report(record, {}, sensors ? &*sensors : nullptr));

@@ -7,30 +7,35 @@
 
 #include <fmt/format.h>
 
-#include "wetfront/forcing/time_axis.hpp"
+#include "wetfront/base/time_point.hpp"
 #include "wetfront/profiles/visit_balance.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 namespace {
 
 std::string date_after(const std::string& run_start, double days) {
-  const auto start = forcing::parse_timestamp(run_start);
+  const auto start = base::parse_timestamp(run_start);
   if (!start) return fmt::format("day {:.2f}", days);
-  return forcing::format_timestamp(forcing::time_after(*start, std::round(days * 86400.0) / 86400.0));
+  return base::format_timestamp(base::time_after(*start, std::round(days * 86400.0) / 86400.0));
 }
 
-
-double recharge_cm(const profiles::IntervalBalance& b) { return b.plane_flux_cm.empty() ? 0.0 : b.plane_flux_cm.front(); }
+double recharge_cm(const profiles::IntervalBalance& b) {
+  return b.plane_flux_cm.empty() ? 0.0 : b.plane_flux_cm.front();
+}
 
 std::string plane_label(const profiles::RunRecord& record) {
-  return record.flux_plane_depths_cm.empty() ? std::string("recharge plane")
-                                             : fmt::format("drainage at {} cm", number(record.flux_plane_depths_cm.front()));
+  return record.flux_plane_depths_cm.empty()
+             ? std::string("recharge plane")
+             : fmt::format("drainage at {} cm", number(record.flux_plane_depths_cm.front()));
 }
 
 ReportTable season_table(const profiles::RunRecord& record, const profiles::IntervalBalance& total) {
   ReportTable table;
-  table.title = fmt::format("Season water balance, {} to {} ({:.1f} d)", date_after(record.run_start_date, total.start_day),
-                            date_after(record.run_start_date, total.end_day), total.end_day - total.start_day);
+  table.title =
+      fmt::format("Season water balance, {} to {} ({:.1f} d)", date_after(record.run_start_date, total.start_day),
+                  date_after(record.run_start_date, total.end_day), total.end_day - total.start_day);
   table.headers = {"term", "amount [mm]", "meaning"};
   const double storage_change = total.storage_change_cm + total.ponded_change_cm;
   table.add_row({"rain + irrigation", mm(total.water_input_cm), "water reaching the surface"});
@@ -51,10 +56,19 @@ ReportTable season_table(const profiles::RunRecord& record, const profiles::Inte
 ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorCheck* sensors) {
   const DarcyCheck* darcy = sensors && sensors->darcy ? &*sensors->darcy : nullptr;
   ReportTable table;
-  table.title = "Water balance per visit interval [mm] (fluxes positive downward; evaporation, transpiration, runoff positive leaving)";
-  table.headers = {"from",           "to",           "rain + irrigation [mm]", "runoff [mm]",
-                   "evaporation [mm]", "transpiration [mm]", "storage change [mm]",
-                   fmt::format("{} [mm]", plane_label(record)), "bottom flux [mm]", "balance error [mm]"};
+  table.title =
+      "Water balance per visit interval [mm] (fluxes positive downward; evaporation, transpiration, runoff positive "
+      "leaving)";
+  table.headers = {"from",
+                   "to",
+                   "rain + irrigation [mm]",
+                   "runoff [mm]",
+                   "evaporation [mm]",
+                   "transpiration [mm]",
+                   "storage change [mm]",
+                   fmt::format("{} [mm]", plane_label(record)),
+                   "bottom flux [mm]",
+                   "balance error [mm]"};
   if (darcy) {
     table.headers.push_back(fmt::format("Darcy {}-{} [mm]", darcy->upper_name, darcy->lower_name));
     table.headers.push_back("model and Darcy");
@@ -64,17 +78,19 @@ ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorC
     table.headers.push_back(fmt::format("water table {} [mm]", water_table->well));
     table.headers.push_back("model and water table");
   }
-  const StorageCheck* storage = sensors && sensors->storage && sensors->storage->usable() ? &*sensors->storage : nullptr;
+  const StorageCheck* storage =
+      sensors && sensors->storage && sensors->storage->usable() ? &*sensors->storage : nullptr;
   if (storage) {
     table.headers.push_back(fmt::format("observed storage change {} [mm]", depth_range(*storage)));
     table.headers.push_back(fmt::format("simulated storage change {} [mm]", depth_range(*storage)));
   }
   for (std::size_t i = 0; i < record.visit_balance.size(); ++i) {
     const auto& b = record.visit_balance[i];
-    std::vector<std::string> row({date_after(record.run_start_date, b.start_day), date_after(record.run_start_date, b.end_day),
-                   mm(b.water_input_cm), mm(b.runoff_cm), mm(b.actual_evaporation_cm), mm(b.transpiration_cm),
-                   mm(b.storage_change_cm + b.ponded_change_cm), mm(recharge_cm(b)), mm(b.bottom_flux_cm),
-                   fmt::format("{:.4f}", b.balance_error_change_cm * kMmPerCm)});
+    std::vector<std::string> row({date_after(record.run_start_date, b.start_day),
+                                  date_after(record.run_start_date, b.end_day), mm(b.water_input_cm), mm(b.runoff_cm),
+                                  mm(b.actual_evaporation_cm), mm(b.transpiration_cm),
+                                  mm(b.storage_change_cm + b.ponded_change_cm), mm(recharge_cm(b)),
+                                  mm(b.bottom_flux_cm), fmt::format("{:.4f}", b.balance_error_change_cm * kMmPerCm)});
     if (darcy) {
       const DarcyInterval* d = i < darcy->intervals.size() ? &darcy->intervals[i] : nullptr;
       row.push_back(d && d->estimate_cm ? mm(*d->estimate_cm) : "");
@@ -95,24 +111,30 @@ ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorC
   return table;
 }
 
-std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes, const SensorCheck* sensors) {
+std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes,
+                          const SensorCheck* sensors) {
   const auto& run = record.run;
   std::string out;
   out += fmt::format("Site: {}\n", record.site_name);
-  out += fmt::format("Run start: {}   program: wetfront {}   inputs: {}\n", record.run_start_date, record.program_version,
-                     record.input_hash);
+  out += fmt::format("Run start: {}   program: wetfront {}   inputs: {}\n", record.run_start_date,
+                     record.program_version, record.input_hash);
   out += fmt::format("Column: {} cells to {} cm; {} layers; {} sensors\n", run.cell_depths_cm.size(),
-                     run.face_depths_cm.empty() ? 0.0 : run.face_depths_cm.back(), record.layers.size(), record.sensors.size());
+                     run.face_depths_cm.empty() ? 0.0 : run.face_depths_cm.back(), record.layers.size(),
+                     record.sensors.size());
   if (!run.complete) {
-    out += "\nRUN INCOMPLETE: the solver stopped before the end of the period; the results below cover only the time reached.\n";
+    out +=
+        "\nRUN INCOMPLETE: the solver stopped before the end of the period; the results below cover only the time "
+        "reached.\n";
     if (run.failure) {
-      out += fmt::format("  stopped at {} (day {:.4f}), near {} cm: {}\n", date_after(record.run_start_date, run.failure->time_days),
-                         run.failure->time_days, number(run.failure->depth_cm), run.failure->reason);
+      out += fmt::format("  stopped at {} (day {:.4f}), near {} cm: {}\n",
+                         date_after(record.run_start_date, run.failure->time_days), run.failure->time_days,
+                         number(run.failure->depth_cm), run.failure->reason);
     }
   }
-  out += "\nUnits and signs: amounts in mm of water over the plot. Fluxes are positive downward (infiltration,\n"
-         "drainage, recharge); a negative flux is upward (capillary rise). Evaporation, transpiration and\n"
-         "runoff are positive amounts leaving the soil. Depths are below the soil surface.\n\n";
+  out +=
+      "\nUnits and signs: amounts in mm of water over the plot. Fluxes are positive downward (infiltration,\n"
+      "drainage, recharge); a negative flux is upward (capillary rise). Evaporation, transpiration and\n"
+      "runoff are positive amounts leaving the soil. Depths are below the soil surface.\n\n";
   if (run.balances.size() >= 2) {
     const auto total = profiles::season_total(run.balances);
     out += format_table(season_table(record, total));
@@ -141,15 +163,16 @@ std::string season_report(const profiles::RunRecord& record, const std::vector<s
     out += "\nNotes on the inputs:\n";
     for (const auto& note : notes) out += fmt::format("  - {}\n", note);
   }
-  out += "\nCautions:\n"
-         "  - The model is one-dimensional: water moves only vertically; lateral flow, slopes and\n"
-         "    neighbouring land are not represented.\n"
-         "  - No preferential flow (cracks, root channels, worm holes), no hysteresis of the retention\n"
-         "    curve, no freezing or thawing, no solute or heat transport.\n"
-         "  - Every number here is an estimate that depends on the soil parameters, the field records\n"
-         "    and the crop description; check it against the sensor readings before relying on it.\n"
-         "  - Decisions on water use, recharge or abstraction rest with local regulations and\n"
-         "    licensed professionals, not with this program.\n";
+  out +=
+      "\nCautions:\n"
+      "  - The model is one-dimensional: water moves only vertically; lateral flow, slopes and\n"
+      "    neighbouring land are not represented.\n"
+      "  - No preferential flow (cracks, root channels, worm holes), no hysteresis of the retention\n"
+      "    curve, no freezing or thawing, no solute or heat transport.\n"
+      "  - Every number here is an estimate that depends on the soil parameters, the field records\n"
+      "    and the crop description; check it against the sensor readings before relying on it.\n"
+      "  - Decisions on water use, recharge or abstraction rest with local regulations and\n"
+      "    licensed professionals, not with this program.\n";
   return out;
 }
 

@@ -6,8 +6,8 @@
 #include <string>
 #include <vector>
 
-#include "report_table.hpp"
-#include "sensor_check.hpp"
+#include "wetfront/site/report_table.hpp"
+#include "wetfront/site/sensor_check.hpp"
 #include "wetfront/profiles/run_record.hpp"
 
 namespace wetfront::cli {
@@ -16,11 +16,11 @@ namespace wetfront::cli {
 // With a sensor check holding a Darcy or a water-table estimate: also that estimate and its
 // agreement with the model; with water contents at two or more depths: the observed and the
 // simulated change of stored water.
-ReportTable visit_balance_table(const profiles::RunRecord& record, const SensorCheck* sensors = nullptr);
+site::ReportTable visit_balance_table(const profiles::RunRecord& record, const site::SensorCheck* sensors = nullptr);
 
 // The whole report as text (tables, statements of units and signs, statistics, cautions).
 // notes: extra lines about the inputs (gaps filled, shortened run, processes not simulated).
 std::string season_report(const profiles::RunRecord& record, const std::vector<std::string>& notes,
-                          const SensorCheck* sensors = nullptr);
+                          const site::SensorCheck* sensors = nullptr);
 
 }  // namespace wetfront::cli

@@ -4,9 +4,13 @@
 #include <cmath>
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 namespace {
 
-std::string value(double v, int digits) { return std::isnan(v) ? std::string("n/a") : fmt::format("{:.{}f}", v, digits); }
+std::string value(double v, int digits) {
+  return std::isnan(v) ? std::string("n/a") : fmt::format("{:.{}f}", v, digits);
+}
 
 // The intervals with an estimate: how many, the model's drainage and the estimate summed over
 // them, how many differ, and the reasons to consider (each once).
@@ -39,18 +43,19 @@ EstimateSummary summarise(const std::vector<EstimateInterval>& intervals) {
 std::string sensor_section(const SensorCheck& sensors) {
   std::string out = "Sensors against the model\n";
   if (sensors.sensors.empty()) return out + "  no sensor readings inside the run\n\n";
-  out += "  Simulated values at each reading's time and depth (reading times are solver output times; linear in depth\n"
-         "  between cell centres). Bias = mean(model - reading): positive means the model is wetter (higher head) or\n"
-         "  holds more water. Heads in cm of water at the cup; water content in cm3/cm3.\n";
+  out +=
+      "  Simulated values at each reading's time and depth (reading times are solver output times; linear in depth\n"
+      "  between cell centres). Bias = mean(model - reading): positive means the model is wetter (higher head) or\n"
+      "  holds more water. Heads in cm of water at the cup; water content in cm3/cm3.\n";
   ReportTable table;
   table.headers = {"sensor", "depth [cm]", "quantity [unit]", "used", "left out", "bias", "RMSE", "NSE", "KGE"};
   auto add = [&](const SensorFitRow& r) {
     const int digits = r.unit == "cm" ? 1 : 3;
     table.add_row({r.name, std::isnan(r.depth_cm) ? std::string("") : number(r.depth_cm),
                    fmt::format("{} [{}]", r.quantity, r.unit), fmt::format("{}", r.metrics.count),
-                   fmt::format("{}", r.beyond_working_limit + r.outside_run + r.outside_depth), value(r.metrics.bias, digits),
-                   value(r.metrics.root_mean_square_error, digits), value(r.metrics.nash_sutcliffe, 2),
-                   value(r.metrics.kling_gupta, 2)});
+                   fmt::format("{}", r.beyond_working_limit + r.outside_run + r.outside_depth),
+                   value(r.metrics.bias, digits), value(r.metrics.root_mean_square_error, digits),
+                   value(r.metrics.nash_sutcliffe, 2), value(r.metrics.kling_gupta, 2)});
   };
   for (const auto& r : sensors.sensors) add(r);
   for (const auto& r : sensors.pooled) add(r);
@@ -61,28 +66,36 @@ std::string sensor_section(const SensorCheck& sensors) {
     outside += r.outside_run;
     off_depth += r.outside_depth;
   }
-  out += fmt::format("  Left out: {} tensiometer reading(s) beyond the working limit (the water column cavitates at high tension,\n"
-                     "  so the reading no longer gives the soil's head); {} reading(s) outside the time the run covers.\n",
-                     limit, outside);
+  out += fmt::format(
+      "  Left out: {} tensiometer reading(s) beyond the working limit (the water column cavitates at high tension,\n"
+      "  so the reading no longer gives the soil's head); {} reading(s) outside the time the run covers.\n",
+      limit, outside);
   if (off_depth > 0) {
-    out += fmt::format("  Also left out: {} reading(s) above the shallowest or below the deepest cell centre, where the model\n"
-                       "  gives no value to interpolate.\n", off_depth);
+    out += fmt::format(
+        "  Also left out: {} reading(s) above the shallowest or below the deepest cell centre, where the model\n"
+        "  gives no value to interpolate.\n",
+        off_depth);
   }
-  out += "  A reading left out for more than one reason counts once: outside the run first, then outside the cell\n"
-         "  centres, then beyond the working limit.\n";
-  out += "  Pooled rows combine all sensors of one kind; heads and water contents are never pooled together.\n"
-         "  NSE and KGE are n/a where the readings have no spread.\n";
+  out +=
+      "  A reading left out for more than one reason counts once: outside the run first, then outside the cell\n"
+      "  centres, then beyond the working limit.\n";
+  out +=
+      "  Pooled rows combine all sensors of one kind; heads and water contents are never pooled together.\n"
+      "  NSE and KGE are n/a where the readings have no spread.\n";
   if (sensors.darcy) {
     const auto& d = *sensors.darcy;
-    out += fmt::format("\n  Recharge from tensiometers {} ({} cm) and {} ({} cm) by Darcy's law, per visit interval, beside the\n"
-                       "  model's drainage;\n  {}.\n  Readings within {} d of a visit count as read at it. Estimates "
-                       "differ when their signs differ or one\n  exceeds the other by more than a factor of {} "
-                       "(both below {} mm agree). See the visit table for every interval.\n",
-                       d.upper_name, number(d.upper_depth_cm), d.lower_name, number(d.lower_depth_cm), d.soil_note,
-                       kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
+    out += fmt::format(
+        "\n  Recharge from tensiometers {} ({} cm) and {} ({} cm) by Darcy's law, per visit interval, beside the\n"
+        "  model's drainage;\n  {}.\n  Readings within {} d of a visit count as read at it. Estimates "
+        "differ when their signs differ or one\n  exceeds the other by more than a factor of {} "
+        "(both below {} mm agree). See the visit table for every interval.\n",
+        d.upper_name, number(d.upper_depth_cm), d.lower_name, number(d.lower_depth_cm), d.soil_note,
+        kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
     const EstimateSummary s = summarise(d.intervals);
-    out += fmt::format("  Intervals with an estimate: {} of {}; over them the model drained {} mm, Darcy gives {} mm;\n"
-                       "  they differ in {} interval(s).\n", s.estimated, d.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
+    out += fmt::format(
+        "  Intervals with an estimate: {} of {}; over them the model drained {} mm, Darcy gives {} mm;\n"
+        "  they differ in {} interval(s).\n",
+        s.estimated, d.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
     if (!s.reasons.empty()) {
       out += "  Where they differ, consider:\n";
       for (const auto& reason : s.reasons) out += fmt::format("    - {}\n", reason);
@@ -97,14 +110,16 @@ std::string storage_section(const StorageCheck& storage) {
     const std::string has = storage.depths_cm.empty()
                                 ? std::string("has none")
                                 : fmt::format("has them at one depth only ({} cm)", number(storage.depths_cm.front()));
-    return out + fmt::format("  The comparison needs water-content probes at two or more depths; this site {}.\n\n", has);
+    return out +
+           fmt::format("  The comparison needs water-content probes at two or more depths; this site {}.\n\n", has);
   }
-  out += fmt::format("  Water stored between {} and {} cm (probes {}, at {} cm), in mm: the trapezoidal rule\n"
-                     "  over the probe depths, from the readings and from the model at the same depths and times.\n"
-                     "  Readings within {} d of a visit count as read at it; nothing is counted above the shallowest or\n"
-                     "  below the deepest probe.\n",
-                     number(storage.depths_cm.front()), number(storage.depths_cm.back()), fmt::join(storage.probe_names, ", "),
-                     fmt::join(storage.depths_cm, ", "), kVisitReadingWindowDays);
+  out += fmt::format(
+      "  Water stored between {} and {} cm (probes {}, at {} cm), in mm: the trapezoidal rule\n"
+      "  over the probe depths, from the readings and from the model at the same depths and times.\n"
+      "  Readings within {} d of a visit count as read at it; nothing is counted above the shallowest or\n"
+      "  below the deepest probe.\n",
+      number(storage.depths_cm.front()), number(storage.depths_cm.back()), fmt::join(storage.probe_names, ", "),
+      fmt::join(storage.depths_cm, ", "), kVisitReadingWindowDays);
   int both = 0;
   double observed = 0, simulated = 0;
   for (const auto& v : storage.visits) {
@@ -113,10 +128,12 @@ std::string storage_section(const StorageCheck& storage) {
     observed += *v.observed_cm;
     simulated += *v.simulated_cm;
   }
-  out += fmt::format("  Visits (with the run start and end) with a reading at every depth: {} of {}.\n", both, storage.visits.size());
+  out += fmt::format("  Visits (with the run start and end) with a reading at every depth: {} of {}.\n", both,
+                     storage.visits.size());
   if (both > 0) {
-    out += fmt::format("  Mean stored water at those visits: readings {} mm, model {} mm (model minus readings {} mm).\n",
-                       mm(observed / both), mm(simulated / both), mm((simulated - observed) / both));
+    out +=
+        fmt::format("  Mean stored water at those visits: readings {} mm, model {} mm (model minus readings {} mm).\n",
+                    mm(observed / both), mm(simulated / both), mm((simulated - observed) / both));
   }
   int intervals = 0;
   double observed_change = 0, simulated_change = 0;
@@ -126,38 +143,43 @@ std::string storage_section(const StorageCheck& storage) {
     observed_change += *i.observed_change_cm;
     simulated_change += *i.simulated_change_cm;
   }
-  out += fmt::format("  Intervals with a change from both: {} of {}; the changes summed over them: readings {} mm,\n"
-                     "  model {} mm (positive: water gained). The storage change columns of the visit table give every\n"
-                     "  interval.\n\n",
-                     intervals, storage.intervals.size(), mm(observed_change), mm(simulated_change));
+  out += fmt::format(
+      "  Intervals with a change from both: {} of {}; the changes summed over them: readings {} mm,\n"
+      "  model {} mm (positive: water gained). The storage change columns of the visit table give every\n"
+      "  interval.\n\n",
+      intervals, storage.intervals.size(), mm(observed_change), mm(simulated_change));
   return out;
 }
 
 std::string water_table_section(const WaterTableCheck& w) {
   std::string out = "Recharge from the water table\n";
-  out += fmt::format("  Water-table fluctuation (Healy & Cook 2002) from well {}: recharge = specific yield x rise of the\n"
-                     "  water table between visits (rises only), with specific yield {}; the rise is taken against a fall\n"
-                     "  of {} cm/d without recharge.\n",
-                     w.well, number(w.specific_yield), number(w.recession_cm_per_d));
+  out += fmt::format(
+      "  Water-table fluctuation (Healy & Cook 2002) from well {}: recharge = specific yield x rise of the\n"
+      "  water table between visits (rises only), with specific yield {}; the rise is taken against a fall\n"
+      "  of {} cm/d without recharge.\n",
+      w.well, number(w.specific_yield), number(w.recession_cm_per_d));
   if (!w.specific_yield_note.empty()) out += fmt::format("  Specific yield: {}.\n", w.specific_yield_note);
-  out += fmt::format("  Readings within {} d of a visit count as read at it. Beside the model's drainage at the recharge\n"
-                     "  plane; they differ when their signs differ or one exceeds the other by more than a factor of {}\n"
-                     "  (both below {} mm agree). See the visit table for every interval.\n",
-                     kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
+  out += fmt::format(
+      "  Readings within {} d of a visit count as read at it. Beside the model's drainage at the recharge\n"
+      "  plane; they differ when their signs differ or one exceeds the other by more than a factor of {}\n"
+      "  (both below {} mm agree). See the visit table for every interval.\n",
+      kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
   const EstimateSummary s = summarise(w.intervals);
-  out += fmt::format("  Intervals with an estimate: {} of {}; over them the model drained {} mm, the water table gives {} mm;\n"
-                     "  they differ in {} interval(s).\n",
-                     s.estimated, w.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
+  out += fmt::format(
+      "  Intervals with an estimate: {} of {}; over them the model drained {} mm, the water table gives {} mm;\n"
+      "  they differ in {} interval(s).\n",
+      s.estimated, w.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
   if (!s.reasons.empty()) {
     out += "  Where they differ, consider:\n";
     for (const auto& reason : s.reasons) {
       // The tensiometer-gradient reason does not apply to a well.
       if (reason.rfind("sensor depth", 0) != 0) out += fmt::format("    - {}\n", reason);
     }
-    out += "    - specific yield: the estimate scales with it, and a value from a table for the texture can be off by a\n"
-           "      factor of two or more\n"
-           "    - the water table answers more than the plot: water flowing in or out of the aquifer sideways, pumping\n"
-           "      nearby, and the time drainage takes from the recharge plane down to the water table\n";
+    out +=
+        "    - specific yield: the estimate scales with it, and a value from a table for the texture can be off by a\n"
+        "      factor of two or more\n"
+        "    - the water table answers more than the plot: water flowing in or out of the aquifer sideways, pumping\n"
+        "      nearby, and the time drainage takes from the recharge plane down to the water table\n";
   }
   return out + "\n";
 }
@@ -165,13 +187,24 @@ std::string water_table_section(const WaterTableCheck& w) {
 ReportTable sensor_metrics_table(const SensorCheck& sensors) {
   ReportTable table;
   table.title = "Fit metrics per sensor and pooled";
-  table.headers = {"sensor", "depth [cm]", "quantity", "unit", "readings used", "left out beyond working limit",
-                   "left out outside run", "left out outside cell centres", "bias [see unit]", "RMSE [see unit]", "NSE [1]", "KGE [1]"};
+  table.headers = {"sensor",
+                   "depth [cm]",
+                   "quantity",
+                   "unit",
+                   "readings used",
+                   "left out beyond working limit",
+                   "left out outside run",
+                   "left out outside cell centres",
+                   "bias [see unit]",
+                   "RMSE [see unit]",
+                   "NSE [1]",
+                   "KGE [1]"};
   auto add = [&](const SensorFitRow& r) {
     auto plain = [](double v) { return std::isnan(v) ? std::string("") : fmt::format("{:.6g}", v); };
     table.add_row({r.name, std::isnan(r.depth_cm) ? std::string("") : number(r.depth_cm), r.quantity, r.unit,
-                   fmt::format("{}", r.metrics.count), fmt::format("{}", r.beyond_working_limit), fmt::format("{}", r.outside_run),
-                   fmt::format("{}", r.outside_depth), plain(r.metrics.bias), plain(r.metrics.root_mean_square_error), plain(r.metrics.nash_sutcliffe),
+                   fmt::format("{}", r.metrics.count), fmt::format("{}", r.beyond_working_limit),
+                   fmt::format("{}", r.outside_run), fmt::format("{}", r.outside_depth), plain(r.metrics.bias),
+                   plain(r.metrics.root_mean_square_error), plain(r.metrics.nash_sutcliffe),
                    plain(r.metrics.kling_gupta)});
   };
   for (const auto& r : sensors.sensors) add(r);

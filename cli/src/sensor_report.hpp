@@ -7,8 +7,8 @@
 
 #include <fmt/format.h>
 
-#include "report_table.hpp"
-#include "sensor_check.hpp"
+#include "wetfront/site/report_table.hpp"
+#include "wetfront/site/sensor_check.hpp"
 
 namespace wetfront::cli {
 
@@ -18,23 +18,23 @@ inline constexpr double kMmPerCm = 10.0;
 inline std::string mm(double cm) { return fmt::format("{:.1f}", cm * kMmPerCm); }
 
 // "20-80 cm": the depths the stored water spans.
-inline std::string depth_range(const StorageCheck& storage) {
-  return fmt::format("{}-{} cm", number(storage.depths_cm.front()), number(storage.depths_cm.back()));
+inline std::string depth_range(const site::StorageCheck& storage) {
+  return fmt::format("{}-{} cm", site::number(storage.depths_cm.front()), site::number(storage.depths_cm.back()));
 }
 
 // "Sensors against the model": metrics per sensor and pooled, readings left out and why, and
 // the Darcy estimates beside the model's drainage.
-std::string sensor_section(const SensorCheck& sensors);
+std::string sensor_section(const site::SensorCheck& sensors);
 
 // "Recharge from the water table": the water-table-fluctuation estimate per visit interval
 // summed beside the model's drainage, with the reasons to consider where they differ.
-std::string water_table_section(const WaterTableCheck& water_table);
+std::string water_table_section(const site::WaterTableCheck& water_table);
 
 // "Stored water over the probe depths": observed against simulated storage between the
 // shallowest and the deepest depth, or a note that the comparison needs two depths.
-std::string storage_section(const StorageCheck& storage);
+std::string storage_section(const site::StorageCheck& storage);
 
 // The fit metrics per sensor and pooled, one row each, with units in the headers.
-ReportTable sensor_metrics_table(const SensorCheck& sensors);
+site::ReportTable sensor_metrics_table(const site::SensorCheck& sensors);
 
 }  // namespace wetfront::cli

@@ -5,10 +5,12 @@
 #include <fmt/format.h>
 
 #include "command_output.hpp"
-#include "field_analysis.hpp"
+#include "wetfront/site/field_analysis.hpp"
 #include "soil_commands.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 
 void add_infiltrometer_command(CLI::App& soil) {
   struct Options {
@@ -17,11 +19,13 @@ void add_infiltrometer_command(CLI::App& soil) {
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand(
-      "infiltrometer", "Conductivity near saturation from tension disc infiltrometer readings at two or more supply heads");
+      "infiltrometer",
+      "Conductivity near saturation from tension disc infiltrometer readings at two or more supply heads");
   cmd->add_option("FILE", options->inputs.file,
                   "CSV with columns 'supply head [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)")
       ->required();
-  cmd->add_option("--disc-radius", options->inputs.disc_radius, "radius of the disc membrane, with unit (e.g. \"10 cm\")")
+  cmd->add_option("--disc-radius", options->inputs.disc_radius,
+                  "radius of the disc membrane, with unit (e.g. \"10 cm\")")
       ->required();
   cmd->add_option("--tower-area", options->inputs.tower_area,
                   "inner cross-section of the water tower the levels are read on, with unit (e.g. \"19.6 cm2\")")

@@ -5,13 +5,16 @@
 #include <fmt/format.h>
 
 #include "command_output.hpp"
-#include "input_error.hpp"
-#include "lab_analysis.hpp"
+#include "wetfront/base/input_error.hpp"
+#include "wetfront/base/quantity.hpp"
+#include "wetfront/site/lab_analysis.hpp"
 #include "soil_commands.hpp"
 #include "wetfront/soils/core_samples.hpp"
 #include "wetfront/soils/lab_csv.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 
 void add_cores_command(CLI::App& soil) {
   struct Options {
@@ -20,16 +23,19 @@ void add_cores_command(CLI::App& soil) {
     std::string csv_path;
   };
   auto options = std::make_shared<Options>();
-  CLI::App* cmd = soil.add_subcommand("cores", "Water content, bulk density and porosity of ring samples, and their "
-                                               "retention points when suction steps were weighed");
+  CLI::App* cmd = soil.add_subcommand("cores",
+                                      "Water content, bulk density and porosity of ring samples, and their "
+                                      "retention points when suction steps were weighed");
   cmd->add_option("FILE", options->cores_file,
                   "CSV with columns sample, ring_volume_cm3, tare_mass_g, wet_mass_g, oven_dry_mass_g [, note]")
       ->required();
   cmd->add_option("--steps", options->steps_file,
                   "CSV of equilibrium masses: sample, suction_cm or suction_kPa, wet_mass_g [, note]");
   cmd->add_option("--csv", options->csv_path, "also write the last table to this CSV file");
-  cmd->footer("Examples:\n  wetfront soil cores examples/soil-data/cores.csv\n"
-              "  wetfront soil cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv --csv points.csv");
+  cmd->footer(
+      "Examples:\n  wetfront soil cores examples/soil-data/cores.csv\n"
+      "  wetfront soil cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv --csv "
+      "points.csv");
   cmd->callback([options] {
     const auto cores = soils::read_core_samples_csv(options->cores_file);
     ReportTable table;
@@ -47,15 +53,16 @@ void add_cores_command(CLI::App& soil) {
       std::vector<soils::RetentionSeries> series;
       try {
         series = soils::retention_from_cores(cores, soils::read_suction_steps_csv(options->steps_file));
-      } catch (const std::invalid_argument& error) {
-        throw InputError(options->steps_file, 0, "sample", error.what());
+      } catch (const base::InputError& error) {
+        throw base::InputError(options->steps_file, 0, "sample", error.what());
       }
       ReportTable points;
       points.title = fmt::format("Retention points from the suction steps of {}", options->steps_file);
       points.headers = {"sample", "suction [cm]", "suction [kPa]", "water content [cm3/cm3]"};
       for (const auto& s : series) {
         for (const auto& point : s.points) {
-          points.add_row({s.sample, number(point.suction_cm), number(point.suction_cm / soils::kCentimetresOfWaterPerKilopascal),
+          points.add_row({s.sample, number(point.suction_cm),
+                          number(point.suction_cm / base::kCentimetresOfWaterPerKilopascal),
                           number(point.water_content)});
         }
       }
@@ -80,16 +87,17 @@ void add_retention_command(CLI::App& soil) {
   cmd->add_option("--fix-residual", options->inputs.fix_residual,
                   "hold the residual water content at this value (e.g. 0.05 or \"5 %\") instead of fitting it");
   cmd->add_option("--csv", options->csv_path, "also write the table of fits to this CSV file");
-  cmd->footer("Examples:\n  wetfront soil retention examples/soil-data/retention-points.csv\n"
-              "  wetfront soil retention --cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv "
-              "--fix-residual 0");
+  cmd->footer(
+      "Examples:\n  wetfront soil retention examples/soil-data/retention-points.csv\n"
+      "  wetfront soil retention --cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv "
+      "--fix-residual 0");
   cmd->callback([options] {
     const RetentionReport report = analyse_retention(options->inputs);
     emit_report(report.tables, report.warnings, options->csv_path);
     const auto& p = report.chosen;
     fmt::print("\nRetention: theta_r = {}, theta_s = {} cm3/cm3, alpha = {} 1/cm, n = {} ({})\n",
-               number(p.residual_water_content), number(p.saturated_water_content), number(p.alpha_per_cm),
-               number(p.n), report.provenance);
+               number(p.residual_water_content), number(p.saturated_water_content), number(p.alpha_per_cm), number(p.n),
+               report.provenance);
   });
 }
 

@@ -13,14 +13,16 @@
 #include <toml++/toml.h>
 
 #include "command_output.hpp"
-#include "field_analysis.hpp"
-#include "input_error.hpp"
-#include "lab_analysis.hpp"
-#include "quantity.hpp"
+#include "wetfront/site/field_analysis.hpp"
+#include "wetfront/base/input_error.hpp"
+#include "wetfront/site/lab_analysis.hpp"
+#include "wetfront/base/quantity.hpp"
 #include "soil_commands.hpp"
 #include "wetfront/soils/texture_classes.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 namespace {
 
 std::string toml_string(std::string_view text) {
@@ -52,18 +54,22 @@ struct LayerOptions {
 };
 
 void run_layer(const LayerOptions& o) {
-  if (o.name.empty()) throw InputError("option --name: give the layer a name");
-  const double top = parse_quantity(o.top, Dimension::length, "option --top");
-  const double bottom = parse_quantity(o.bottom, Dimension::length, "option --bottom");
+  if (o.name.empty()) throw base::InputError("option --name: give the layer a name");
+  const double top = base::parse_quantity(o.top, base::Dimension::length, "option --top");
+  const double bottom = base::parse_quantity(o.bottom, base::Dimension::length, "option --bottom");
   if (!(top >= 0.0 && bottom > top)) {
-    throw InputError(fmt::format("options --top/--bottom: depths are positive downward and the bottom lies below the "
-                                 "top; got top {} cm, bottom {} cm", number(top), number(bottom)));
+    throw base::InputError(
+        fmt::format("options --top/--bottom: depths are positive downward and the bottom lies below the "
+                    "top; got top {} cm, bottom {} cm",
+                    number(top), number(bottom)));
   }
 
   // Retention.
-  const bool lab = !o.retention.points_file.empty() || !o.retention.cores_file.empty() || !o.retention.steps_file.empty();
+  const bool lab =
+      !o.retention.points_file.empty() || !o.retention.cores_file.empty() || !o.retention.steps_file.empty();
   if (lab == !o.texture.empty()) {
-    throw InputError("retention: give either laboratory data (--retention FILE, or --cores with --steps) or --texture NAME");
+    throw base::InputError(
+        "retention: give either laboratory data (--retention FILE, or --cores with --steps) or --texture NAME");
   }
   soils::RetentionParameters retention;
   std::string retention_source;
@@ -78,8 +84,8 @@ void run_layer(const LayerOptions& o) {
   } else {
     try {
       texture_class = soils::texture_class_parameters(o.texture);
-    } catch (const std::invalid_argument& error) {
-      throw InputError(fmt::format("option --texture: {}", error.what()));
+    } catch (const base::InputError& error) {
+      throw base::InputError(fmt::format("option --texture: {}", error.what()));
     }
     retention = {texture_class->residual_water_content, texture_class->saturated_water_content,
                  texture_class->alpha_per_cm, texture_class->n};
@@ -90,8 +96,9 @@ void run_layer(const LayerOptions& o) {
   const int conductivity_sources = (!o.permeameter.file.empty() ? 1 : 0) + (!o.infiltrometer.file.empty() ? 1 : 0) +
                                    (!o.saturated_conductivity.empty() ? 1 : 0);
   if (conductivity_sources != 1) {
-    throw InputError("saturated conductivity: give exactly one of --permeameter FILE, --infiltrometer FILE or "
-                     "--saturated-conductivity VALUE");
+    throw base::InputError(
+        "saturated conductivity: give exactly one of --permeameter FILE, --infiltrometer FILE or "
+        "--saturated-conductivity VALUE");
   }
   double conductivity = 0.0;
   std::string conductivity_source;
@@ -106,12 +113,14 @@ void run_layer(const LayerOptions& o) {
     conductivity_source = report.provenance;
     warnings.insert(warnings.end(), report.warnings.begin(), report.warnings.end());
   } else {
-    conductivity = parse_quantity(o.saturated_conductivity, Dimension::conductivity, "option --saturated-conductivity");
-    if (!(conductivity > 0.0)) throw InputError("option --saturated-conductivity: must be positive");
+    conductivity = base::parse_quantity(o.saturated_conductivity, base::Dimension::conductivity,
+                                        "option --saturated-conductivity");
+    if (!(conductivity > 0.0)) throw base::InputError("option --saturated-conductivity: must be positive");
     conductivity_source = "given on the command line";
   }
   if (!(o.pore_connectivity > -10.0 && o.pore_connectivity < 10.0)) {
-    throw InputError(fmt::format("option --pore-connectivity: expected a value between -10 and 10, got {}", o.pore_connectivity));
+    throw base::InputError(
+        fmt::format("option --pore-connectivity: expected a value between -10 and 10, got {}", o.pore_connectivity));
   }
   const std::string connectivity_source =
       o.pore_connectivity_given ? "given on the command line" : "default of Mualem (1976)";
@@ -128,7 +137,8 @@ void run_layer(const LayerOptions& o) {
   tables.push_back(table);
 
   std::ostringstream block;
-  block << fmt::format("# Layer written by `wetfront soil layer`; the comment above each value says where it came from.\n");
+  block << fmt::format(
+      "# Layer written by `wetfront soil layer`; the comment above each value says where it came from.\n");
   block << "[[layers]]\n";
   block << fmt::format("name = {}\n", toml_string(o.name));
   block << fmt::format("top = {}\n", toml_string(fmt::format("{} cm", number(top, 6))));
@@ -158,7 +168,8 @@ void run_layer(const LayerOptions& o) {
     fmt::print("\n{}", text);
   } else {
     std::ofstream out(o.output_path);
-    if (!out || !(out << text)) throw InputError(o.output_path, 0, "", "cannot write the layer block (option --output)");
+    if (!out || !(out << text))
+      throw base::InputError(o.output_path, 0, "", "cannot write the layer block (option --output)");
     fmt::print("\nLayer block written to {}\n", o.output_path);
   }
 }
@@ -180,15 +191,18 @@ void add_layer_command(CLI::App& soil) {
   retention->add_option("--fix-residual", o->retention.fix_residual, "hold theta_r at this value in the fit");
   retention->add_option("--texture", o->texture, "instead of lab data: class averages of this texture class");
   auto* conductivity = cmd->add_option_group("saturated conductivity", "where Ks comes from (exactly one)");
-  conductivity->add_option("--permeameter", o->permeameter.file, "well permeameter CSV (as `wetfront soil permeameter`)");
+  conductivity->add_option("--permeameter", o->permeameter.file,
+                           "well permeameter CSV (as `wetfront soil permeameter`)");
   conductivity->add_option("--well-radius", o->permeameter.well_radius, "with --permeameter");
   conductivity->add_option("--reservoir-area", o->permeameter.reservoir_area, "with --permeameter");
   conductivity->add_option("--soil", o->permeameter.soil_category, "with --permeameter")->capture_default_str();
   conductivity->add_flag("--single-head", o->permeameter.single_head_only, "with --permeameter");
-  conductivity->add_option("--infiltrometer", o->infiltrometer.file, "tension disc CSV (as `wetfront soil infiltrometer`)");
+  conductivity->add_option("--infiltrometer", o->infiltrometer.file,
+                           "tension disc CSV (as `wetfront soil infiltrometer`)");
   conductivity->add_option("--disc-radius", o->infiltrometer.disc_radius, "with --infiltrometer");
   conductivity->add_option("--tower-area", o->infiltrometer.tower_area, "with --infiltrometer");
-  conductivity->add_option("--saturated-conductivity", o->saturated_conductivity, "a value with unit, e.g. \"25 cm/d\"");
+  conductivity->add_option("--saturated-conductivity", o->saturated_conductivity,
+                           "a value with unit, e.g. \"25 cm/d\"");
   cmd->add_option("--pore-connectivity", o->pore_connectivity, "Mualem pore-connectivity exponent l")
       ->capture_default_str()
       ->each([o](const std::string&) { o->pore_connectivity_given = true; });
@@ -198,7 +212,8 @@ void add_layer_command(CLI::App& soil) {
       "Example:\n"
       "  wetfront soil layer --name topsoil --top \"0 cm\" --bottom \"30 cm\" \\\n"
       "      --retention examples/soil-data/retention-points.csv \\\n"
-      "      --permeameter examples/soil-data/well-permeameter.csv --well-radius \"3 cm\" --reservoir-area \"35.4 cm2\"");
+      "      --permeameter examples/soil-data/well-permeameter.csv --well-radius \"3 cm\" --reservoir-area \"35.4 "
+      "cm2\"");
   cmd->callback([o] { run_layer(*o); });
 }
 

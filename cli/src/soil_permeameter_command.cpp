@@ -5,10 +5,12 @@
 #include <fmt/format.h>
 
 #include "command_output.hpp"
-#include "field_analysis.hpp"
+#include "wetfront/site/field_analysis.hpp"
 #include "soil_commands.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 
 void add_permeameter_command(CLI::App& soil) {
   struct Options {
@@ -17,7 +19,8 @@ void add_permeameter_command(CLI::App& soil) {
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand(
-      "permeameter", "Field-saturated conductivity from constant-head well permeameter readings at one or two water depths");
+      "permeameter",
+      "Field-saturated conductivity from constant-head well permeameter readings at one or two water depths");
   cmd->add_option("FILE", options->inputs.file,
                   "CSV with columns 'water depth [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)")
       ->required();

@@ -5,11 +5,13 @@
 #include <fmt/format.h>
 
 #include "command_output.hpp"
-#include "input_error.hpp"
+#include "wetfront/base/input_error.hpp"
 #include "soil_commands.hpp"
 #include "wetfront/soils/texture_classes.hpp"
 
 namespace wetfront::cli {
+
+using namespace wetfront::site;  // the application library these commands drive
 
 void add_texture_command(CLI::App& soil) {
   struct Options {
@@ -35,8 +37,8 @@ void add_texture_command(CLI::App& soil) {
     } else {
       try {
         add(options->name, soils::texture_class_parameters(options->name));
-      } catch (const std::invalid_argument& error) {
-        throw InputError(fmt::format("texture class: {}", error.what()));
+      } catch (const base::InputError& error) {
+        throw base::InputError(fmt::format("texture class: {}", error.what()));
       }
     }
     emit_report({table}, {}, options->csv_path);

@@ -9,6 +9,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -17,27 +18,24 @@ namespace {
 void check_stages(const GrowthStageLengths& s, double planting_day, const char* who) {
   auto length = [&](double v, const char* name) {
     if (!(v >= 0 && std::isfinite(v)))
-      throw std::invalid_argument(fmt::format("{}: {} stage length {:g} d; expected a length >= 0 days", who, name, v));
+      throw base::InputError(fmt::format("{}: {} stage length {:g} d; expected a length >= 0 days", who, name, v));
   };
   length(s.initial_days, "initial");
   length(s.development_days, "development");
   length(s.mid_season_days, "mid-season");
   length(s.late_season_days, "late season");
   if (!(s.season_days() > 0))
-    throw std::invalid_argument(fmt::format("{}: the four stages add up to zero days; expected a season", who));
-  if (!std::isfinite(planting_day))
-    throw std::invalid_argument(fmt::format("{}: planting day must be finite", who));
+    throw base::InputError(fmt::format("{}: the four stages add up to zero days; expected a season", who));
+  if (!std::isfinite(planting_day)) throw base::InputError(fmt::format("{}: planting day must be finite", who));
 }
 
 void check_coefficient(double v, const char* who, const char* name) {
   if (!(v >= 0 && v <= 2))
-    throw std::invalid_argument(fmt::format("{}: {} = {:g}; expected a coefficient from 0 to 2", who, name, v));
+    throw base::InputError(fmt::format("{}: {} = {:g}; expected a coefficient from 0 to 2", who, name, v));
 }
 
 // Fraction of the way through a stage of given length starting at `from`; 1 for a zero-length stage.
-double fraction(double day, double from, double length) {
-  return length > 0 ? (day - from) / length : 1.0;
-}
+double fraction(double day, double from, double length) { return length > 0 ? (day - from) / length : 1.0; }
 
 }  // namespace
 

@@ -5,6 +5,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -18,17 +19,17 @@ double DatedTable::at(double day) const {
 }
 
 void check_dated_table(const DatedTable& t, double lowest, double highest) {
-  if (t.days.empty()) throw std::invalid_argument(fmt::format("{} table: no entries; expected at least one", t.quantity));
+  if (t.days.empty()) throw base::InputError(fmt::format("{} table: no entries; expected at least one", t.quantity));
   if (t.days.size() != t.values.size())
-    throw std::invalid_argument(fmt::format("{} table: {} dates but {} values", t.quantity, t.days.size(), t.values.size()));
+    throw base::InputError(fmt::format("{} table: {} dates but {} values", t.quantity, t.days.size(), t.values.size()));
   for (std::size_t i = 0; i < t.days.size(); ++i) {
     if (!std::isfinite(t.days[i]) || (i > 0 && !(t.days[i] > t.days[i - 1])))
-      throw std::invalid_argument(
+      throw base::InputError(
           fmt::format("{} table, entry {}: day {:g} does not come after the previous entry; expected increasing dates",
                       t.quantity, i + 1, t.days[i]));
     if (!(t.values[i] >= lowest && t.values[i] <= highest))
-      throw std::invalid_argument(fmt::format("{} table, entry {}: value {:g}; expected {:g} to {:g}", t.quantity, i + 1,
-                                              t.values[i], lowest, highest));
+      throw base::InputError(fmt::format("{} table, entry {}: value {:g}; expected {:g} to {:g}", t.quantity, i + 1,
+                                         t.values[i], lowest, highest));
   }
 }
 

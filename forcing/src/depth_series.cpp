@@ -6,7 +6,7 @@
 
 #include <fmt/format.h>
 
-#include "wetfront/forcing/input_error.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -16,10 +16,13 @@ namespace {
 constexpr double time_tolerance_days = 1e-8;
 
 std::string when(const DepthSeries& s, double day) {
-  return fmt::format("{} (day {:g})", format_timestamp(time_after(s.run_start, day)), day);
+  return fmt::format("{} (day {:g})", base::format_timestamp(base::time_after(s.run_start, day)), day);
 }
 
-InputLocation at_line(const DepthSeries& s, int line) { return {s.source_file, line, {}}; }
+// An input error at a line of the series' file.
+base::InputError error_at_line(const DepthSeries& s, int line, const std::string& problem) {
+  return base::InputError(s.source_file, static_cast<std::size_t>(std::max(line, 0)), "", problem);
+}
 
 }  // namespace
 
@@ -27,27 +30,29 @@ void check_depth_series(const DepthSeries& s) {
   for (std::size_t i = 0; i < s.intervals.size(); ++i) {
     const auto& r = s.intervals[i];
     if (!std::isfinite(r.start_day) || !std::isfinite(r.end_day))
-      throw InputError(at_line(s, r.source_line), fmt::format("{}: interval times must be finite", s.quantity));
+      throw error_at_line(s, r.source_line, fmt::format("{}: interval times must be finite", s.quantity));
     if (!(r.end_day > r.start_day))
-      throw InputError(at_line(s, r.source_line),
-                       fmt::format("{}: interval ends at {} which is not after its start {}; expected end after start",
-                                   s.quantity, when(s, r.end_day), when(s, r.start_day)));
+      throw error_at_line(
+          s, r.source_line,
+          fmt::format("{}: interval ends at {} which is not after its start {}; expected end after start", s.quantity,
+                      when(s, r.end_day), when(s, r.start_day)));
     if (r.depth_cm && (!std::isfinite(*r.depth_cm) || *r.depth_cm < 0))
-      throw InputError(at_line(s, r.source_line),
-                       fmt::format("{}: depth {:g} cm is negative or not a number; expected a depth >= 0",
-                                   s.quantity, *r.depth_cm));
+      throw error_at_line(
+          s, r.source_line,
+          fmt::format("{}: depth {:g} cm is negative or not a number; expected a depth >= 0", s.quantity, *r.depth_cm));
     if (i > 0 && r.start_day < s.intervals[i - 1].end_day - time_tolerance_days)
-      throw InputError(at_line(s, r.source_line),
-                       fmt::format("{}: interval starting {} overlaps or comes before the previous one (line {}, ending {}); "
-                                   "expected intervals in time order without overlap",
-                                   s.quantity, when(s, r.start_day), s.intervals[i - 1].source_line,
-                                   when(s, s.intervals[i - 1].end_day)));
+      throw error_at_line(
+          s, r.source_line,
+          fmt::format("{}: interval starting {} overlaps or comes before the previous one (line {}, ending {}); "
+                      "expected intervals in time order without overlap",
+                      s.quantity, when(s, r.start_day), s.intervals[i - 1].source_line,
+                      when(s, s.intervals[i - 1].end_day)));
   }
 }
 
 RateConversion depth_series_to_rate(const DepthSeries& s, double run_length_days, GapPolicy policy) {
   check_depth_series(s);
-  if (!(run_length_days > 0)) throw std::invalid_argument("depth_series_to_rate: run length must be positive");
+  if (!(run_length_days > 0)) throw base::InputError("depth_series_to_rate: run length must be positive");
 
   RateConversion out;
   std::vector<double> starts;
@@ -61,15 +66,15 @@ RateConversion depth_series_to_rate(const DepthSeries& s, double run_length_days
     rates.push_back(rate);
   };
 
-  double t = 0;        // covered up to here
+  double t = 0;  // covered up to here
   bool stopped = false;
   // Handles a gap [from, to); returns false when the series stops there.
   auto gap = [&](double from, double to, int line, const char* what) {
     if (policy == GapPolicy::error)
-      throw InputError(at_line(s, line),
-                       fmt::format("{}: {} from {} to {}; the run needs {} for every interval "
-                                   "(or choose to fill gaps with zero or to stop the run at the first gap)",
-                                   s.quantity, what, when(s, from), when(s, to), s.quantity));
+      throw error_at_line(s, line,
+                          fmt::format("{}: {} from {} to {}; the run needs {} for every interval "
+                                      "(or choose to fill gaps with zero or to stop the run at the first gap)",
+                                      s.quantity, what, when(s, from), when(s, to), s.quantity));
     out.gaps.push_back({from, to});
     if (policy == GapPolicy::stop_run_at_gap) {
       stopped = true;
@@ -96,8 +101,10 @@ RateConversion depth_series_to_rate(const DepthSeries& s, double run_length_days
     const int last_line = s.intervals.empty() ? 0 : s.intervals.back().source_line;
     gap(t, run_length_days, last_line, "no record after the last one");
   }
-  if (!stopped) t = run_length_days;
-  else t = out.gaps.back().start_day;
+  if (!stopped)
+    t = run_length_days;
+  else
+    t = out.gaps.back().start_day;
 
   if (starts.empty()) {
     starts.push_back(0.0);

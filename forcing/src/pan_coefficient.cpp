@@ -7,6 +7,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -35,7 +36,7 @@ constexpr std::array<std::array<std::array<std::array<double, 3>, 4>, 4>, 2> kTa
 
 void require_in(double value, double lo, double hi, const char* name, const char* unit) {
   if (!(value >= lo && value <= hi))
-    throw std::invalid_argument(fmt::format(
+    throw base::InputError(fmt::format(
         "pan coefficient regression: {} = {:g} {} is outside the range the equation was fitted for ({:g} to {:g} {}); "
         "use the table or a measured pan coefficient",
         name, value, unit, lo, hi, unit));
@@ -44,7 +45,7 @@ void require_in(double value, double lo, double hi, const char* name, const char
 }  // namespace
 
 WindClass wind_class_of(double u2) {
-  if (!(u2 >= 0)) throw std::invalid_argument(fmt::format("wind speed {:g} m/s: expected >= 0", u2));
+  if (!(u2 >= 0)) throw base::InputError(fmt::format("wind speed {:g} m/s: expected >= 0", u2));
   if (u2 < 2) return WindClass::light;
   if (u2 <= 5) return WindClass::moderate;
   if (u2 <= 8) return WindClass::strong;
@@ -53,14 +54,14 @@ WindClass wind_class_of(double u2) {
 
 HumidityClass humidity_class_of(double rh) {
   if (!(rh >= 0 && rh <= 100))
-    throw std::invalid_argument(fmt::format("mean relative humidity {:g} %: expected 0 to 100", rh));
+    throw base::InputError(fmt::format("mean relative humidity {:g} %: expected 0 to 100", rh));
   if (rh < 40) return HumidityClass::low;
   if (rh <= 70) return HumidityClass::medium;
   return HumidityClass::high;
 }
 
 FetchClass fetch_class_of(double fetch_m) {
-  if (!(fetch_m > 0)) throw std::invalid_argument(fmt::format("fetch {:g} m: expected > 0", fetch_m));
+  if (!(fetch_m > 0)) throw base::InputError(fmt::format("fetch {:g} m: expected > 0", fetch_m));
   // Nearest tabulated distance on a log scale: boundaries at 10^0.5, 10^1.5, 10^2.5 m.
   const double decade = std::log10(fetch_m);
   if (decade < 0.5) return FetchClass::m1;
@@ -106,13 +107,13 @@ double pan_coefficient(const PanCoefficientChoice& choice) {
   switch (choice.method) {
     case PanCoefficientChoice::Method::user_value:
       if (!(choice.user_value > 0 && choice.user_value <= 1.2))
-        throw std::invalid_argument(
+        throw base::InputError(
             fmt::format("pan coefficient {:g}: expected a value above 0 and at most 1.2", choice.user_value));
       return choice.user_value;
     case PanCoefficientChoice::Method::table: return class_a_pan_coefficient_from_table(choice.site);
     case PanCoefficientChoice::Method::regression: return class_a_pan_coefficient_from_regression(choice.site);
   }
-  throw std::invalid_argument("pan coefficient: unknown method");
+  throw base::InputError("pan coefficient: unknown method");
 }
 
 std::string_view to_string(PanSurroundings s) {

@@ -7,7 +7,7 @@
 
 #include <fmt/format.h>
 
-#include "wetfront/forcing/input_error.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -30,31 +30,34 @@ bool in_operating_range(double level_mm, const PanGeometry& g) {
 }  // namespace
 
 std::vector<PanInterval> pan_intervals_from_readings(std::span<const PanReading> readings, const PanGeometry& g,
-                                                      const std::string& file) {
+                                                     const std::string& file) {
   if (!(g.rim_height_mm > 0) || !(g.operating_top_below_rim_mm >= 0) ||
       !(g.operating_bottom_below_rim_mm > g.operating_top_below_rim_mm) ||
       !(g.operating_bottom_below_rim_mm < g.rim_height_mm))
-    throw std::invalid_argument(fmt::format(
-        "pan geometry: expected rim height > 0 and 0 <= operating top < operating bottom < rim height "
-        "(got rim {:g} mm, top {:g} mm and bottom {:g} mm below the rim)",
-        g.rim_height_mm, g.operating_top_below_rim_mm, g.operating_bottom_below_rim_mm));
+    throw base::InputError(
+        fmt::format("pan geometry: expected rim height > 0 and 0 <= operating top < operating bottom < rim height "
+                    "(got rim {:g} mm, top {:g} mm and bottom {:g} mm below the rim)",
+                    g.rim_height_mm, g.operating_top_below_rim_mm, g.operating_bottom_below_rim_mm));
 
   for (const auto& r : readings) {
-    if (!std::isfinite(r.time_day)) throw InputError({file, r.source_line, "time"}, "time must be finite");
+    if (!std::isfinite(r.time_day)) throw base::InputError(file, r.source_line, "time", "time must be finite");
     if (!std::isfinite(r.level_mm) || r.level_mm < 0 || r.level_mm > g.rim_height_mm)
-      throw InputError({file, r.source_line, "level"},
-                       fmt::format("water level {:g} mm is outside the pan; expected 0 to {:g} mm above the pan floor",
-                                   r.level_mm, g.rim_height_mm));
+      throw base::InputError(
+          file, r.source_line, "level",
+          fmt::format("water level {:g} mm is outside the pan; expected 0 to {:g} mm above the pan floor", r.level_mm,
+                      g.rim_height_mm));
     if (!std::isfinite(r.rain_since_previous_mm) || r.rain_since_previous_mm < 0)
-      throw InputError({file, r.source_line, "rain"},
-                       fmt::format("rain {:g} mm is negative or not a number; expected a depth >= 0", r.rain_since_previous_mm));
+      throw base::InputError(
+          file, r.source_line, "rain",
+          fmt::format("rain {:g} mm is negative or not a number; expected a depth >= 0", r.rain_since_previous_mm));
   }
 
   std::vector<PanInterval> intervals;
   if (readings.empty()) return intervals;
   if (readings.front().kind == PanReadingKind::before_refill)
-    throw InputError({file, readings.front().source_line, "event"},
-                     "the record starts with before_refill; expected the first reading to be 'reading' or 'after_refill'");
+    throw base::InputError(
+        file, readings.front().source_line, "event",
+        "the record starts with before_refill; expected the first reading to be 'reading' or 'after_refill'");
 
   const PanReading* open = &readings.front();  // the reading that starts the current interval
   for (std::size_t i = 1; i < readings.size(); ++i) {
@@ -62,26 +65,29 @@ std::vector<PanInterval> pan_intervals_from_readings(std::span<const PanReading>
     const PanReading& previous = readings[i - 1];
     if (previous.kind == PanReadingKind::before_refill) {
       if (r.kind != PanReadingKind::after_refill)
-        throw InputError({file, r.source_line, "event"},
-                         fmt::format("'{}' follows before_refill (line {}); expected the after_refill reading next",
-                                     kind_name(r.kind), previous.source_line));
+        throw base::InputError(
+            file, r.source_line, "event",
+            fmt::format("'{}' follows before_refill (line {}); expected the after_refill reading next",
+                        kind_name(r.kind), previous.source_line));
       if (r.time_day < previous.time_day)
-        throw InputError({file, r.source_line, "time"}, "after_refill is earlier than its before_refill reading");
+        throw base::InputError(file, r.source_line, "time", "after_refill is earlier than its before_refill reading");
       if (r.rain_since_previous_mm > 0)
-        throw InputError({file, r.source_line, "rain"},
-                         "after_refill carries rain; rain belongs on the reading that closes an interval, "
-                         "expected 0 or empty here");
+        throw base::InputError(file, r.source_line, "rain",
+                               "after_refill carries rain; rain belongs on the reading that closes an interval, "
+                               "expected 0 or empty here");
       open = &r;
       continue;
     }
     if (r.kind == PanReadingKind::after_refill)
-      throw InputError({file, r.source_line, "event"},
-                       fmt::format("after_refill follows '{}' (line {}); expected a before_refill reading just before it",
-                                   kind_name(previous.kind), previous.source_line));
+      throw base::InputError(
+          file, r.source_line, "event",
+          fmt::format("after_refill follows '{}' (line {}); expected a before_refill reading just before it",
+                      kind_name(previous.kind), previous.source_line));
     if (!(r.time_day > open->time_day))
-      throw InputError({file, r.source_line, "time"},
-                       fmt::format("reading is not later than the previous one (line {}); expected times to increase",
-                                   open->source_line));
+      throw base::InputError(
+          file, r.source_line, "time",
+          fmt::format("reading is not later than the previous one (line {}); expected times to increase",
+                      open->source_line));
 
     PanInterval iv;
     iv.start_day = open->time_day;
@@ -99,13 +105,13 @@ std::vector<PanInterval> pan_intervals_from_readings(std::span<const PanReading>
     open = &r;
   }
   if (readings.back().kind == PanReadingKind::before_refill)
-    throw InputError({file, readings.back().source_line, "event"},
-                     "the record ends with before_refill; expected the after_refill reading to follow");
+    throw base::InputError(file, readings.back().source_line, "event",
+                           "the record ends with before_refill; expected the after_refill reading to follow");
   return intervals;
 }
 
 DepthSeries pan_evaporation_depths(std::span<const PanInterval> intervals, const PanIntervalUse& use,
-                                   TimePoint run_start, const std::string& file) {
+                                   base::TimePoint run_start, const std::string& file) {
   DepthSeries out;
   out.quantity = "pan evaporation";
   out.source_file = file;
@@ -117,21 +123,23 @@ DepthSeries pan_evaporation_depths(std::span<const PanInterval> intervals, const
     auto apply = [&](bool flagged, PanIntervalUse::Flagged choice, const char* what) {
       if (!flagged) return;
       if (choice == PanIntervalUse::Flagged::error)
-        throw InputError({file, iv.end_line, {}},
-                         fmt::format("pan interval from {} to {} (lines {} to {}): {}; "
-                                     "expected a clean interval, or choose to use it or treat it as missing",
-                                     format_timestamp(time_after(run_start, iv.start_day)),
-                                     format_timestamp(time_after(run_start, iv.end_day)), iv.start_line, iv.end_line,
-                                     what));
+        throw base::InputError(file, iv.end_line, "",
+                               fmt::format("pan interval from {} to {} (lines {} to {}): {}; "
+                                           "expected a clean interval, or choose to use it or treat it as missing",
+                                           base::format_timestamp(base::time_after(run_start, iv.start_day)),
+                                           base::format_timestamp(base::time_after(run_start, iv.end_day)),
+                                           iv.start_line, iv.end_line, what));
       if (choice == PanIntervalUse::Flagged::treat_as_missing) d.depth_cm.reset();
     };
     apply(iv.overflow_possible, use.overflow, "rain may have made the pan overflow");
     apply(iv.outside_operating_range, use.outside_operating_range, "water level outside the operating range");
-    apply(iv.level_rose_beyond_rain, use.level_rose_beyond_rain,
-          fmt::format("level rose {:g} mm more than the rain caught (negative evaporation)", -iv.evaporation_mm).c_str());
+    apply(
+        iv.level_rose_beyond_rain, use.level_rose_beyond_rain,
+        fmt::format("level rose {:g} mm more than the rain caught (negative evaporation)", -iv.evaporation_mm).c_str());
     if (d.depth_cm && *d.depth_cm < 0)
-      throw InputError({file, iv.end_line, {}},
-                       "negative pan evaporation cannot be used as a depth; choose to treat such intervals as missing");
+      throw base::InputError(
+          file, iv.end_line, "",
+          "negative pan evaporation cannot be used as a depth; choose to treat such intervals as missing");
     out.intervals.push_back(d);
   }
   return out;

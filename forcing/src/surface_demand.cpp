@@ -11,6 +11,7 @@
 #include <variant>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -21,15 +22,15 @@ constexpr double time_tolerance_days = 1e-8;
 void check_series(const CoveredSeries& c, const std::string& name) {
   const auto& s = c.series;
   if (s.start_days.empty() || s.start_days.size() != s.values.size())
-    throw std::invalid_argument(fmt::format("{}: expected as many step values as start days, and at least one", name));
+    throw base::InputError(fmt::format("{}: expected as many step values as start days, and at least one", name));
   if (s.start_days.front() > time_tolerance_days)
-    throw std::invalid_argument(fmt::format("{}: starts at day {:g}; expected it to cover the run from day 0", name,
-                                            s.start_days.front()));
+    throw base::InputError(
+        fmt::format("{}: starts at day {:g}; expected it to cover the run from day 0", name, s.start_days.front()));
   for (std::size_t i = 0; i < s.values.size(); ++i) {
     if (i > 0 && !(s.start_days[i] > s.start_days[i - 1]))
-      throw std::invalid_argument(fmt::format("{}: step {} does not start after the previous one", name, i + 1));
+      throw base::InputError(fmt::format("{}: step {} does not start after the previous one", name, i + 1));
     if (!(s.values[i] >= 0 && std::isfinite(s.values[i])))
-      throw std::invalid_argument(fmt::format("{}: step {} has rate {:g} cm/d; expected >= 0", name, i + 1, s.values[i]));
+      throw base::InputError(fmt::format("{}: step {} has rate {:g} cm/d; expected >= 0", name, i + 1, s.values[i]));
   }
 }
 
@@ -83,9 +84,9 @@ std::vector<double> breakpoints(const SurfaceDemandInputs& in, double end_day) {
 
 SurfaceDemand surface_demand(const SurfaceDemandInputs& in) {
   if (!(in.run_length_days > 0))
-    throw std::invalid_argument(fmt::format("surface demand: run length {:g} d; expected > 0", in.run_length_days));
+    throw base::InputError(fmt::format("surface demand: run length {:g} d; expected > 0", in.run_length_days));
   if (!(in.max_step_days > 0))
-    throw std::invalid_argument(fmt::format("surface demand: longest step {:g} d; expected > 0", in.max_step_days));
+    throw base::InputError(fmt::format("surface demand: longest step {:g} d; expected > 0", in.max_step_days));
   double end_day = in.run_length_days;
   for (std::size_t i = 0; i < in.water_inputs.size(); ++i) {
     check_series(in.water_inputs[i], fmt::format("water input {}", i + 1));
@@ -94,12 +95,12 @@ SurfaceDemand surface_demand(const SurfaceDemandInputs& in) {
   check_series(in.pan_evaporation, "pan evaporation");
   end_day = std::min(end_day, in.pan_evaporation.end_day);
   if (!(end_day > 0))
-    throw std::invalid_argument("surface demand: an input series stops at day 0; there is no forcing for the run");
+    throw base::InputError("surface demand: an input series stops at day 0; there is no forcing for the run");
 
   if (const auto* ref = std::get_if<CropFromReference>(&in.crop)) {
     check_crop_curve(ref->curve);
     if (!(ref->pan_coefficient > 0 && ref->pan_coefficient <= 1.2))
-      throw std::invalid_argument(
+      throw base::InputError(
           fmt::format("surface demand: pan coefficient {:g}; expected above 0 and at most 1.2", ref->pan_coefficient));
   } else {
     check_pan_to_crop_factors(std::get<PanToCropFactors>(in.crop));
@@ -107,8 +108,8 @@ SurfaceDemand surface_demand(const SurfaceDemandInputs& in) {
   check_dated_table(in.split.leaf_area_index, 0.0, 20.0);
   if (in.split.method == CanopySplit::Method::soil_cover) check_dated_table(in.split.soil_cover, 0.0, 1.0);
   if (in.split.method == CanopySplit::Method::leaf_area_index && !(in.split.extinction_coefficient > 0))
-    throw std::invalid_argument(fmt::format("surface demand: extinction coefficient {:g}; expected > 0",
-                                            in.split.extinction_coefficient));
+    throw base::InputError(
+        fmt::format("surface demand: extinction coefficient {:g}; expected > 0", in.split.extinction_coefficient));
   check_dated_table(in.root_depth_cm, 0.0, 1e4);
 
   const std::vector<double> cuts = breakpoints(in, end_day);
@@ -126,8 +127,8 @@ SurfaceDemand surface_demand(const SurfaceDemandInputs& in) {
     const EvapotranspirationSplit split = in.split.method == CanopySplit::Method::leaf_area_index
                                               ? split_by_leaf_area(crop_et, lai, in.split.extinction_coefficient)
                                               : split_by_soil_cover(crop_et, in.split.soil_cover.at(mid));
-    for (StepSeries* s : {&out.water_input_cm_per_day, &out.potential_evaporation_cm_per_day,
-                          &out.potential_transpiration_cm_per_day, &out.root_depth_cm, &out.leaf_area_index})
+    for (base::StepSeries* s : {&out.water_input_cm_per_day, &out.potential_evaporation_cm_per_day,
+                                &out.potential_transpiration_cm_per_day, &out.root_depth_cm, &out.leaf_area_index})
       s->start_days.push_back(a);
     out.water_input_cm_per_day.values.push_back(water);
     out.potential_evaporation_cm_per_day.values.push_back(split.soil_evaporation);

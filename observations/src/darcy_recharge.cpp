@@ -6,6 +6,7 @@
 #include <fmt/format.h>
 
 #include "wetfront/observations/recharge_estimates.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
@@ -13,8 +14,8 @@ double darcy_flux_cm_per_d(const soils::HydraulicModel& soil, double upper_depth
                            double lower_depth_cm, double lower_head_cm) {
   const double spacing = lower_depth_cm - upper_depth_cm;
   if (!(spacing > 0))
-    throw std::invalid_argument(fmt::format("the lower tensiometer ({} cm) must be deeper than the upper ({} cm)",
-                                            lower_depth_cm, upper_depth_cm));
+    throw base::InputError(fmt::format("the lower tensiometer ({} cm) must be deeper than the upper ({} cm)",
+                                       lower_depth_cm, upper_depth_cm));
   const double mean_head = 0.5 * (upper_head_cm + lower_head_cm);
   const double head_gradient = (lower_head_cm - upper_head_cm) / spacing;
   return soils::conductivity(soil, mean_head) * (1.0 - head_gradient);
@@ -22,15 +23,14 @@ double darcy_flux_cm_per_d(const soils::HydraulicModel& soil, double upper_depth
 
 std::vector<IntervalRecharge> darcy_recharge(const TensiometerPair& pair, std::span<const PairHeads> visits) {
   auto flux_at = [&pair](const PairHeads& v) {
-    return darcy_flux_cm_per_d(pair.soil, pair.upper_depth_cm, v.upper_head_cm, pair.lower_depth_cm,
-                               v.lower_head_cm);
+    return darcy_flux_cm_per_d(pair.soil, pair.upper_depth_cm, v.upper_head_cm, pair.lower_depth_cm, v.lower_head_cm);
   };
   std::vector<IntervalRecharge> rows;
   for (std::size_t i = 1; i < visits.size(); ++i) {
     const PairHeads& from = visits[i - 1];
     const PairHeads& to = visits[i];
     if (!(to.day > from.day))
-      throw std::invalid_argument(fmt::format("tensiometer visits out of order: day {} follows day {}", to.day, from.day));
+      throw base::InputError(fmt::format("tensiometer visits out of order: day {} follows day {}", to.day, from.day));
     IntervalRecharge row;
     row.start_day = from.day;
     row.end_day = to.day;

@@ -6,13 +6,13 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
 FitMetrics fit_metrics(std::span<const double> simulated, std::span<const double> observed) {
   if (simulated.size() != observed.size())
-    throw std::invalid_argument(fmt::format("{} simulated values for {} observations",
-                                            simulated.size(), observed.size()));
+    throw base::InputError(fmt::format("{} simulated values for {} observations", simulated.size(), observed.size()));
   constexpr double nan = std::numeric_limits<double>::quiet_NaN();
   FitMetrics m;
   m.count = static_cast<int>(observed.size());

@@ -5,16 +5,17 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
 namespace {
 
 void check_axis(const std::vector<double>& axis, const char* name) {
-  if (axis.empty()) throw std::invalid_argument(fmt::format("simulated profiles have no {}", name));
+  if (axis.empty()) throw base::InputError(fmt::format("simulated profiles have no {}", name));
   for (std::size_t i = 1; i < axis.size(); ++i)
     if (!(axis[i] > axis[i - 1]))
-      throw std::invalid_argument(
+      throw base::InputError(
           fmt::format("simulated {} must increase strictly: {} follows {}", name, axis[i], axis[i - 1]));
 }
 
@@ -29,8 +30,7 @@ std::optional<Bracket> bracket(const std::vector<double>& axis, double x) {
   if (x < axis.front() || x > axis.back()) return std::nullopt;
   if (axis.size() == 1) return Bracket{0, 0.0};
   const auto upper = std::upper_bound(axis.begin(), axis.end(), x);
-  const std::size_t i = upper == axis.end() ? axis.size() - 2
-                                            : static_cast<std::size_t>(upper - axis.begin()) - 1;
+  const std::size_t i = upper == axis.end() ? axis.size() - 2 : static_cast<std::size_t>(upper - axis.begin()) - 1;
   return Bracket{i, (x - axis[i]) / (axis[i + 1] - axis[i])};
 }
 
@@ -45,13 +45,12 @@ void check_profiles(const SimulatedProfiles& profiles) {
   check_axis(profiles.times_day, "output times");
   check_axis(profiles.depths_cm, "cell depths");
   if (profiles.values.size() != profiles.times_day.size())
-    throw std::invalid_argument(fmt::format("{} simulated profiles for {} output times",
-                                            profiles.values.size(), profiles.times_day.size()));
+    throw base::InputError(
+        fmt::format("{} simulated profiles for {} output times", profiles.values.size(), profiles.times_day.size()));
   for (std::size_t t = 0; t < profiles.values.size(); ++t)
     if (profiles.values[t].size() != profiles.depths_cm.size())
-      throw std::invalid_argument(fmt::format("simulated profile at day {} has {} values for {} cells",
-                                              profiles.times_day[t], profiles.values[t].size(),
-                                              profiles.depths_cm.size()));
+      throw base::InputError(fmt::format("simulated profile at day {} has {} values for {} cells",
+                                         profiles.times_day[t], profiles.values[t].size(), profiles.depths_cm.size()));
 }
 
 std::optional<double> simulated_value_at(const SimulatedProfiles& profiles, double day, double depth_cm) {

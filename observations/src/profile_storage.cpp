@@ -4,21 +4,21 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
 double profile_storage_cm(std::span<const double> depths_cm, std::span<const double> water_content) {
   if (depths_cm.size() != water_content.size())
-    throw std::invalid_argument(fmt::format("{} probe depths for {} water contents", depths_cm.size(),
-                                            water_content.size()));
-  if (depths_cm.size() < 2)
-    throw std::invalid_argument("profile storage needs readings at two depths at least");
+    throw base::InputError(
+        fmt::format("{} probe depths for {} water contents", depths_cm.size(), water_content.size()));
+  if (depths_cm.size() < 2) throw base::InputError("profile storage needs readings at two depths at least");
   double storage = 0;
   for (std::size_t i = 1; i < depths_cm.size(); ++i) {
     const double thickness = depths_cm[i] - depths_cm[i - 1];
     if (!(thickness > 0))
-      throw std::invalid_argument(fmt::format("probe depths must increase: {} cm follows {} cm",
-                                              depths_cm[i], depths_cm[i - 1]));
+      throw base::InputError(
+          fmt::format("probe depths must increase: {} cm follows {} cm", depths_cm[i], depths_cm[i - 1]));
     storage += 0.5 * (water_content[i] + water_content[i - 1]) * thickness;
   }
   return storage;
@@ -30,11 +30,10 @@ std::vector<StorageChange> storage_changes(std::span<const ProbeProfile> visits)
     const ProbeProfile& from = visits[v - 1];
     const ProbeProfile& to = visits[v];
     if (!(to.day > from.day))
-      throw std::invalid_argument(fmt::format("probe visits out of order: day {} follows day {}", to.day, from.day));
+      throw base::InputError(fmt::format("probe visits out of order: day {} follows day {}", to.day, from.day));
     if (to.depths_cm != from.depths_cm)
-      throw std::invalid_argument(fmt::format(
-          "probe visits on day {} and day {} use different depths; their storages do not compare",
-          from.day, to.day));
+      throw base::InputError(fmt::format(
+          "probe visits on day {} and day {} use different depths; their storages do not compare", from.day, to.day));
     StorageChange row;
     row.start_day = from.day;
     row.end_day = to.day;

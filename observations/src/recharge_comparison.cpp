@@ -7,6 +7,7 @@
 #include <fmt/format.h>
 
 #include "wetfront/observations/recharge_estimates.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
@@ -28,15 +29,18 @@ std::vector<std::string> reasons() {
 
 EstimateAgreement compare_recharge_estimates(double first_cm, double second_cm, ComparisonRule rule) {
   if (!(rule.factor > 1) || !(rule.negligible_cm >= 0))
-    throw std::invalid_argument(fmt::format(
-        "comparison factor {} must exceed 1 and the negligible amount {} cm must not be negative",
-        rule.factor, rule.negligible_cm));
+    throw base::InputError(
+        fmt::format("comparison factor {} must exceed 1 and the negligible amount {} cm must not be negative",
+                    rule.factor, rule.negligible_cm));
   EstimateAgreement result;
   const double larger = std::max(std::abs(first_cm), std::abs(second_cm));
   const double smaller = std::min(std::abs(first_cm), std::abs(second_cm));
-  if (larger == 0) result.ratio = std::numeric_limits<double>::quiet_NaN();
-  else if (smaller == 0) result.ratio = std::numeric_limits<double>::infinity();
-  else result.ratio = larger / smaller;
+  if (larger == 0)
+    result.ratio = std::numeric_limits<double>::quiet_NaN();
+  else if (smaller == 0)
+    result.ratio = std::numeric_limits<double>::infinity();
+  else
+    result.ratio = larger / smaller;
 
   if (larger <= rule.negligible_cm) return result;
   const bool opposite_signs = (first_cm > 0 && second_cm < 0) || (first_cm < 0 && second_cm > 0);

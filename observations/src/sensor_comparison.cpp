@@ -3,8 +3,8 @@
 
 namespace wetfront::observations {
 
-ComparisonReport compare_with_simulation(std::span<const SensorSeries> sensors,
-                                         const SimulatedProfiles& profiles, ComparisonOptions options) {
+ComparisonReport compare_with_simulation(std::span<const SensorSeries> sensors, const SimulatedProfiles& profiles,
+                                         ComparisonOptions options) {
   check_profiles(profiles);
   ComparisonReport report;
   std::vector<double> all_simulated, all_observed;

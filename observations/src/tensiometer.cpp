@@ -4,6 +4,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
@@ -14,7 +15,7 @@ double tension_in_kilopascal(Tension tension) {
     case TensionUnit::millibar: return tension.value / 10.0;
     case TensionUnit::cm_of_water: return tension.value / kCmOfWaterPerKilopascal;
   }
-  throw std::invalid_argument("unknown tension unit");
+  throw base::InputError("unknown tension unit");
 }
 
 double tension_as_head_cm(Tension tension) {
@@ -24,14 +25,13 @@ double tension_as_head_cm(Tension tension) {
 
 double cup_pressure_head_cm(const TensiometerInstallation& installation, Tension tension) {
   if (installation.cup_depth_cm < 0)
-    throw std::invalid_argument(
-        fmt::format("tensiometer cup depth {} cm is above the surface; depths are positive downward",
-                    installation.cup_depth_cm));
+    throw base::InputError(fmt::format("tensiometer cup depth {} cm is above the surface; depths are positive downward",
+                                       installation.cup_depth_cm));
   const double head_as_read = -tension_as_head_cm(tension);
   if (installation.read_at == ReadingPoint::transducer_at_cup) return head_as_read;
   if (installation.gauge_height_above_ground_cm < 0)
-    throw std::invalid_argument(fmt::format("gauge height {} cm above ground must not be negative",
-                                            installation.gauge_height_above_ground_cm));
+    throw base::InputError(
+        fmt::format("gauge height {} cm above ground must not be negative", installation.gauge_height_above_ground_cm));
   // The water column from the gauge down to the cup adds its length to the head at the cup.
   return head_as_read + installation.gauge_height_above_ground_cm + installation.cup_depth_cm;
 }
@@ -47,8 +47,8 @@ CupHeadSeries cup_pressure_heads(const TensiometerInstallation& installation,
   for (const TensiometerReading& reading : readings) {
     const bool reliable = within_working_limit(reading.tension, limit);
     if (!reliable) ++series.unreliable_count;
-    series.heads.push_back({reading.day, installation.cup_depth_cm,
-                            cup_pressure_head_cm(installation, reading.tension), reliable});
+    series.heads.push_back(
+        {reading.day, installation.cup_depth_cm, cup_pressure_head_cm(installation, reading.tension), reliable});
   }
   return series;
 }

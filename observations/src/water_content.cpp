@@ -4,21 +4,20 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
 double topp_water_content(double apparent_permittivity) {
   const double ka = apparent_permittivity;
   if (!(ka >= 1.0))
-    throw std::domain_error(fmt::format(
-        "apparent permittivity {} is below 1 (vacuum); check the probe output", ka));
+    throw std::domain_error(fmt::format("apparent permittivity {} is below 1 (vacuum); check the probe output", ka));
   // Topp, Davis & Annan (1980): theta = -5.3e-2 + 2.92e-2 Ka - 5.5e-4 Ka^2 + 4.3e-6 Ka^3
   return -5.3e-2 + ka * (2.92e-2 + ka * (-5.5e-4 + ka * 4.3e-6));
 }
 
 double calibrated_water_content(const PolynomialCalibration& calibration, double reading) {
-  if (calibration.coefficients.empty())
-    throw std::invalid_argument("a probe calibration needs at least one coefficient");
+  if (calibration.coefficients.empty()) throw base::InputError("a probe calibration needs at least one coefficient");
   double theta = 0;  // Horner's scheme from the highest power down
   for (auto c = calibration.coefficients.rbegin(); c != calibration.coefficients.rend(); ++c)
     theta = theta * reading + *c;

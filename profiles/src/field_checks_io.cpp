@@ -13,7 +13,8 @@ namespace h5 = hdf5;
 
 void require_length(std::size_t actual, std::size_t expected, std::string_view what) {
   if (actual != expected)
-    throw std::invalid_argument(fmt::format("{} has {} entries, expected {} (one per visit interval)", what, actual, expected));
+    throw std::invalid_argument(
+        fmt::format("{} has {} entries, expected {} (one per visit interval)", what, actual, expected));
 }
 
 void check_darcy(const DarcyEstimateRecord& d, std::size_t intervals) {
@@ -32,7 +33,8 @@ void check_water_table(const WaterTableEstimateRecord& w, std::size_t intervals)
   require_length(w.start_depth_cm.size(), intervals, "water-table estimate start depth");
   require_length(w.end_depth_cm.size(), intervals, "water-table estimate end depth");
   if (!(w.specific_yield > 0 && w.specific_yield < 1))
-    throw std::invalid_argument(fmt::format("water-table estimate: specific yield {} is not between 0 and 1", w.specific_yield));
+    throw std::invalid_argument(
+        fmt::format("water-table estimate: specific yield {} is not between 0 and 1", w.specific_yield));
 }
 
 void check_stored_water(const StoredWaterRecord& s, std::size_t intervals) {
@@ -40,8 +42,8 @@ void check_stored_water(const StoredWaterRecord& s, std::size_t intervals) {
   require_length(s.simulated_change_cm.size(), intervals, "stored water simulated change");
   const std::size_t visits = s.visit_days.size();
   if (visits != intervals + 1)
-    throw std::invalid_argument(fmt::format("stored water has {} visit times, expected {} (the run start and every interval end)",
-                                            visits, intervals + 1));
+    throw std::invalid_argument(fmt::format(
+        "stored water has {} visit times, expected {} (the run start and every interval end)", visits, intervals + 1));
   if (s.observed_cm.size() != visits || s.simulated_cm.size() != visits)
     throw std::invalid_argument("stored water: observed and simulated need one value per visit time");
   if (s.depths_cm.size() < 2) throw std::invalid_argument("stored water needs two or more depths");
@@ -60,7 +62,8 @@ void write_one_text(hid_t parent, std::string_view name, const std::string& text
   h5::write_texts(parent, name, {text}, {"none", long_name});
 }
 
-void write_one_number(hid_t parent, std::string_view name, double value, std::string_view units, std::string_view long_name) {
+void write_one_number(hid_t parent, std::string_view name, double value, std::string_view units,
+                      std::string_view long_name) {
   const double values[1] = {value};
   h5::write_vector(parent, name, values, {units, long_name});
 }
@@ -70,20 +73,25 @@ void write_agreement(hid_t group, const h5::Dataset& interval_end, const std::ve
                      std::string_view amount_long_name) {
   along_intervals(h5::write_vector(group, "amount", amount, {"cm", amount_long_name}), interval_end);
   along_intervals(h5::write_texts(group, "agreement", agreement,
-                                  {"none", "against the model's drainage at the recharge plane: agree, differ (signs differ "
-                                           "or one exceeds the other by more than a factor of 2) or no estimate"}),
+                                  {"none",
+                                   "against the model's drainage at the recharge plane: agree, differ (signs differ "
+                                   "or one exceeds the other by more than a factor of 2) or no estimate"}),
                   interval_end);
-  along_intervals(h5::write_texts(group, "missing", missing, {"none", "why the interval has no estimate (empty when it has one)"}),
-                  interval_end);
+  along_intervals(
+      h5::write_texts(group, "missing", missing, {"none", "why the interval has no estimate (empty when it has one)"}),
+      interval_end);
 }
 
 void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const h5::Dataset& interval_end) {
   h5::Group group = h5::create_group(parent, "darcy");
-  h5::write_texts(group.id(), "sensor", {d.upper_sensor, d.lower_sensor}, {"none", "tensiometer pair, the upper first"});
+  h5::write_texts(group.id(), "sensor", {d.upper_sensor, d.lower_sensor},
+                  {"none", "tensiometer pair, the upper first"});
   const double depths[2] = {d.upper_depth_cm, d.lower_depth_cm};
   h5::Dataset depth = h5::write_vector(group.id(), "sensor_depth", depths, {"cm", "depth of each tensiometer cup"});
   h5::set_text_attribute(depth.id(), ".", "positive", "down");
-  write_one_text(group.id(), "conductivity_note", d.conductivity_note, "which layer's hydraulic model gives the conductivity, at which head, and how an interval's estimate is formed");
+  write_one_text(
+      group.id(), "conductivity_note", d.conductivity_note,
+      "which layer's hydraulic model gives the conductivity, at which head, and how an interval's estimate is formed");
   write_agreement(group.id(), interval_end, d.amount_cm, d.agreement, d.missing,
                   "Darcy estimate of the flow below the pair in the interval (positive downward; NaN: no estimate)");
 }
@@ -91,7 +99,8 @@ void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const h5::Dataset& 
 void write_water_table(hid_t parent, const WaterTableEstimateRecord& w, const h5::Dataset& interval_end) {
   h5::Group group = h5::create_group(parent, "water_table");
   write_one_text(group.id(), "well", w.well, "observation well read for the water-table level");
-  write_one_number(group.id(), "specific_yield", w.specific_yield, "1", "specific yield of the aquifer at the water table");
+  write_one_number(group.id(), "specific_yield", w.specific_yield, "1",
+                   "specific yield of the aquifer at the water table");
   write_one_text(group.id(), "specific_yield_note", w.specific_yield_note, "where the specific yield comes from");
   write_one_number(group.id(), "recession_rate", w.recession_cm_per_d, "cm/d",
                    "fall of the water table without recharge (antecedent recession)");
@@ -107,23 +116,30 @@ void write_water_table(hid_t parent, const WaterTableEstimateRecord& w, const h5
                   "water-table-fluctuation recharge in the interval: specific yield x rise (NaN: no estimate)");
 }
 
-void write_stored_water(hid_t file, const StoredWaterRecord& s, const std::string& time_units, const h5::Dataset& interval_end) {
+void write_stored_water(hid_t file, const StoredWaterRecord& s, const std::string& time_units,
+                        const h5::Dataset& interval_end) {
   h5::Group group = h5::create_group(file, "stored_water");
-  h5::Dataset depth = h5::write_vector(group.id(), "depth", s.depths_cm, {"cm", "water-content depths the storage spans"});
+  h5::Dataset depth =
+      h5::write_vector(group.id(), "depth", s.depths_cm, {"cm", "water-content depths the storage spans"});
   h5::set_text_attribute(depth.id(), ".", "positive", "down");
   h5::write_texts(group.id(), "source", s.sources, {"none", "probes and core samples that give the readings"});
-  h5::Dataset time = h5::write_vector(group.id(), "time", s.visit_days, {time_units, "the run start and the end of every visit interval"});
+  h5::Dataset time = h5::write_vector(group.id(), "time", s.visit_days,
+                                      {time_units, "the run start and the end of every visit interval"});
   h5::set_text_attribute(group.id(), "time", "calendar", "standard");
   h5::make_dimension_scale(time, "stored_water_time");
-  h5::attach_dimension_scale(h5::write_vector(group.id(), "observed", s.observed_cm,
-                                              {"cm", "water stored over the depths from the readings (trapezoid; NaN: a depth has no reading)"}),
-                             time, 0);
-  h5::attach_dimension_scale(h5::write_vector(group.id(), "simulated", s.simulated_cm,
-                                              {"cm", "water stored over the depths in the model at the same depths and times"}),
-                             time, 0);
-  along_intervals(h5::write_vector(group.id(), "observed_change", s.observed_change_cm,
-                                   {"cm", "change of the observed storage over the interval (positive: gained; NaN: missing)"}),
-                  interval_end);
+  h5::attach_dimension_scale(
+      h5::write_vector(
+          group.id(), "observed", s.observed_cm,
+          {"cm", "water stored over the depths from the readings (trapezoid; NaN: a depth has no reading)"}),
+      time, 0);
+  h5::attach_dimension_scale(
+      h5::write_vector(group.id(), "simulated", s.simulated_cm,
+                       {"cm", "water stored over the depths in the model at the same depths and times"}),
+      time, 0);
+  along_intervals(
+      h5::write_vector(group.id(), "observed_change", s.observed_change_cm,
+                       {"cm", "change of the observed storage over the interval (positive: gained; NaN: missing)"}),
+      interval_end);
   along_intervals(h5::write_vector(group.id(), "simulated_change", s.simulated_change_cm,
                                    {"cm", "change of the simulated storage over the interval (positive: gained)"}),
                   interval_end);
@@ -133,14 +149,16 @@ std::vector<double> read_vector_of(hid_t parent, std::string_view name, std::siz
   std::vector<std::size_t> dims;
   std::vector<double> values = h5::read_doubles(parent, name, 1, dims);
   if (values.size() != length)
-    throw h5::Error(fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+    throw h5::Error(
+        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
   return values;
 }
 
 std::vector<std::string> read_texts_of(hid_t parent, std::string_view name, std::size_t length) {
   std::vector<std::string> values = h5::read_texts(parent, name);
   if (values.size() != length)
-    throw h5::Error(fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+    throw h5::Error(
+        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
   return values;
 }
 

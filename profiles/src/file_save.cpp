@@ -26,8 +26,10 @@ void write_new_file(const std::filesystem::path& path, std::string_view bytes) {
   int error = 0;
   while (written < bytes.size() && error == 0) {
     const ssize_t count = write(descriptor, bytes.data() + written, bytes.size() - written);
-    if (count > 0) written += static_cast<std::size_t>(count);
-    else if (count < 0 && errno != EINTR) error = errno;
+    if (count > 0)
+      written += static_cast<std::size_t>(count);
+    else if (count < 0 && errno != EINTR)
+      error = errno;
   }
   if (error == 0 && fsync(descriptor) != 0) error = errno;
   if (close(descriptor) != 0 && error == 0) error = errno;

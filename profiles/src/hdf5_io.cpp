@@ -79,8 +79,7 @@ std::vector<std::size_t> checked_shape(const Dataset& dataset, int expected_rank
 
 void require_numeric(hid_t type, const std::string& what) {
   const H5T_class_t type_class = H5Tget_class(type);
-  if (type_class != H5T_FLOAT && type_class != H5T_INTEGER)
-    throw Error(fmt::format("{} is not numeric", what));
+  if (type_class != H5T_FLOAT && type_class != H5T_INTEGER) throw Error(fmt::format("{} is not numeric", what));
 }
 
 std::size_t element_count(const std::vector<std::size_t>& dims) {
@@ -92,9 +91,9 @@ std::size_t element_count(const std::vector<std::size_t>& dims) {
 Attribute open_attribute(hid_t location, std::string_view object_name, std::string_view name) {
   const std::string what = attribute_path(location, object_name, name);
   if (!has_attribute(location, object_name, name)) throw Error(fmt::format("missing {}", what));
-  return Attribute(H5Aopen_by_name(location, std::string(object_name).c_str(), std::string(name).c_str(),
-                                   H5P_DEFAULT, H5P_DEFAULT),
-                   fmt::format("opening {}", what));
+  return Attribute(
+      H5Aopen_by_name(location, std::string(object_name).c_str(), std::string(name).c_str(), H5P_DEFAULT, H5P_DEFAULT),
+      fmt::format("opening {}", what));
 }
 
 void require_single_value(const Attribute& attribute, const std::string& what) {
@@ -187,8 +186,8 @@ Dataset write_vector(hid_t parent, std::string_view name, std::span<const double
 Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std::size_t columns,
                      std::span<const double> values, Description about) {
   if (values.size() != rows * columns)
-    throw Error(fmt::format("dataset {}: {} values for a {} x {} matrix", child_path(parent, name), values.size(),
-                            rows, columns));
+    throw Error(fmt::format("dataset {}: {} values for a {} x {} matrix", child_path(parent, name), values.size(), rows,
+                            columns));
   const hsize_t dims[2] = {rows, columns};
   Dataspace space = simple_space(dims);
   PropertyList dcpl = ordered_dataset_properties();
@@ -210,8 +209,7 @@ Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std:
   return dataset;
 }
 
-Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values,
-                       Description about) {
+Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values, Description about) {
   const hsize_t dims[1] = {values.size()};
   Dataspace space = simple_space(dims);
   Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space, ordered_dataset_properties());
@@ -231,8 +229,7 @@ Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t v
   return dataset;
 }
 
-Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values,
-                    Description about) {
+Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values, Description about) {
   const hsize_t dims[1] = {values.size()};
   Dataspace space = simple_space(dims);
   Datatype type = variable_length_text_type();

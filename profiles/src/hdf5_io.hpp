@@ -39,11 +39,9 @@ Dataset write_vector(hid_t parent, std::string_view name, std::span<const double
 // Row-major rows x columns.
 Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std::size_t columns,
                      std::span<const double> values, Description about);
-Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values,
-                       Description about);
+Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values, Description about);
 Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about);
-Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values,
-                    Description about);
+Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values, Description about);
 
 // H5DSset_scale on `scale`, then H5DSattach_scale to dimension `dimension` of `dataset`.
 void make_dimension_scale(const Dataset& scale, std::string_view axis_name);

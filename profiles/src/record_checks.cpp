@@ -19,8 +19,8 @@ void require_increasing(const std::vector<double>& values, std::string_view what
   for (std::size_t i = 0; i < values.size(); ++i) {
     require(std::isfinite(values[i]), fmt::format("{} {} is not a finite number", what, i));
     if (i > 0)
-      require(values[i] > values[i - 1], fmt::format("{} {} ({}) is not greater than {} {} ({})", what, i, values[i],
-                                                     what, i - 1, values[i - 1]));
+      require(values[i] > values[i - 1],
+              fmt::format("{} {} ({}) is not greater than {} {} ({})", what, i, values[i], what, i - 1, values[i - 1]));
   }
 }
 
@@ -54,11 +54,11 @@ void check_run(const solver::ColumnRun& run, std::size_t planes) {
                       run.profiles.size(), run.balances.size()));
   for (std::size_t i = 0; i < run.balances.size(); ++i) {
     const solver::CumulativeBalance& row = run.balances[i];
-    require(row.time_days == times[i], fmt::format("balance row {} is at day {} but profile {} is at day {}", i,
-                                                   row.time_days, i, times[i]));
+    require(row.time_days == times[i],
+            fmt::format("balance row {} is at day {} but profile {} is at day {}", i, row.time_days, i, times[i]));
     require(row.plane_flux_cm.size() == planes,
-            fmt::format("balance row {} (day {}) has {} flux plane values but the record lists {} flux plane depths",
-                        i, row.time_days, row.plane_flux_cm.size(), planes));
+            fmt::format("balance row {} (day {}) has {} flux plane values but the record lists {} flux plane depths", i,
+                        row.time_days, row.plane_flux_cm.size(), planes));
   }
   require(!(run.complete && run.failure), "the run is marked complete but carries a failure");
 }

@@ -12,9 +12,7 @@ namespace {
 
 namespace h5 = hdf5;
 
-std::string shape_text(const std::vector<std::size_t>& dims) {
-  return fmt::format("{}", fmt::join(dims, " x "));
-}
+std::string shape_text(const std::vector<std::size_t>& dims) { return fmt::format("{}", fmt::join(dims, " x ")); }
 
 // Reads a dataset that must have exactly the given shape.
 std::vector<double> read_shaped(hid_t parent, std::string_view name, std::vector<std::size_t> expected) {
@@ -34,8 +32,8 @@ std::vector<double> read_vector(hid_t parent, std::string_view name) {
 std::vector<std::string> read_texts_of_length(hid_t parent, std::string_view name, std::size_t length) {
   std::vector<std::string> values = h5::read_texts(parent, name);
   if (values.size() != length)
-    throw h5::Error(fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name,
-                                values.size(), length));
+    throw h5::Error(
+        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
   return values;
 }
 
@@ -144,8 +142,7 @@ void read_forcing(hid_t inputs, std::vector<ForcingInterval>& forcing) {
   const std::vector<double> evaporation = read_shaped(group.id(), "potential_evaporation", {count});
   const std::vector<double> transpiration = read_shaped(group.id(), "potential_transpiration", {count});
   forcing.assign(count, {});
-  for (std::size_t i = 0; i < count; ++i)
-    forcing[i] = {starts[i], ends[i], input[i], evaporation[i], transpiration[i]};
+  for (std::size_t i = 0; i < count; ++i) forcing[i] = {starts[i], ends[i], input[i], evaporation[i], transpiration[i]};
 }
 
 void read_sensors(hid_t file, std::vector<Sensor>& sensors) {
@@ -160,7 +157,8 @@ std::vector<std::int64_t> read_integer_vector(hid_t parent, std::string_view nam
   std::vector<std::size_t> dims;
   std::vector<std::int64_t> values = h5::read_integers(parent, name, 1, dims);
   if (values.size() != length)
-    throw h5::Error(fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+    throw h5::Error(
+        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
   return values;
 }
 
@@ -175,7 +173,8 @@ std::vector<ComparedReading> read_compared(hid_t parent, std::string_view name) 
   const auto observed = read_shaped(group.id(), "observed", {n});
   const auto simulated = read_shaped(group.id(), "simulated", {n});
   const auto used = read_integer_vector(group.id(), "used", n);
-  for (std::size_t i = 0; i < n; ++i) readings.push_back({sensors[i], times[i], depths[i], observed[i], simulated[i], used[i] != 0});
+  for (std::size_t i = 0; i < n; ++i)
+    readings.push_back({sensors[i], times[i], depths[i], observed[i], simulated[i], used[i] != 0});
   return readings;
 }
 
@@ -199,8 +198,9 @@ void read_sensor_comparison(hid_t file, RunRecord& record) {
   const auto nse = read_shaped(metrics.id(), "nash_sutcliffe", {n});
   const auto kge = read_shaped(metrics.id(), "kling_gupta", {n});
   for (std::size_t i = 0; i < n; ++i) {
-    comparison.metrics.push_back({names[i], quantities[i], units[i], depth[i], static_cast<int>(used[i]), static_cast<int>(beyond[i]),
-                                  static_cast<int>(outside[i]), bias[i], rmse[i], nse[i], kge[i]});
+    comparison.metrics.push_back({names[i], quantities[i], units[i], depth[i], static_cast<int>(used[i]),
+                                  static_cast<int>(beyond[i]), static_cast<int>(outside[i]), bias[i], rmse[i], nse[i],
+                                  kge[i]});
   }
   record.sensor_comparison = std::move(comparison);
 }

@@ -60,8 +60,8 @@ Axes write_axes(hid_t file, const RunRecord& record) {
   const solver::ColumnRun& run = record.run;
   Axes axes;
   axes.time_units = days_since_units(record.run_start_date);
-  axes.time = write_time_axis(file, "time", column(run.profiles, &solver::ProfileSnapshot::time_days),
-                              axes.time_units, "output time");
+  axes.time = write_time_axis(file, "time", column(run.profiles, &solver::ProfileSnapshot::time_days), axes.time_units,
+                              "output time");
   axes.cell_depth = h5::write_vector(file, "cell_depth", run.cell_depths_cm,
                                      {"cm", "depth of the cell centre below the soil surface"});
   set_positive_down(axes.cell_depth);
@@ -82,7 +82,8 @@ void write_profiles(hid_t file, const solver::ColumnRun& run, const Axes& axes) 
     matrix.reserve(times * cells);
     for (const solver::ProfileSnapshot& snapshot : run.profiles)
       matrix.insert(matrix.end(), (snapshot.*field.member).begin(), (snapshot.*field.member).end());
-    h5::Dataset dataset = h5::write_matrix(group.id(), field.name, times, cells, matrix, {field.units, field.long_name});
+    h5::Dataset dataset =
+        h5::write_matrix(group.id(), field.name, times, cells, matrix, {field.units, field.long_name});
     h5::attach_dimension_scale(dataset, axes.time, 0);
     h5::attach_dimension_scale(dataset, axes.cell_depth, 1);
   }
@@ -94,9 +95,9 @@ void write_profiles(hid_t file, const solver::ColumnRun& run, const Axes& axes) 
                                            {"cm/d", "Darcy flux across the cell face (positive downward)"});
   h5::attach_dimension_scale(face_flux, axes.time, 0);
   h5::attach_dimension_scale(face_flux, axes.face_depth, 1);
-  h5::Dataset ponded = h5::write_vector(group.id(), "ponded_depth",
-                                        column(run.profiles, &solver::ProfileSnapshot::ponded_depth_cm),
-                                        {"cm", "water held on the soil surface"});
+  h5::Dataset ponded =
+      h5::write_vector(group.id(), "ponded_depth", column(run.profiles, &solver::ProfileSnapshot::ponded_depth_cm),
+                       {"cm", "water held on the soil surface"});
   h5::attach_dimension_scale(ponded, axes.time, 0);
 }
 
@@ -104,8 +105,8 @@ void write_balance(hid_t file, const RunRecord& record, Axes& axes) {
   const solver::ColumnRun& run = record.run;
   h5::Group group = h5::create_group(file, "balance");
   for (const layout::CumulativeTerm& term : layout::kCumulativeTerms) {
-    h5::Dataset dataset = h5::write_vector(group.id(), term.name, column(run.balances, term.member),
-                                           {"cm", term.long_name});
+    h5::Dataset dataset =
+        h5::write_vector(group.id(), term.name, column(run.balances, term.member), {"cm", term.long_name});
     h5::attach_dimension_scale(dataset, axes.time, 0);
   }
   axes.plane_depth = h5::write_vector(group.id(), "plane_depth", record.flux_plane_depths_cm,
@@ -138,7 +139,8 @@ void write_visits(hid_t file, const RunRecord& record, const Axes& axes) {
   }
   const std::size_t planes = record.flux_plane_depths_cm.size();
   std::vector<double> matrix;
-  for (const IntervalBalance& row : rows) matrix.insert(matrix.end(), row.plane_flux_cm.begin(), row.plane_flux_cm.end());
+  for (const IntervalBalance& row : rows)
+    matrix.insert(matrix.end(), row.plane_flux_cm.begin(), row.plane_flux_cm.end());
   h5::Dataset plane_flux = h5::write_matrix(group.id(), "plane_flux", rows.size(), planes, matrix,
                                             {"cm", "flow across the flux plane in the interval (positive downward)"});
   h5::attach_dimension_scale(plane_flux, interval_end, 0);
@@ -191,16 +193,14 @@ void write_forcing(hid_t inputs, const std::vector<ForcingInterval>& forcing, co
       h5::write_vector(group.id(), "water_input", column(forcing, &ForcingInterval::water_input_cm_per_d),
                        {"cm/d", "rain and irrigation rate reaching the surface"}),
       start, 0);
-  h5::attach_dimension_scale(
-      h5::write_vector(group.id(), "potential_evaporation",
-                       column(forcing, &ForcingInterval::potential_evaporation_cm_per_d),
-                       {"cm/d", "potential evaporation rate (positive leaving the soil)"}),
-      start, 0);
-  h5::attach_dimension_scale(
-      h5::write_vector(group.id(), "potential_transpiration",
-                       column(forcing, &ForcingInterval::potential_transpiration_cm_per_d),
-                       {"cm/d", "potential transpiration rate (positive leaving the soil)"}),
-      start, 0);
+  h5::attach_dimension_scale(h5::write_vector(group.id(), "potential_evaporation",
+                                              column(forcing, &ForcingInterval::potential_evaporation_cm_per_d),
+                                              {"cm/d", "potential evaporation rate (positive leaving the soil)"}),
+                             start, 0);
+  h5::attach_dimension_scale(h5::write_vector(group.id(), "potential_transpiration",
+                                              column(forcing, &ForcingInterval::potential_transpiration_cm_per_d),
+                                              {"cm/d", "potential transpiration rate (positive leaving the soil)"}),
+                             start, 0);
 }
 
 void write_sensors(hid_t file, const std::vector<Sensor>& sensors) {
@@ -208,15 +208,16 @@ void write_sensors(hid_t file, const std::vector<Sensor>& sensors) {
   std::vector<std::string> names;
   for (const Sensor& sensor : sensors) names.push_back(sensor.name);
   h5::Dataset depth = h5::write_vector(group.id(), "depth", column(sensors, &Sensor::depth_cm),
-                                       {"cm", "depth of the sensor below the soil surface (0 for an observation well or core "
-                                              "samples, whose readings carry their own depths)"});
+                                       {"cm",
+                                        "depth of the sensor below the soil surface (0 for an observation well or core "
+                                        "samples, whose readings carry their own depths)"});
   set_positive_down(depth);
   h5::make_dimension_scale(depth, "sensor_depth");
   h5::attach_dimension_scale(h5::write_texts(group.id(), "name", names, {"none", "sensor name"}), depth, 0);
 }
 
-void write_compared(hid_t parent, std::string_view name, const std::vector<ComparedReading>& readings, std::string_view unit,
-                    std::string_view quantity, const std::string& time_units) {
+void write_compared(hid_t parent, std::string_view name, const std::vector<ComparedReading>& readings,
+                    std::string_view unit, std::string_view quantity, const std::string& time_units) {
   if (readings.empty()) return;
   h5::Group group = h5::create_group(parent, name);
   std::vector<std::string> sensors;
@@ -226,15 +227,17 @@ void write_compared(hid_t parent, std::string_view name, const std::vector<Compa
     used.push_back(r.used ? 1 : 0);
   }
   h5::write_texts(group.id(), "sensor", sensors, {"none", "name of the sensor that took the reading"});
-  h5::write_vector(group.id(), "time", column(readings, &ComparedReading::time_days), {time_units, "time of the reading"});
+  h5::write_vector(group.id(), "time", column(readings, &ComparedReading::time_days),
+                   {time_units, "time of the reading"});
   set_positive_down(h5::write_vector(group.id(), "depth", column(readings, &ComparedReading::depth_cm),
                                      {"cm", "depth of the sensor below the soil surface"}));
   h5::write_vector(group.id(), "observed", column(readings, &ComparedReading::observed),
                    {unit, fmt::format("{} from the reading", quantity)});
   h5::write_vector(group.id(), "simulated", column(readings, &ComparedReading::simulated),
                    {unit, fmt::format("simulated {} at the reading's time and depth (NaN outside the run)", quantity)});
-  h5::write_integers(group.id(), "used", used,
-                     {"1", "1 when the reading is in the fit metrics, 0 when left out (beyond the working limit or outside the run)"});
+  h5::write_integers(
+      group.id(), "used", used,
+      {"1", "1 when the reading is in the fit metrics, 0 when left out (beyond the working limit or outside the run)"});
 }
 
 void write_sensor_comparison(hid_t file, const SensorComparisonRecord& comparison, const std::string& time_units) {
@@ -261,7 +264,8 @@ void write_sensor_comparison(hid_t file, const SensorComparisonRecord& compariso
   h5::write_integers(metrics.id(), "readings_used", used, {"1", "readings paired with simulated values"});
   h5::write_integers(metrics.id(), "left_out_beyond_working_limit", beyond,
                      {"1", "tensiometer readings beyond the working limit, left out"});
-  h5::write_integers(metrics.id(), "left_out_outside_run", outside, {"1", "readings outside the time the run covers, left out"});
+  h5::write_integers(metrics.id(), "left_out_outside_run", outside,
+                     {"1", "readings outside the time the run covers, left out"});
   h5::write_vector(metrics.id(), "bias", column(rows, &SensorMetrics::bias),
                    {"see unit", "mean of simulated minus observed, in the unit given by unit"});
   h5::write_vector(metrics.id(), "root_mean_square_error", column(rows, &SensorMetrics::root_mean_square_error),

@@ -28,9 +28,10 @@ void write_table(hid_t file, const StudyTable& table, const std::string& time_un
   const h5::Dataset axis_dataset = write_axis(group.id(), axis);
   for (const StudyColumn& column : table.columns) {
     if (column.values.size() != axis.values.size())
-      throw std::invalid_argument(fmt::format("{}/{} has {} values for {} rows", table.group, column.name, column.values.size(),
-                                              axis.values.size()));
-    const h5::Dataset dataset = h5::write_vector(group.id(), column.name, column.values, {column.units, column.long_name});
+      throw std::invalid_argument(fmt::format("{}/{} has {} values for {} rows", table.group, column.name,
+                                              column.values.size(), axis.values.size()));
+    const h5::Dataset dataset =
+        h5::write_vector(group.id(), column.name, column.values, {column.units, column.long_name});
     h5::attach_dimension_scale(dataset, axis_dataset, 0);
   }
   for (const StudyTextColumn& column : table.texts) {
@@ -42,13 +43,14 @@ void write_table(hid_t file, const StudyTable& table, const std::string& time_un
     StudyColumn second = matrix.column_axis;
     if (second.units == "days since run start") second.units = time_units;
     if (matrix.values.size() != axis.values.size() * second.values.size())
-      throw std::invalid_argument(fmt::format("{}/{} has {} values for {} x {}", table.group, matrix.name, matrix.values.size(),
-                                              axis.values.size(), second.values.size()));
+      throw std::invalid_argument(fmt::format("{}/{} has {} values for {} x {}", table.group, matrix.name,
+                                              matrix.values.size(), axis.values.size(), second.values.size()));
     // A square matrix over the table's own axis (a covariance) uses that axis twice.
-    if (second.name != axis.name && !column_axes.count(second.name)) column_axes.emplace(second.name, write_axis(group.id(), second));
+    if (second.name != axis.name && !column_axes.count(second.name))
+      column_axes.emplace(second.name, write_axis(group.id(), second));
     const h5::Dataset& second_dataset = second.name == axis.name ? axis_dataset : column_axes.at(second.name);
-    const h5::Dataset dataset = h5::write_matrix(group.id(), matrix.name, axis.values.size(), second.values.size(), matrix.values,
-                                                 {matrix.units, matrix.long_name});
+    const h5::Dataset dataset = h5::write_matrix(group.id(), matrix.name, axis.values.size(), second.values.size(),
+                                                 matrix.values, {matrix.units, matrix.long_name});
     h5::attach_dimension_scale(dataset, axis_dataset, 0);
     h5::attach_dimension_scale(dataset, second_dataset, 1);
   }
@@ -65,17 +67,19 @@ void write_study_run(hid_t runs, const StudyRun& study_run, const std::string& t
   const h5::Dataset time = h5::write_vector(group.id(), "time", times, {time_units, "output time"});
   h5::set_text_attribute(group.id(), "time", "calendar", "standard");
   h5::make_dimension_scale(time, "time");
-  const h5::Dataset depth =
-      h5::write_vector(group.id(), "cell_depth", run.cell_depths_cm, {"cm", "depth of the cell centre below the soil surface"});
+  const h5::Dataset depth = h5::write_vector(group.id(), "cell_depth", run.cell_depths_cm,
+                                             {"cm", "depth of the cell centre below the soil surface"});
   h5::set_text_attribute(group.id(), "cell_depth", "positive", "down");
   h5::make_dimension_scale(depth, "cell_depth");
   const auto matrix_of = [&](auto member) {
     std::vector<double> values;
-    for (const auto& snapshot : run.profiles) values.insert(values.end(), (snapshot.*member).begin(), (snapshot.*member).end());
+    for (const auto& snapshot : run.profiles)
+      values.insert(values.end(), (snapshot.*member).begin(), (snapshot.*member).end());
     return values;
   };
-  const h5::Dataset head = h5::write_matrix(group.id(), "pressure_head", times.size(), run.cell_depths_cm.size(),
-                                            matrix_of(&solver::ProfileSnapshot::head_cm), {"cm", "pressure head (cm of water)"});
+  const h5::Dataset head =
+      h5::write_matrix(group.id(), "pressure_head", times.size(), run.cell_depths_cm.size(),
+                       matrix_of(&solver::ProfileSnapshot::head_cm), {"cm", "pressure head (cm of water)"});
   const h5::Dataset content =
       h5::write_matrix(group.id(), "water_content", times.size(), run.cell_depths_cm.size(),
                        matrix_of(&solver::ProfileSnapshot::water_content), {"cm3/cm3", "volumetric water content"});

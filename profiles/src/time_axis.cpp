@@ -3,34 +3,23 @@
 #include <date/date.h>
 #include <fmt/format.h>
 
-#include <chrono>
-#include <sstream>
 #include <stdexcept>
+
+#include "wetfront/base/time_point.hpp"
 
 namespace wetfront::profiles {
 
-namespace {
-
-// Parses the whole text with one format; false when the format does not match it all.
-template <typename TimePoint>
-bool parse_whole(std::string_view text, const char* format, TimePoint& value) {
-  std::istringstream stream{std::string(text)};
-  stream >> date::parse(format, value);
-  return !stream.fail() && stream.peek() == std::char_traits<char>::eof();
-}
-
-}  // namespace
-
 std::string days_since_units(std::string_view run_start_date) {
-  date::sys_days day;
-  if (parse_whole(run_start_date, "%Y-%m-%d", day)) return fmt::format("days since {}", date::format("%F", day));
-  date::sys_seconds instant;
-  if (parse_whole(run_start_date, "%Y-%m-%dT%H:%M:%S", instant) ||
-      parse_whole(run_start_date, "%Y-%m-%dT%H:%M", instant))
-    return fmt::format("days since {}", date::format("%F %T", instant));
-  throw std::invalid_argument(fmt::format(
-      "run start date '{}' is not an ISO 8601 date; expected YYYY-MM-DD, YYYY-MM-DDThh:mm or YYYY-MM-DDThh:mm:ss",
-      run_start_date));
+  // The record holds the ISO form with 'T' (no space), as the run file's attribute shows it.
+  const bool iso_form = run_start_date.size() <= 10 || run_start_date[10] == 'T';
+  const auto start = base::parse_timestamp(run_start_date);
+  if (!iso_form || !start) {
+    throw std::invalid_argument(
+        fmt::format("run start date '{}' is not an ISO 8601 date; expected {}", run_start_date, base::kTimestampForms));
+  }
+  // A date alone stays a date; a date-time keeps its time of day, even at midnight.
+  if (run_start_date.size() == 10) return fmt::format("days since {}", date::format("%F", *start));
+  return fmt::format("days since {}", date::format("%F %T", *start));
 }
 
 }  // namespace wetfront::profiles

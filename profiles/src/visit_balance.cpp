@@ -49,8 +49,8 @@ std::vector<IntervalBalance> balance_between_visits(std::span<const solver::Cumu
   for (std::size_t v = 0; v < visit_days.size(); ++v) {
     const double visit = visit_days[v];
     if (v > 0 && !(visit > visit_days[v - 1]))
-      throw std::invalid_argument(fmt::format("visit {} (day {}) is not after visit {} (day {})", v + 1, visit, v,
-                                              visit_days[v - 1]));
+      throw std::invalid_argument(
+          fmt::format("visit {} (day {}) is not after visit {} (day {})", v + 1, visit, v, visit_days[v - 1]));
     if (visit < first_day - kVisitMatchDays)
       throw std::invalid_argument(
           fmt::format("visit {} (day {}) is before the first output time (day {})", v + 1, visit, first_day));
@@ -58,14 +58,13 @@ std::vector<IntervalBalance> balance_between_visits(std::span<const solver::Cumu
     std::size_t to = from;
     while (to < balances.size() && balances[to].time_days < visit - kVisitMatchDays) ++to;
     if (to == balances.size() || std::abs(balances[to].time_days - visit) > kVisitMatchDays)
-      throw std::invalid_argument(fmt::format(
-          "visit {} (day {}) is not an output time; add the visit days to the output times", v + 1, visit));
+      throw std::invalid_argument(
+          fmt::format("visit {} (day {}) is not an output time; add the visit days to the output times", v + 1, visit));
     if (to == from) continue;  // a visit at the start of the current interval adds no row
     rows.push_back(balance_difference(balances[from], balances[to]));
     from = to;
   }
-  if (from + 1 < balances.size() || rows.empty())
-    rows.push_back(balance_difference(balances[from], balances.back()));
+  if (from + 1 < balances.size() || rows.empty()) rows.push_back(balance_difference(balances[from], balances.back()));
   return rows;
 }
 

@@ -5,33 +5,33 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 namespace {
 
 void check_ring(const CoreSample& c) {
   if (!(std::isfinite(c.ring_volume_cm3) && c.ring_volume_cm3 > 0.0))
-    throw std::invalid_argument(
+    throw base::InputError(
         fmt::format("core sample '{}': ring volume {} cm3 must be a positive number", c.name, c.ring_volume_cm3));
   if (!std::isfinite(c.tare_mass_g) || !std::isfinite(c.oven_dry_mass_g) || c.tare_mass_g < 0.0)
-    throw std::invalid_argument(fmt::format("core sample '{}': tare and oven-dry masses must be finite and >= 0 g",
-                                            c.name));
+    throw base::InputError(fmt::format("core sample '{}': tare and oven-dry masses must be finite and >= 0 g", c.name));
   if (!(c.oven_dry_mass_g > c.tare_mass_g))
-    throw std::invalid_argument(fmt::format(
-        "core sample '{}': oven-dry mass {} g is not above the tare {} g, so the ring holds no soil", c.name,
-        c.oven_dry_mass_g, c.tare_mass_g));
+    throw base::InputError(
+        fmt::format("core sample '{}': oven-dry mass {} g is not above the tare {} g, so the ring holds no soil",
+                    c.name, c.oven_dry_mass_g, c.tare_mass_g));
 }
 
 double water_content_of(const CoreSample& c, double wet_mass_g, double water_density, const std::string& what) {
   if (!std::isfinite(wet_mass_g))
-    throw std::invalid_argument(fmt::format("core sample '{}': {} is not a number", c.name, what));
+    throw base::InputError(fmt::format("core sample '{}': {} is not a number", c.name, what));
   if (wet_mass_g < c.oven_dry_mass_g)
-    throw std::invalid_argument(fmt::format(
+    throw base::InputError(fmt::format(
         "core sample '{}': {} {} g is below the oven-dry mass {} g; a moist core cannot weigh less than when dry",
         c.name, what, wet_mass_g, c.oven_dry_mass_g));
   const double theta = (wet_mass_g - c.oven_dry_mass_g) / (water_density * c.ring_volume_cm3);
   if (theta >= 1.0)
-    throw std::invalid_argument(fmt::format(
+    throw base::InputError(fmt::format(
         "core sample '{}': {} gives a volumetric water content of {:.3f}, which is not below 1; check the ring "
         "volume and masses",
         c.name, what, theta));
@@ -53,10 +53,10 @@ CoreProperties core_properties(const CoreSample& core, double water_density_g_pe
 
 double porosity(double dry_bulk_density_g_per_cm3, double particle_density_g_per_cm3) {
   if (!(particle_density_g_per_cm3 > 0.0))
-    throw std::invalid_argument(fmt::format("particle density {} g/cm3 must be positive", particle_density_g_per_cm3));
+    throw base::InputError(fmt::format("particle density {} g/cm3 must be positive", particle_density_g_per_cm3));
   if (!(dry_bulk_density_g_per_cm3 > 0.0 && dry_bulk_density_g_per_cm3 < particle_density_g_per_cm3))
-    throw std::invalid_argument(fmt::format("dry bulk density {} g/cm3 must lie between 0 and the particle density {} g/cm3",
-                                            dry_bulk_density_g_per_cm3, particle_density_g_per_cm3));
+    throw base::InputError(fmt::format("dry bulk density {} g/cm3 must lie between 0 and the particle density {} g/cm3",
+                                       dry_bulk_density_g_per_cm3, particle_density_g_per_cm3));
   return 1.0 - dry_bulk_density_g_per_cm3 / particle_density_g_per_cm3;
 }
 

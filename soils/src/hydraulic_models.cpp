@@ -25,7 +25,8 @@ double water_content(const HydraulicModel& model, double h) {
   if (const auto* vg = std::get_if<VanGenuchtenMualem>(&model)) return detail::state(*vg, h).water_content;
   return std::visit(
       [h](const auto& m) {
-        return water_content_from_saturation(detail::theta_r(m), detail::theta_s(m), detail::saturation(m, h).saturation);
+        return water_content_from_saturation(detail::theta_r(m), detail::theta_s(m),
+                                             detail::saturation(m, h).saturation);
       },
       model);
 }

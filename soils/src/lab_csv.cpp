@@ -2,7 +2,6 @@
 #include "wetfront/soils/lab_csv.hpp"
 
 #include <algorithm>
-#include <charconv>
 #include <cmath>
 #include <fstream>
 #include <map>
@@ -11,40 +10,17 @@
 #include <fmt/format.h>
 #include <fmt/ranges.h>
 
-namespace wetfront::soils {
+#include "wetfront/base/csv_table.hpp"
+#include "wetfront/base/input_error.hpp"
+#include "wetfront/base/quantity.hpp"
 
-LabDataError::LabDataError(std::string source, int line, std::string column, const std::string& problem)
-    : std::runtime_error(column.empty() ? fmt::format("{}:{}: {}", source, line, problem)
-                                        : fmt::format("{}:{}: column '{}': {}", source, line, column, problem)),
-      source_(std::move(source)),
-      line_(line),
-      column_(std::move(column)) {}
+namespace wetfront::soils {
 
 namespace {
 
-std::string_view trim(std::string_view s) {
-  while (!s.empty() && (s.front() == ' ' || s.front() == '\t')) s.remove_prefix(1);
-  while (!s.empty() && (s.back() == ' ' || s.back() == '\t' || s.back() == '\r')) s.remove_suffix(1);
-  return s;
-}
-
-// Splits on commas; a field may be wrapped in double quotes (no embedded quotes).
-std::vector<std::string> split(std::string_view line) {
-  std::vector<std::string> fields;
-  std::string current;
-  bool quoted = false;
-  for (const char c : line) {
-    if (c == '"') {
-      quoted = !quoted;
-    } else if (c == ',' && !quoted) {
-      fields.emplace_back(trim(current));
-      current.clear();
-    } else {
-      current.push_back(c);
-    }
-  }
-  fields.emplace_back(trim(current));
-  return fields;
+// Every lab-file problem is an input error at a line and column of the file.
+base::InputError lab_error(const std::string& source, int line, std::string column, const std::string& problem) {
+  return base::InputError(source, static_cast<std::size_t>(std::max(line, 0)), std::move(column), problem);
 }
 
 struct ColumnSpec {
@@ -57,26 +33,16 @@ struct ColumnSpec {
 class Table {
  public:
   Table(std::istream& in, std::string source, const std::vector<ColumnSpec>& accepted) : source_(std::move(source)) {
-    std::string text;
-    int line_number = 0;
-    bool have_header = false;
-    while (std::getline(in, text)) {
-      ++line_number;
-      const std::string_view t = trim(text);
-      if (t.empty() || t.front() == '#') continue;
-      if (!have_header) {
-        read_header(t, line_number, accepted);
-        have_header = true;
-        continue;
-      }
-      auto fields = split(t);
-      if (fields.size() != header_.size())
-        throw LabDataError(source_, line_number, "",
-                           fmt::format("found {} fields but the header has {} columns", fields.size(), header_.size()));
-      rows_.push_back({line_number, std::move(fields)});
+    const base::CsvTable csv = base::CsvTable::parse(in, source_);
+    for (std::size_t c = 0; c < csv.column_count(); ++c) header_.push_back(csv.column(c).header);
+    header_line_ = static_cast<int>(csv.header_line());
+    check_header(accepted);
+    for (std::size_t r = 0; r < csv.row_count(); ++r) {
+      Row row{static_cast<int>(csv.line_of(r)), {}};
+      for (std::size_t c = 0; c < csv.column_count(); ++c) row.fields.push_back(csv.text(r, c));
+      rows_.push_back(std::move(row));
     }
-    if (!have_header) throw LabDataError(source_, line_number, "", "no header row found (the file is empty)");
-    if (rows_.empty()) throw LabDataError(source_, line_number, "", "the header is not followed by any data rows");
+    if (rows_.empty()) throw lab_error(source_, header_line_, "", "the header is not followed by any data rows");
   }
 
   bool has(std::string_view column) const { return std::find(header_.begin(), header_.end(), column) != header_.end(); }
@@ -92,32 +58,28 @@ class Table {
 
   double number(const Row& row, std::string_view column, std::string_view unit) const {
     const std::string& s = row.fields[index(column)];
-    double value = 0.0;
-    const auto [end, ec] = std::from_chars(s.data(), s.data() + s.size(), value);
-    if (s.empty() || ec != std::errc() || end != s.data() + s.size() || !std::isfinite(value))
-      throw LabDataError(source_, row.line, std::string(column),
-                         fmt::format("expected a number in {}, got '{}'", unit, s));
-    return value;
+    const auto value = base::to_number(s);
+    if (!value)
+      throw lab_error(source_, row.line, std::string(column),
+                      fmt::format("expected a number in {}, got '{}'", unit, s));
+    return *value;
   }
 
  private:
-  void read_header(std::string_view t, int line_number, const std::vector<ColumnSpec>& accepted) {
-    header_ = split(t);
-    header_line_ = line_number;
+  void check_header(const std::vector<ColumnSpec>& accepted) {
+    const int line_number = header_line_;
     std::vector<std::string> names;
     for (const auto& a : accepted) names.push_back(a.name);
     for (std::size_t i = 0; i < header_.size(); ++i) {
       const auto& h = header_[i];
-      if (std::count(header_.begin(), header_.end(), h) > 1)
-        throw LabDataError(source_, line_number, h, "appears more than once in the header");
       if (std::find(names.begin(), names.end(), h) == names.end())
-        throw LabDataError(source_, line_number, h,
-                           fmt::format("is not a known column; accepted columns are: {}", fmt::join(names, ", ")));
+        throw lab_error(source_, line_number, h,
+                        fmt::format("is not a known column; accepted columns are: {}", fmt::join(names, ", ")));
     }
     for (const auto& a : accepted)
       if (a.required && !has(a.name))
-        throw LabDataError(source_, line_number, a.name,
-                           fmt::format("is missing from the header (expected {})", a.unit_hint));
+        throw lab_error(source_, line_number, a.name,
+                        fmt::format("is missing from the header (expected {})", a.unit_hint));
   }
 
   std::size_t index(std::string_view column) const {
@@ -132,7 +94,7 @@ class Table {
 
 std::ifstream open(const std::filesystem::path& file) {
   std::ifstream in(file);
-  if (!in) throw std::runtime_error(fmt::format("cannot open '{}' for reading", file.string()));
+  if (!in) throw base::InputError(file.string(), 0, "", "cannot open the file for reading");
   return in;
 }
 
@@ -145,19 +107,20 @@ struct SuctionColumn {
 SuctionColumn suction_column(const Table& t, int first_line) {
   const bool cm = t.has("suction_cm"), kpa = t.has("suction_kPa");
   if (cm && kpa)
-    throw LabDataError(t.source(), first_line, "suction_kPa", "give suction either in cm or in kPa, not both");
+    throw lab_error(t.source(), first_line, "suction_kPa", "give suction either in cm or in kPa, not both");
   if (!cm && !kpa)
-    throw LabDataError(t.source(), first_line, "suction_cm",
-                       "is missing from the header (give suction_cm, or suction_kPa)");
+    throw lab_error(t.source(), first_line, "suction_cm",
+                    "is missing from the header (give suction_cm, or suction_kPa)");
   return cm ? SuctionColumn{"suction_cm", 1.0, "cm of water"}
-            : SuctionColumn{"suction_kPa", kCentimetresOfWaterPerKilopascal, "kPa"};
+            : SuctionColumn{"suction_kPa", base::kCentimetresOfWaterPerKilopascal, "kPa"};
 }
 
 double suction_cm(const Table& t, const Table::Row& row, const SuctionColumn& c) {
   const double v = t.number(row, c.name, c.unit);
   if (v < 0.0)
-    throw LabDataError(t.source(), row.line, c.name,
-                       fmt::format("suction {} must be >= 0 (suction is the positive value of a negative pressure head)", v));
+    throw lab_error(
+        t.source(), row.line, c.name,
+        fmt::format("suction {} must be >= 0 (suction is the positive value of a negative pressure head)", v));
   return v * c.to_cm;
 }
 
@@ -198,8 +161,8 @@ std::vector<RetentionSeries> parse_retention_csv(std::istream& in, std::string_v
     const double s = suction_cm(t, row, suction);
     const double theta = t.number(row, "water_content", "cm3/cm3");
     if (!(theta > 0.0 && theta < 1.0))
-      throw LabDataError(t.source(), row.line, "water_content",
-                         fmt::format("{} is outside (0, 1); give a volume fraction (cm3/cm3), not percent", theta));
+      throw lab_error(t.source(), row.line, "water_content",
+                      fmt::format("{} is outside (0, 1); give a volume fraction (cm3/cm3), not percent", theta));
     auto& series = series_for(out, has_sample ? t.text(row, "sample") : std::string());
     series.points.push_back({s, theta});
     series.lines.push_back(row.line);
@@ -219,18 +182,18 @@ std::vector<CoreSample> parse_core_samples_csv(std::istream& in, std::string_vie
   for (const auto& row : t.rows()) {
     CoreSample c;
     c.name = t.text(row, "sample");
-    if (c.name.empty()) throw LabDataError(t.source(), row.line, "sample", "the sample label is empty");
+    if (c.name.empty()) throw lab_error(t.source(), row.line, "sample", "the sample label is empty");
     if (const auto [it, fresh] = first_line.emplace(c.name, row.line); !fresh)
-      throw LabDataError(t.source(), row.line, "sample",
-                         fmt::format("sample '{}' already appears on line {}", c.name, it->second));
+      throw lab_error(t.source(), row.line, "sample",
+                      fmt::format("sample '{}' already appears on line {}", c.name, it->second));
     c.ring_volume_cm3 = t.number(row, "ring_volume_cm3", "cm3");
     c.tare_mass_g = t.number(row, "tare_mass_g", "g");
     c.wet_mass_g = t.number(row, "wet_mass_g", "g");
     c.oven_dry_mass_g = t.number(row, "oven_dry_mass_g", "g");
     try {
       (void)core_properties(c);
-    } catch (const std::invalid_argument& e) {
-      throw LabDataError(t.source(), row.line, "", e.what());
+    } catch (const base::InputError& e) {
+      throw lab_error(t.source(), row.line, "", e.what());
     }
     out.push_back(std::move(c));
   }
@@ -248,7 +211,7 @@ std::vector<SuctionStepSeries> parse_suction_steps_csv(std::istream& in, std::st
   std::vector<SuctionStepSeries> out;
   for (const auto& row : t.rows()) {
     const std::string sample = t.text(row, "sample");
-    if (sample.empty()) throw LabDataError(t.source(), row.line, "sample", "the sample label is empty");
+    if (sample.empty()) throw lab_error(t.source(), row.line, "sample", "the sample label is empty");
     auto& series = series_for(out, sample);
     series.steps.push_back({suction_cm(t, row, suction), t.number(row, "wet_mass_g", "g")});
     series.lines.push_back(row.line);
@@ -267,8 +230,8 @@ std::vector<RetentionSeries> retention_from_cores(const std::vector<CoreSample>&
   for (const auto& s : steps) {
     const auto core = std::find_if(cores.begin(), cores.end(), [&](const CoreSample& c) { return c.name == s.sample; });
     if (core == cores.end())
-      throw std::invalid_argument(fmt::format("suction steps are given for sample '{}' but no core sample has that name",
-                                              s.sample));
+      throw base::InputError(
+          fmt::format("suction steps are given for sample '{}' but no core sample has that name", s.sample));
     out.push_back({s.sample, retention_points_from_core(*core, s.steps), s.lines});
   }
   return out;

@@ -4,13 +4,15 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 namespace {
 
 void require(bool ok, std::string_view label, std::string_view field, double value, std::string_view expected) {
   if (!ok || !std::isfinite(value))
-    throw std::invalid_argument(fmt::format("soil '{}': {} = {} is not allowed; it must be {}", label, field, value, expected));
+    throw base::InputError(
+        fmt::format("soil '{}': {} = {} is not allowed; it must be {}", label, field, value, expected));
 }
 
 void check_common(std::string_view label, double theta_r, double theta_s, double ks) {
@@ -37,7 +39,8 @@ void check(const BrooksCorey& p, std::string_view label) {
 }
 void check(const GardnerExponential& p, std::string_view label) {
   check_common(label, p.residual_water_content, p.saturated_water_content, p.saturated_conductivity_cm_per_d);
-  require(p.sorptive_number_per_cm > 0.0, label, "sorptive number", p.sorptive_number_per_cm, "a positive number of 1/cm");
+  require(p.sorptive_number_per_cm > 0.0, label, "sorptive number", p.sorptive_number_per_cm,
+          "a positive number of 1/cm");
 }
 
 }  // namespace

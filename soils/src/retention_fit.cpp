@@ -11,6 +11,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 namespace {
@@ -27,10 +28,10 @@ void check_points(std::span<const RetentionPoint> points) {
   for (std::size_t i = 0; i < points.size(); ++i) {
     const auto& p = points[i];
     if (!std::isfinite(p.suction_cm) || p.suction_cm < 0.0)
-      throw std::invalid_argument(fmt::format("retention data, {}: suction must be a finite number >= 0 cm",
-                                              describe_point(i, p)));
+      throw base::InputError(
+          fmt::format("retention data, {}: suction must be a finite number >= 0 cm", describe_point(i, p)));
     if (!(p.water_content > 0.0 && p.water_content < 1.0))
-      throw std::invalid_argument(fmt::format(
+      throw base::InputError(fmt::format(
           "retention data, {}: water content must lie strictly between 0 and 1 (a volume fraction, cm3/cm3, "
           "not percent)",
           describe_point(i, p)));
@@ -44,16 +45,16 @@ void check_points(std::span<const RetentionPoint> points) {
     const auto& wetter = points[order[k - 1]];
     const auto& drier = points[order[k]];
     if (drier.suction_cm > wetter.suction_cm && drier.water_content > wetter.water_content)
-      throw std::invalid_argument(fmt::format(
-          "retention data: {} holds more water than {} although its suction is higher; water content must "
-          "decrease as suction increases",
-          describe_point(order[k], drier), describe_point(order[k - 1], wetter)));
+      throw base::InputError(
+          fmt::format("retention data: {} holds more water than {} although its suction is higher; water content must "
+                      "decrease as suction increases",
+                      describe_point(order[k], drier), describe_point(order[k - 1], wetter)));
   }
 }
 
 void check_fixed(const char* what, const std::optional<double>& value) {
   if (value && !(*value >= 0.0 && *value < 1.0))
-    throw std::invalid_argument(fmt::format("retention fit: fixed {} {} must lie in [0, 1)", what, *value));
+    throw base::InputError(fmt::format("retention fit: fixed {} {} must lie in [0, 1)", what, *value));
 }
 
 }  // namespace
@@ -67,8 +68,8 @@ double van_genuchten_water_content(const RetentionParameters& p, double suction_
 
 VanGenuchtenMualem with_conductivity(const RetentionParameters& p, double saturated_conductivity_cm_per_d,
                                      double pore_connectivity) {
-  return {p.residual_water_content, p.saturated_water_content, p.alpha_per_cm, p.n, saturated_conductivity_cm_per_d,
-          pore_connectivity};
+  return {p.residual_water_content,        p.saturated_water_content, p.alpha_per_cm, p.n,
+          saturated_conductivity_cm_per_d, pore_connectivity};
 }
 
 RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points, const RetentionFitOptions& options) {
@@ -77,23 +78,22 @@ RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points,
   check_fixed("saturated water content", options.fixed_saturated_water_content);
   if (options.fixed_residual_water_content && options.fixed_saturated_water_content &&
       !(*options.fixed_residual_water_content < *options.fixed_saturated_water_content))
-    throw std::invalid_argument("retention fit: fixed residual water content must be below the fixed saturated one");
+    throw base::InputError("retention fit: fixed residual water content must be below the fixed saturated one");
   const int free_count =
       4 - (options.fixed_residual_water_content ? 1 : 0) - (options.fixed_saturated_water_content ? 1 : 0);
   if (static_cast<int>(points.size()) < free_count)
-    throw std::invalid_argument(fmt::format(
-        "retention fit: {} points cannot determine {} free parameters; give at least {} points", points.size(),
-        free_count, free_count));
+    throw base::InputError(
+        fmt::format("retention fit: {} points cannot determine {} free parameters; give at least {} points",
+                    points.size(), free_count, free_count));
 
   const std::vector<RetentionPoint> data(points.begin(), points.end());
-  LeastSquaresProblem problem;
-  problem.parameters = {
-      {"residual water content", options.residual_lower, options.residual_upper,
-       options.fixed_residual_water_content.has_value()},
-      {"saturated water content", options.saturated_lower, options.saturated_upper,
-       options.fixed_saturated_water_content.has_value()},
-      {"alpha (1/cm)", 0.0, std::numeric_limits<double>::infinity(), false},
-      {"n", 1.0, std::numeric_limits<double>::infinity(), false}};
+  studies::LeastSquaresProblem problem;
+  problem.parameters = {{"residual water content", options.residual_lower, options.residual_upper,
+                         options.fixed_residual_water_content.has_value()},
+                        {"saturated water content", options.saturated_lower, options.saturated_upper,
+                         options.fixed_saturated_water_content.has_value()},
+                        {"alpha (1/cm)", 0.0, std::numeric_limits<double>::infinity(), false},
+                        {"n", 1.0, std::numeric_limits<double>::infinity(), false}};
   problem.residual_count = static_cast<Eigen::Index>(data.size());
   problem.residuals = [&data](const Eigen::VectorXd& v, Eigen::VectorXd& r) {
     const auto p = from_vector(v);
@@ -144,7 +144,7 @@ RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points,
         starts.push_back(s);
         if (options.fixed_residual_water_content && theta_r0 != 0.0) starts.pop_back();  // duplicate
       }
-  const LeastSquaresResult best = solve_least_squares_multistart(problem, starts, options.solver);
+  const studies::LeastSquaresResult best = studies::solve_least_squares_multistart(problem, starts, options.solver);
 
   RetentionFit fit;
   fit.parameters = from_vector(best.parameters);

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 namespace {
@@ -38,17 +39,17 @@ LineFit fit_line(std::span<const ReservoirReading> readings) {
 
 double cm3_per_d_to_cm3_per_min(double cm3_per_d) { return cm3_per_d / (24.0 * 60.0); }
 
-SteadyOutflow steady_outflow(std::span<const ReservoirReading> steady_readings,
-                             double reservoir_area_cm2, const SteadinessTolerances& tolerances) {
+SteadyOutflow steady_outflow(std::span<const ReservoirReading> steady_readings, double reservoir_area_cm2,
+                             const SteadinessTolerances& tolerances) {
   if (!(reservoir_area_cm2 > 0.0) || !std::isfinite(reservoir_area_cm2)) {
-    throw std::invalid_argument(
+    throw base::InputError(
         fmt::format("reservoir cross-section area must be positive, got {} cm2", reservoir_area_cm2));
   }
   if (steady_readings.size() < 4) {
-    throw std::invalid_argument(fmt::format(
-        "a steady rate needs at least 4 readings marked steady (two for each half of the "
-        "drift check), got {}",
-        steady_readings.size()));
+    throw base::InputError(
+        fmt::format("a steady rate needs at least 4 readings marked steady (two for each half of the "
+                    "drift check), got {}",
+                    steady_readings.size()));
   }
   for (std::size_t i = 0; i < steady_readings.size(); ++i) {
     const auto& r = steady_readings[i];
@@ -56,18 +57,18 @@ SteadyOutflow steady_outflow(std::span<const ReservoirReading> steady_readings,
       throw InvalidReading(i, "time and water level must be finite numbers");
     }
     if (i > 0 && !(r.time_d > steady_readings[i - 1].time_d)) {
-      throw InvalidReading(i, fmt::format("times must increase strictly: {} d follows {} d",
-                                          r.time_d, steady_readings[i - 1].time_d));
+      throw InvalidReading(
+          i, fmt::format("times must increase strictly: {} d follows {} d", r.time_d, steady_readings[i - 1].time_d));
     }
   }
 
   const LineFit whole = fit_line(steady_readings);
   const double fall_rate = -whole.slope;
   if (!(fall_rate > 0.0)) {
-    throw std::invalid_argument(fmt::format(
-        "the reservoir level does not fall over the steady readings (fitted rate {:.4g} cm/d "
-        "upward); outflow would be zero or negative",
-        whole.slope));
+    throw base::InputError(
+        fmt::format("the reservoir level does not fall over the steady readings (fitted rate {:.4g} cm/d "
+                    "upward); outflow would be zero or negative",
+                    whole.slope));
   }
 
   // Drift: halves split at the middle reading; with an odd count the middle one is shared.
@@ -100,14 +101,13 @@ SteadyOutflow steady_outflow(std::span<const ReservoirReading> steady_readings,
   std::string note;
   if (out.relative_drift > tolerances.max_relative_drift) {
     note = fmt::format("fall rate drifts from {:.4g} to {:.4g} cm/d between the halves ({:.1f}% > {:.1f}% allowed)",
-                       first_rate, second_rate, 100.0 * out.relative_drift,
-                       100.0 * tolerances.max_relative_drift);
+                       first_rate, second_rate, 100.0 * out.relative_drift, 100.0 * tolerances.max_relative_drift);
   }
   if (out.relative_scatter > tolerances.max_relative_scatter) {
     if (!note.empty()) note += "; ";
-    note += fmt::format("readings scatter {:.3g} cm about the line, {:.1f}% of the {:.3g} cm fall ({:.1f}% allowed)",
-                        residual_std, 100.0 * out.relative_scatter, total_fall,
-                        100.0 * tolerances.max_relative_scatter);
+    note +=
+        fmt::format("readings scatter {:.3g} cm about the line, {:.1f}% of the {:.3g} cm fall ({:.1f}% allowed)",
+                    residual_std, 100.0 * out.relative_scatter, total_fall, 100.0 * tolerances.max_relative_scatter);
   }
   out.steady = note.empty();
   out.steadiness_note = note;

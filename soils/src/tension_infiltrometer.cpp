@@ -7,6 +7,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 namespace {
@@ -28,28 +29,28 @@ double disc_inflow(double supply_head_cm, double disc_radius_cm, double saturate
 
 DiscResult analyse_disc(std::span<const DiscFlow> flows, double disc_radius_cm) {
   if (!(disc_radius_cm > 0.0) || !std::isfinite(disc_radius_cm)) {
-    throw std::invalid_argument(fmt::format("disc radius must be positive, got {} cm", disc_radius_cm));
+    throw base::InputError(fmt::format("disc radius must be positive, got {} cm", disc_radius_cm));
   }
   if (flows.size() < 2) {
-    throw std::invalid_argument(fmt::format(
-        "the disc analysis needs steady flows at two or more supply heads, got {}", flows.size()));
+    throw base::InputError(
+        fmt::format("the disc analysis needs steady flows at two or more supply heads, got {}", flows.size()));
   }
   std::vector<DiscFlow> sorted(flows.begin(), flows.end());
   for (const auto& f : sorted) {
     if (!(f.supply_head_cm < 0.0) || !std::isfinite(f.supply_head_cm)) {
-      throw std::invalid_argument(fmt::format(
-          "supply heads must be negative (below atmospheric pressure), got {} cm", f.supply_head_cm));
+      throw base::InputError(
+          fmt::format("supply heads must be negative (below atmospheric pressure), got {} cm", f.supply_head_cm));
     }
     if (!(f.steady_inflow_cm3_per_d > 0.0) || !std::isfinite(f.steady_inflow_cm3_per_d)) {
-      throw std::invalid_argument(fmt::format("the steady flow at {} cm must be positive, got {} cm3/d",
-                                              f.supply_head_cm, f.steady_inflow_cm3_per_d));
+      throw base::InputError(fmt::format("the steady flow at {} cm must be positive, got {} cm3/d", f.supply_head_cm,
+                                         f.steady_inflow_cm3_per_d));
     }
   }
   std::sort(sorted.begin(), sorted.end(),
             [](const DiscFlow& a, const DiscFlow& b) { return a.supply_head_cm < b.supply_head_cm; });
   for (std::size_t i = 1; i < sorted.size(); ++i) {
     if (sorted[i].supply_head_cm == sorted[i - 1].supply_head_cm) {
-      throw std::invalid_argument(
+      throw base::InputError(
           fmt::format("supply head {} cm appears twice; give one steady flow per head", sorted[i].supply_head_cm));
     }
   }
@@ -62,11 +63,10 @@ DiscResult analyse_disc(std::span<const DiscFlow> flows, double disc_radius_cm) 
     const double alpha = std::log(wetter.steady_inflow_cm3_per_d / drier.steady_inflow_cm3_per_d) /
                          (wetter.supply_head_cm - drier.supply_head_cm);
     if (!(alpha > 0.0)) {
-      throw std::invalid_argument(fmt::format(
+      throw base::InputError(fmt::format(
           "the flow at {} cm ({:.4g} cm3/d) is not larger than at the drier {} cm ({:.4g} cm3/d); the Gardner "
           "model needs flow to rise toward saturation (check the readings or the disc contact)",
-          wetter.supply_head_cm, wetter.steady_inflow_cm3_per_d, drier.supply_head_cm,
-          drier.steady_inflow_cm3_per_d));
+          wetter.supply_head_cm, wetter.steady_inflow_cm3_per_d, drier.supply_head_cm, drier.steady_inflow_cm3_per_d));
     }
     result.pairs.push_back({{drier.supply_head_cm, wetter.supply_head_cm}, alpha});
   }

@@ -12,6 +12,8 @@
 
 #include <fmt/format.h>
 #include <fmt/ranges.h>
+#include "wetfront/base/did_you_mean.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 namespace {
@@ -25,18 +27,18 @@ constexpr TextureClass make(std::string_view name, double theta_r, double theta_
 
 //                                              theta_r theta_s alpha   n     Ks (cm/d)
 constexpr std::array<TextureClass, 12> kClasses{{
-    make("sand",                                  0.045, 0.43, 0.145, 2.68, 712.8),
-    make("loamy sand",                            0.057, 0.41, 0.124, 2.28, 350.2),
-    make("sandy loam",                            0.065, 0.41, 0.075, 1.89, 106.1),
-    make("loam",                                  0.078, 0.43, 0.036, 1.56, 24.96),
-    make("silt",                                  0.034, 0.46, 0.016, 1.37, 6.00),
-    make("silt loam",                             0.067, 0.45, 0.020, 1.41, 10.80),
-    make("sandy clay loam",                       0.100, 0.39, 0.059, 1.48, 31.44),
-    make("clay loam",                             0.095, 0.41, 0.019, 1.31, 6.24),
-    make("silty clay loam",                       0.089, 0.43, 0.010, 1.23, 1.68),
-    make("sandy clay",                            0.100, 0.38, 0.027, 1.23, 2.88),
-    make("silty clay",                            0.070, 0.36, 0.005, 1.09, 0.48),
-    make("clay",                                  0.068, 0.38, 0.008, 1.09, 4.80),
+    make("sand", 0.045, 0.43, 0.145, 2.68, 712.8),
+    make("loamy sand", 0.057, 0.41, 0.124, 2.28, 350.2),
+    make("sandy loam", 0.065, 0.41, 0.075, 1.89, 106.1),
+    make("loam", 0.078, 0.43, 0.036, 1.56, 24.96),
+    make("silt", 0.034, 0.46, 0.016, 1.37, 6.00),
+    make("silt loam", 0.067, 0.45, 0.020, 1.41, 10.80),
+    make("sandy clay loam", 0.100, 0.39, 0.059, 1.48, 31.44),
+    make("clay loam", 0.095, 0.41, 0.019, 1.31, 6.24),
+    make("silty clay loam", 0.089, 0.43, 0.010, 1.23, 1.68),
+    make("sandy clay", 0.100, 0.38, 0.027, 1.23, 2.88),
+    make("silty clay", 0.070, 0.36, 0.005, 1.09, 0.48),
+    make("clay", 0.068, 0.38, 0.008, 1.09, 4.80),
 }};
 
 // Lower case; '_' and '-' become spaces; runs of spaces collapse; ends trimmed.
@@ -50,22 +52,6 @@ std::string normalise(std::string_view name) {
   }
   if (!out.empty() && out.back() == ' ') out.pop_back();
   return out;
-}
-
-// Levenshtein edit distance (insertions, deletions, substitutions).
-std::size_t edit_distance(std::string_view a, std::string_view b) {
-  std::vector<std::size_t> row(b.size() + 1);
-  for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
-  for (std::size_t i = 1; i <= a.size(); ++i) {
-    std::size_t diagonal = row[0];
-    row[0] = i;
-    for (std::size_t j = 1; j <= b.size(); ++j) {
-      const std::size_t above = row[j];
-      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diagonal + (a[i - 1] == b[j - 1] ? 0 : 1)});
-      diagonal = above;
-    }
-  }
-  return row[b.size()];
 }
 
 }  // namespace
@@ -84,7 +70,7 @@ std::optional<std::string_view> closest_texture_class_name(std::string_view name
   std::optional<std::string_view> best;
   std::size_t best_distance = 0;
   for (const auto& c : kClasses) {
-    const std::size_t d = edit_distance(key, c.name);
+    const std::size_t d = base::edit_distance(key, c.name);
     if (!best || d < best_distance) {
       best = c.name;
       best_distance = d;
@@ -101,9 +87,9 @@ VanGenuchtenMualem texture_class_parameters(std::string_view name) {
   std::vector<std::string_view> names;
   for (const auto& c : kClasses) names.push_back(c.name);
   const auto suggestion = closest_texture_class_name(name);
-  throw std::invalid_argument(fmt::format("unknown soil texture class '{}'{}; valid names are: {}", name,
-                                          suggestion ? fmt::format(" (did you mean '{}'?)", *suggestion) : "",
-                                          fmt::join(names, ", ")));
+  throw base::InputError(fmt::format("unknown soil texture class '{}'{}; valid names are: {}", name,
+                                     suggestion ? fmt::format(" (did you mean '{}'?)", *suggestion) : "",
+                                     fmt::join(names, ", ")));
 }
 
 }  // namespace wetfront::soils

@@ -7,6 +7,7 @@
 #include <stdexcept>
 
 #include <fmt/format.h>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 namespace {
@@ -19,7 +20,7 @@ constexpr std::array<WellSoilCategory, 5> categories = {
 
 void require_positive(double value, const char* what) {
   if (!(value > 0.0) || !std::isfinite(value)) {
-    throw std::invalid_argument(fmt::format("{} must be a positive number, got {}", what, value));
+    throw base::InputError(fmt::format("{} must be a positive number, got {}", what, value));
   }
 }
 
@@ -96,7 +97,7 @@ WellSoilCategory parse_category(std::string_view name) {
     if (!accepted.empty()) accepted += ", ";
     accepted += category_name(category);
   }
-  throw std::invalid_argument(fmt::format("unknown soil category '{}'; expected one of {}", name, accepted));
+  throw base::InputError(fmt::format("unknown soil category '{}'; expected one of {}", name, accepted));
 }
 
 double well_shape_factor(double water_depth_cm, double well_radius_cm, ShapeFactorSoil soil) {
@@ -129,8 +130,8 @@ WellResult single_head_analysis(const WellFlow& flow, double well_radius_cm, Wel
   result.field_saturated_conductivity_cm_per_d = kfs;
   result.matric_flux_potential_cm2_per_d = kfs / alpha_star;
   result.sorptive_number_per_cm = alpha_star;
-  result.method = fmt::format("single head, H = {:.4g} cm, alpha* = {} /cm ({})", flow.water_depth_cm,
-                              alpha_star, category_name(category));
+  result.method = fmt::format("single head, H = {:.4g} cm, alpha* = {} /cm ({})", flow.water_depth_cm, alpha_star,
+                              category_name(category));
   return result;
 }
 
@@ -139,8 +140,8 @@ WellResult two_head_analysis(const WellFlow& shallower, const WellFlow& deeper, 
   check_flow(shallower, well_radius_cm);
   check_flow(deeper, well_radius_cm);
   if (std::abs(shallower.water_depth_cm - deeper.water_depth_cm) < 1e-9 * deeper.water_depth_cm) {
-    throw std::invalid_argument(fmt::format(
-        "the two-head analysis needs two different water depths, got {} cm twice", deeper.water_depth_cm));
+    throw base::InputError(
+        fmt::format("the two-head analysis needs two different water depths, got {} cm twice", deeper.water_depth_cm));
   }
   const ShapeFactorSoil soil = shape_factor_soil(category);
   const auto k1 = flow_coefficients(shallower.water_depth_cm, well_radius_cm, soil);

@@ -14,6 +14,8 @@ namespace wetfront::solver::detail {
 
 namespace {
 
+constexpr double sink_cutoff = 1e-3;  // cm3/cm3 above the driest table node
+
 double initial_head(const InitialCondition& initial, double depth) {
   if (const auto* wt = std::get_if<Hydrostatic>(&initial)) return depth - wt->water_table_depth_cm;
   if (const auto* u = std::get_if<UniformHead>(&initial)) return u->head_cm;
@@ -209,13 +211,11 @@ double ColumnModel::cell_water_content(std::size_t i, std::span<const double> y)
   return cell_table_[i]->water_content(s, cell_table_[i]->at(s).head_cm);
 }
 
-bool ColumnModel::evaluate_cells(std::span<const double> y) {
+void ColumnModel::evaluate_cells(std::span<const double> y) {
   evaluated_state_.clear();  // set again by residual()
-  bool physical = true;
   for (std::size_t i = 0; i < cells(); ++i) {
     const double per_thickness = inverse_thickness_[i];
     const double s = cell_storage(i, y) * per_thickness;
-    if (!(s >= cell_table_[i]->lowest_storage())) physical = false;
     const auto p = cell_table_[i]->at(s);
     head_[i] = p.head_cm;
     head_per_storage_[i] = p.head_per_storage * per_thickness;
@@ -224,10 +224,24 @@ bool ColumnModel::evaluate_cells(std::span<const double> y) {
   }
   // Sinks are constant in time over a forcing period (their changes are breakpoints), so they
   // see the period start: a residual evaluated exactly at the period end keeps this period's values.
-  if (uptake_cells_ > 0)
+  if (uptake_cells_ > 0) {
     sink_->evaluate(period_start_, grid_.cell_depths_cm().first(uptake_cells_), std::span(head_).first(uptake_cells_),
                     sink_rate_, sink_slope_);
-  return physical;
+    // A sink cannot take water the cell does not hold: within sink_cutoff of the driest table
+    // node (theta_r to within round-off) the rate falls linearly to zero. Soils whose water is
+    // nearly all gone at moderate suction (a Gardner soil with a large sorptive number) would
+    // otherwise be emptied below theta_r at the Feddes rate until the head reached wilting.
+    for (std::size_t i = 0; i < uptake_cells_; ++i) {
+      const double above_dry = cell_storage(i, y) * inverse_thickness_[i] - cell_table_[i]->dry_storage();
+      if (above_dry >= sink_cutoff) continue;
+      const double share = std::max(above_dry, 0.0) / sink_cutoff;
+      // d(rate share)/dh = rate' share + rate d(share)/dS / (dh/dS)
+      const double share_per_head =
+          above_dry > 0 ? inverse_thickness_[i] / (sink_cutoff * head_per_storage_[i]) : 0.0;
+      sink_slope_[i] = sink_slope_[i] * share + sink_rate_[i] * share_per_head;
+      sink_rate_[i] *= share;
+    }
+  }
 }
 
 double ColumnModel::surface_head(double t, std::span<const double> y) const {
@@ -271,8 +285,8 @@ ColumnModel::BottomFlux ColumnModel::bottom_flux(const StoragePoint& last) const
   return {0.0, 0.0};
 }
 
-bool ColumnModel::residual(double t, std::span<const double> y, std::span<const double> yp, std::span<double> r) {
-  const bool physical = evaluate_cells(y);
+void ColumnModel::residual(double t, std::span<const double> y, std::span<const double> yp, std::span<double> r) {
+  evaluate_cells(y);
   evaluated_state_.assign(y.begin(), y.end());
   const std::size_t n = cells();
   const StoragePoint top{head_[0], head_per_storage_[0], conductivity_[0], conductivity_per_storage_[0]};
@@ -285,7 +299,6 @@ bool ColumnModel::residual(double t, std::span<const double> y, std::span<const 
   r[face_index(n)] = yp[face_index(n)] - bottom_flux(last).flux;
   for (std::size_t i = 0; i < uptake_cells_; ++i)
     r[uptake_index(i)] = yp[uptake_index(i)] - sink_rate_[i] * grid_.cell_thickness_cm(i);
-  return physical;
 }
 
 // dF/dy + cj dF/dy'. A head and a conductivity depend on their cell's stored water,

@@ -83,8 +83,7 @@ class ColumnModel {
   void rebase(double t_days, std::span<double> y);
   // y' consistent with y under the current modes.
   void consistent_rates(double t, std::span<const double> y, std::span<double> yp);
-  // Returns false when a cell's stored water lies below its soil's lowest storage.
-  bool residual(double t, std::span<const double> y, std::span<const double> yp, std::span<double> r);
+  void residual(double t, std::span<const double> y, std::span<const double> yp, std::span<double> r);
   void jacobian(double t, double cj, std::span<const double> y, SUNMatrix band);
 
   // IDA's error weights (1 / tolerance) for a state. Each cell's stored water may err by the
@@ -130,7 +129,7 @@ class ColumnModel {
     double flux;        // q_N, cm/d positive down
     double slope_storage;  // dq_N / dS_(N-1)
   };
-  bool evaluate_cells(std::span<const double> y);  // false when a storage is not physical
+  void evaluate_cells(std::span<const double> y);
   StoragePoint cell_point(std::size_t cell, std::span<const double> y) const;
   SurfaceFlux surface_flux(double t, std::span<const double> y, const StoragePoint& top) const;
   SurfaceFlux head_limited_flux(double surface_head_cm, const StoragePoint& top) const;

@@ -1,5 +1,7 @@
 #include "storage_table.hpp"
 
+#include "wetfront/soils/model_parameters.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -36,16 +38,10 @@ void limit_slopes(const std::vector<double>& x, const std::vector<double>& y, st
 
 }  // namespace
 
-double saturation_head(const soils::HydraulicModel& model) {
-  if (const auto* ae = std::get_if<soils::VanGenuchtenAirEntry>(&model)) return ae->air_entry_head_cm;
-  if (const auto* bc = std::get_if<soils::BrooksCorey>(&model)) return bc->bubbling_head_cm;
-  return 0.0;
-}
-
 StorageTable::StorageTable(const soils::HydraulicModel& model, double specific_storage, StorageTableSettings settings)
     : model_(model),
       specific_storage_(specific_storage),
-      saturation_head_(saturation_head(model)),
+      saturation_head_(soils::full_saturation_head(model)),
       saturated_conductivity_(soils::saturated_conductivity(model)) {
   if (!(specific_storage_ > 0)) throw std::invalid_argument("specific storage must be positive");
   // Node heads, wettest first: h_sat, then h_sat - d_min r^k until the dry end.

@@ -68,10 +68,6 @@ class StorageTable {
   double saturation_head_cm() const { return saturation_head_; }
   double full_storage() const { return full_storage_; }  // s at h_sat
   double dry_storage() const { return dry_storage_; }    // s at the driest node
-  // Below this the state is not physical (water content 1e-4 under the driest node, a head of
-  // about -1e6 cm or less on the linear dry continuation): the residual refuses it, so a Newton
-  // iterate that overshoots there makes IDA shorten the step instead of accepting it.
-  double lowest_storage() const { return dry_storage_ - 1e-4; }
   std::size_t node_count() const { return storage_.size(); }
 
  private:
@@ -106,9 +102,5 @@ class StorageTable {
   std::vector<unsigned> bucket_first_, bucket_last_;
   double bucket_scale_ = 0;
 };
-
-// Head at which the model's effective saturation reaches one (0 cm, or the air-entry head, or
-// the bubbling head).
-double saturation_head(const soils::HydraulicModel& model);
 
 }  // namespace wetfront::solver::detail

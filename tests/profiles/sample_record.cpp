@@ -69,8 +69,7 @@ RunRecord sample_record() {
     // transpiration + bottom flux, and water input = infiltration + evaporation + runoff.
     balance.transpiration_cm = 0.06 * day;
     balance.bottom_flux_cm = 0.01 * day * day / 30.0;
-    balance.infiltration_cm =
-        (storage_cm - initial_storage_cm) + balance.transpiration_cm + balance.bottom_flux_cm;
+    balance.infiltration_cm = (storage_cm - initial_storage_cm) + balance.transpiration_cm + balance.bottom_flux_cm;
     balance.potential_evaporation_cm = 0.3 * day;
     balance.actual_evaporation_cm = 0.2 * day;
     balance.runoff_cm = day > 10 ? 0.1 : 0.0;
@@ -112,17 +111,29 @@ RunRecord sample_record() {
   // own specific yield (0.15) and recession rate (0.2 cm/d), R = Sy (start + rate x days - end)
   // (Healy & Cook 2002): 0.15 x (310 + 1.4 - 305.5) = 0.885, 0.15 x (305.5 + 1.4 - 306) = 0.135,
   // 0.15 x (306 + 1.4 - 307) = 0.06, 0.15 x (307 + 1.6 - 304) = 0.69 cm.
-  record.darcy_estimate = DarcyEstimateRecord{
-      "tensiometer 15 cm", "tensiometer 70 cm", 15.0, 70.0, "K from the hydraulic model of layer 'sandy loam subsoil'",
-      {nan, 0.12, 0.0, -0.03}, {"no estimate", "agree", "agree", "differ"},
-      {"no reliable reading of both within 1 d of a visit", "", "", ""}};
-  record.water_table_estimate = WaterTableEstimateRecord{
-      "well A", 0.15, 0.2, "invented value for the sample",
-      {310.0, 305.5, 306.0, 307.0}, {305.5, 306.0, 307.0, 304.0}, {0.885, 0.135, 0.06, 0.69},
-      {"agree", "agree", "differ", "differ"}, {"", "", "", ""}};
-  record.stored_water = StoredWaterRecord{{15.0, 40.0, 70.0}, {"probe 15 cm", "probe 40 cm", "probe 70 cm", "cores"},
-                                          {0.0, 7.0, 14.0, 21.0, 29.0}, {nan, 18.5, 18.25, 17.75, 18.0},
-                                          {nan, 18.0, 18.125, 17.5, 17.5}, {nan, -0.25, -0.5, 0.25},
+  record.darcy_estimate = DarcyEstimateRecord{"tensiometer 15 cm",
+                                              "tensiometer 70 cm",
+                                              15.0,
+                                              70.0,
+                                              "K from the hydraulic model of layer 'sandy loam subsoil'",
+                                              {nan, 0.12, 0.0, -0.03},
+                                              {"no estimate", "agree", "agree", "differ"},
+                                              {"no reliable reading of both within 1 d of a visit", "", "", ""}};
+  record.water_table_estimate = WaterTableEstimateRecord{"well A",
+                                                         0.15,
+                                                         0.2,
+                                                         "invented value for the sample",
+                                                         {310.0, 305.5, 306.0, 307.0},
+                                                         {305.5, 306.0, 307.0, 304.0},
+                                                         {0.885, 0.135, 0.06, 0.69},
+                                                         {"agree", "agree", "differ", "differ"},
+                                                         {"", "", "", ""}};
+  record.stored_water = StoredWaterRecord{{15.0, 40.0, 70.0},
+                                          {"probe 15 cm", "probe 40 cm", "probe 70 cm", "cores"},
+                                          {0.0, 7.0, 14.0, 21.0, 29.0},
+                                          {nan, 18.5, 18.25, 17.75, 18.0},
+                                          {nan, 18.0, 18.125, 17.5, 17.5},
+                                          {nan, -0.25, -0.5, 0.25},
                                           {nan, 0.125, -0.625, 0.0}};
   return record;
 }

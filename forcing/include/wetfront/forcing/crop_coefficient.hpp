@@ -12,6 +12,7 @@
 
 #include <array>
 #include <vector>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -32,15 +33,15 @@ GrowthStage growth_stage_at(double planting_day, const GrowthStageLengths& stage
 std::array<double, 5> growth_stage_boundaries(double planting_day, const GrowthStageLengths& stages);
 
 struct CropCoefficientCurve {
-  double planting_day = 0;        // days since run start
+  double planting_day = 0;  // days since run start
   GrowthStageLengths stages;
   double kc_initial = 0;
   double kc_mid = 0;
   double kc_end = 0;
-  double kc_bare_soil = 0;        // before planting and after harvest
+  double kc_bare_soil = 0;  // before planting and after harvest
 };
 
-// Throws std::invalid_argument naming the field when a stage length is negative, the season
+// Throws base::InputError naming the field when a stage length is negative, the season
 // is empty, or a coefficient is negative or above 2.
 void check_crop_curve(const CropCoefficientCurve& curve);
 double crop_coefficient_at(const CropCoefficientCurve& curve, double day);
@@ -53,7 +54,7 @@ struct PanToCropFactors {
   double development = 0;
   double mid_season = 0;
   double late_season = 0;
-  double bare_soil = 0;           // before planting and after harvest
+  double bare_soil = 0;  // before planting and after harvest
 };
 
 void check_pan_to_crop_factors(const PanToCropFactors& factors);

@@ -11,22 +11,23 @@
 #include <vector>
 
 #include "wetfront/forcing/step_series.hpp"
-#include "wetfront/forcing/time_axis.hpp"
+#include "wetfront/base/time_point.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
 struct DepthInterval {
-  double start_day = 0;                 // days since run start
-  double end_day = 0;                   // > start_day
-  std::optional<double> depth_cm;       // >= 0; nothing when the record is missing
-  int source_line = 0;                  // line in the source file, 0 when not from a file
+  double start_day = 0;            // days since run start
+  double end_day = 0;              // > start_day
+  std::optional<double> depth_cm;  // >= 0; nothing when the record is missing
+  int source_line = 0;             // line in the source file, 0 when not from a file
 };
 
 struct DepthSeries {
-  std::string quantity;                 // "rain", "irrigation", "pan_evaporation", ...
-  std::string source_file;              // for messages; may be empty
-  TimePoint run_start{};                // to print days back as dates in messages
-  std::vector<DepthInterval> intervals; // in time order, not overlapping
+  std::string quantity;                  // "rain", "irrigation", "pan_evaporation", ...
+  std::string source_file;               // for messages; may be empty
+  base::TimePoint run_start{};           // to print days back as dates in messages
+  std::vector<DepthInterval> intervals;  // in time order, not overlapping
 };
 
 enum class GapPolicy {
@@ -41,15 +42,15 @@ struct GapReport {
 };
 
 struct RateConversion {
-  CoveredSeries rate_cm_per_day;        // on [0, end_day)
-  std::vector<GapReport> gaps;          // gaps found (filled with zero, or the one stopped at)
+  CoveredSeries rate_cm_per_day;  // on [0, end_day)
+  std::vector<GapReport> gaps;    // gaps found (filled with zero, or the one stopped at)
 };
 
-// Checks order, overlap and signs (throws InputError naming the line) and converts the series
+// Checks order, overlap and signs (throws base::InputError naming the line) and converts the series
 // to a rate on [0, run_length_days). Intervals partly outside the run are clipped to it.
 RateConversion depth_series_to_rate(const DepthSeries& series, double run_length_days, GapPolicy policy);
 
-// Throws InputError when intervals are out of order, overlapping, empty, or have negative depth.
+// Throws base::InputError when intervals are out of order, overlapping, empty, or have negative depth.
 void check_depth_series(const DepthSeries& series);
 
 }  // namespace wetfront::forcing

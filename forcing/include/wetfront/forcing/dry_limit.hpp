@@ -5,10 +5,12 @@
 // texts, e.g. Hillel 1998, ch. 3: from memory).
 #pragma once
 
+#include "wetfront/base/input_error.hpp"
+
 namespace wetfront::forcing {
 
 // Pressure head in cm of water (negative). relative_humidity is a fraction in (0, 1);
-// air_temperature_c in degrees Celsius (above -273.15). Throws std::invalid_argument otherwise.
+// air_temperature_c in degrees Celsius (above -273.15). Throws base::InputError otherwise.
 double dry_limit_head_from_humidity(double relative_humidity, double air_temperature_c);
 
 }  // namespace wetfront::forcing

@@ -9,6 +9,7 @@
 #pragma once
 
 #include <string_view>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
@@ -36,12 +37,12 @@ HumidityClass humidity_class_of(double mean_relative_humidity_pct);
 FetchClass fetch_class_of(double fetch_m);
 
 // FAO-56 Table 5 entry.
-double class_a_pan_coefficient_from_table(PanSurroundings surroundings, WindClass wind,
-                                          HumidityClass humidity, FetchClass fetch);
+double class_a_pan_coefficient_from_table(PanSurroundings surroundings, WindClass wind, HumidityClass humidity,
+                                          FetchClass fetch);
 double class_a_pan_coefficient_from_table(const PanSite& site);
 
 // FAO-56 regression equations for Table 5. Valid for 1 <= u2 <= 8 m/s, 30 <= RHmean <= 84 %
-// and 1 <= fetch <= 1000 m; outside that range std::invalid_argument names the input.
+// and 1 <= fetch <= 1000 m; outside that range base::InputError names the input.
 double class_a_pan_coefficient_from_regression(const PanSite& site);
 
 struct PanCoefficientChoice {

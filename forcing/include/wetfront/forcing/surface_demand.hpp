@@ -21,18 +21,19 @@
 #include "wetfront/forcing/crop_coefficient.hpp"
 #include "wetfront/forcing/dated_table.hpp"
 #include "wetfront/forcing/step_series.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::forcing {
 
 struct CropFromReference {
-  double pan_coefficient = 0.7;   // Kp
+  double pan_coefficient = 0.7;  // Kp
   CropCoefficientCurve curve;
 };
 
 struct SurfaceDemandInputs {
   double run_length_days = 0;
-  std::vector<CoveredSeries> water_inputs;   // rain, irrigation: rates in cm/d
-  CoveredSeries pan_evaporation;             // cm/d
+  std::vector<CoveredSeries> water_inputs;  // rain, irrigation: rates in cm/d
+  CoveredSeries pan_evaporation;            // cm/d
   std::variant<CropFromReference, PanToCropFactors> crop;
   CanopySplit split;
   DatedTable root_depth_cm = DatedTable::constant("root depth", 0.0);
@@ -41,15 +42,15 @@ struct SurfaceDemandInputs {
 
 struct SurfaceDemand {
   // All five share the same start_days; each is defined on [0, end_day).
-  StepSeries water_input_cm_per_day;
-  StepSeries potential_evaporation_cm_per_day;    // from the soil surface
-  StepSeries potential_transpiration_cm_per_day;
-  StepSeries root_depth_cm;
-  StepSeries leaf_area_index;
-  double end_day = 0;   // the run length, or earlier when an input series stops sooner
+  base::StepSeries water_input_cm_per_day;
+  base::StepSeries potential_evaporation_cm_per_day;  // from the soil surface
+  base::StepSeries potential_transpiration_cm_per_day;
+  base::StepSeries root_depth_cm;
+  base::StepSeries leaf_area_index;
+  double end_day = 0;  // the run length, or earlier when an input series stops sooner
 };
 
-// Throws std::invalid_argument naming the input when a series does not start at day 0 or is
+// Throws base::InputError naming the input when a series does not start at day 0 or is
 // malformed, a table or coefficient is out of range, or max_step_days is not positive.
 SurfaceDemand surface_demand(const SurfaceDemandInputs& inputs);
 

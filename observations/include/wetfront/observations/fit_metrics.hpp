@@ -12,21 +12,22 @@
 #pragma once
 
 #include <span>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
 struct FitMetrics {
   int count = 0;
-  double bias = 0;                  // mean(s - o)
+  double bias = 0;  // mean(s - o)
   double root_mean_square_error = 0;
   double nash_sutcliffe = 0;
   double kling_gupta = 0;
-  double correlation = 0;           // r
-  double variability_ratio = 0;     // alpha
-  double mean_ratio = 0;            // beta
+  double correlation = 0;        // r
+  double variability_ratio = 0;  // alpha
+  double mean_ratio = 0;         // beta
 };
 
-// Throws std::invalid_argument when the spans differ in length.
+// Throws base::InputError when the spans differ in length.
 FitMetrics fit_metrics(std::span<const double> simulated, std::span<const double> observed);
 
 }  // namespace wetfront::observations

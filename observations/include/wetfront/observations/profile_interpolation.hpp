@@ -12,6 +12,7 @@
 
 #include <optional>
 #include <vector>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
@@ -21,12 +22,11 @@ struct SimulatedProfiles {
   std::vector<std::vector<double>> values;  // values[time index][depth index]
 };
 
-// Throws std::invalid_argument when the sizes disagree, an axis is empty or not increasing.
+// Throws base::InputError when the sizes disagree, an axis is empty or not increasing.
 void check_profiles(const SimulatedProfiles& profiles);
 
 // The value at (day, depth); nullopt outside [first, last] time or [first, last] centre depth
 // (for example after the end of an incomplete run). Assumes check_profiles passed.
-std::optional<double> simulated_value_at(const SimulatedProfiles& profiles, double day,
-                                         double depth_cm);
+std::optional<double> simulated_value_at(const SimulatedProfiles& profiles, double day, double depth_cm);
 
 }  // namespace wetfront::observations

@@ -7,10 +7,11 @@
 
 #include <span>
 #include <vector>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
-// Throws std::invalid_argument for fewer than two depths, mismatched sizes or depths not
+// Throws base::InputError for fewer than two depths, mismatched sizes or depths not
 // strictly increasing.
 double profile_storage_cm(std::span<const double> depths_cm, std::span<const double> water_content);
 
@@ -28,7 +29,7 @@ struct StorageChange {
   double change_cm = 0;  // end minus start; positive when the profile gained water
 };
 
-// One row per consecutive pair of visits. Throws std::invalid_argument when visits are not in
+// One row per consecutive pair of visits. Throws base::InputError when visits are not in
 // increasing time or use different depths (storages over different layers do not compare).
 std::vector<StorageChange> storage_changes(std::span<const ProbeProfile> visits);
 

@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "wetfront/soils/hydraulic_models.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
@@ -21,13 +22,13 @@ struct IntervalRecharge {
 // Darcy's law with depth d positive downward and fluxes positive downward (total head
 // H = h - d):  q = K(h_mean) (1 - (h_lower - h_upper) / (d_lower - d_upper)),
 // K taken at the arithmetic mean head of the pair, h_mean = (h_upper + h_lower) / 2.
-double darcy_flux_cm_per_d(const soils::HydraulicModel& soil, double upper_depth_cm,
-                           double upper_head_cm, double lower_depth_cm, double lower_head_cm);
+double darcy_flux_cm_per_d(const soils::HydraulicModel& soil, double upper_depth_cm, double upper_head_cm,
+                           double lower_depth_cm, double lower_head_cm);
 
 struct TensiometerPair {
   soils::HydraulicModel soil;  // the layer around both cups
   double upper_depth_cm = 0;
-  double lower_depth_cm = 0;   // deeper than upper_depth_cm
+  double lower_depth_cm = 0;  // deeper than upper_depth_cm
 };
 
 struct PairHeads {
@@ -37,10 +38,9 @@ struct PairHeads {
 };
 
 // Per interval between consecutive visits: the arithmetic mean of the two end fluxes, each
-// from darcy_flux_cm_per_d at that visit. Throws std::invalid_argument for depths out of
+// from darcy_flux_cm_per_d at that visit. Throws base::InputError for depths out of
 // order or visits not increasing in time.
-std::vector<IntervalRecharge> darcy_recharge(const TensiometerPair& pair,
-                                             std::span<const PairHeads> visits);
+std::vector<IntervalRecharge> darcy_recharge(const TensiometerPair& pair, std::span<const PairHeads> visits);
 
 // --- Water-table fluctuation (Healy & Cook 2002, Hydrogeology Journal 10:91) --------
 //   R = Sy * dh/dt,  summed over an interval as R = Sy * rise
@@ -53,8 +53,8 @@ struct WaterTableReading {
 };
 
 struct WaterTableFluctuation {
-  double specific_yield = 0;                    // dimensionless, 0 < Sy < 1
-  double antecedent_recession_cm_per_d = 0;     // fall rate without recharge, >= 0
+  double specific_yield = 0;                 // dimensionless, 0 < Sy < 1
+  double antecedent_recession_cm_per_d = 0;  // fall rate without recharge, >= 0
 };
 
 std::vector<IntervalRecharge> water_table_recharge(const WaterTableFluctuation& method,
@@ -62,8 +62,8 @@ std::vector<IntervalRecharge> water_table_recharge(const WaterTableFluctuation& 
 
 // --- Comparing two estimates -------------------------------------------------------------
 struct ComparisonRule {
-  double factor = 2.0;        // disagreement when one exceeds the other by more than this
-  double negligible_cm = 0.0; // both at or below this (in magnitude) agree whatever the ratio
+  double factor = 2.0;         // disagreement when one exceeds the other by more than this
+  double negligible_cm = 0.0;  // both at or below this (in magnitude) agree whatever the ratio
 };
 
 struct EstimateAgreement {
@@ -74,7 +74,6 @@ struct EstimateAgreement {
 
 // Two estimates disagree when their signs differ, or when the larger exceeds the smaller by
 // more than the factor.
-EstimateAgreement compare_recharge_estimates(double first_cm, double second_cm,
-                                             ComparisonRule rule = {});
+EstimateAgreement compare_recharge_estimates(double first_cm, double second_cm, ComparisonRule rule = {});
 
 }  // namespace wetfront::observations

@@ -8,6 +8,7 @@
 #include "wetfront/observations/fit_metrics.hpp"
 #include "wetfront/observations/observation.hpp"
 #include "wetfront/observations/profile_interpolation.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::observations {
 
@@ -27,15 +28,14 @@ struct SensorFit {
 
 struct ComparisonReport {
   std::vector<SensorFit> sensors;
-  FitMetrics overall;          // all used pairs of all sensors pooled
+  FitMetrics overall;  // all used pairs of all sensors pooled
   int unreliable_left_out = 0;
   int outside_simulation = 0;
   int outside_depth = 0;
 };
 
-// Throws std::invalid_argument when the profiles fail check_profiles.
-ComparisonReport compare_with_simulation(std::span<const SensorSeries> sensors,
-                                         const SimulatedProfiles& profiles,
+// Throws base::InputError when the profiles fail check_profiles.
+ComparisonReport compare_with_simulation(std::span<const SensorSeries> sensors, const SimulatedProfiles& profiles,
                                          ComparisonOptions options = {});
 
 }  // namespace wetfront::observations

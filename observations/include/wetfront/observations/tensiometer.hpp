@@ -35,9 +35,9 @@ double tension_as_head_cm(Tension tension);
 enum class ReadingPoint { gauge_above_ground, transducer_at_cup };
 
 struct TensiometerInstallation {
-  double cup_depth_cm = 0;                    // depth of the cup centre, positive downward
+  double cup_depth_cm = 0;  // depth of the cup centre, positive downward
   ReadingPoint read_at = ReadingPoint::gauge_above_ground;
-  double gauge_height_above_ground_cm = 0;    // used only for gauge_above_ground
+  double gauge_height_above_ground_cm = 0;  // used only for gauge_above_ground
 };
 
 // Pressure head at the cup, cm of water (negative when unsaturated).
@@ -62,7 +62,6 @@ struct CupHeadSeries {
 };
 
 CupHeadSeries cup_pressure_heads(const TensiometerInstallation& installation,
-                                 std::span<const TensiometerReading> readings,
-                                 WorkingLimit limit = {});
+                                 std::span<const TensiometerReading> readings, WorkingLimit limit = {});
 
 }  // namespace wetfront::observations

@@ -19,8 +19,8 @@ struct PolynomialCalibration {
 };
 double calibrated_water_content(const PolynomialCalibration& calibration, double reading);
 
-struct ReadsVolumeFraction {};   // the probe reports cm3/cm3 already
-struct ToppPermittivity {};      // the probe reports apparent permittivity Ka
+struct ReadsVolumeFraction {};  // the probe reports cm3/cm3 already
+struct ToppPermittivity {};     // the probe reports apparent permittivity Ka
 using ProbeConversion = std::variant<ReadsVolumeFraction, ToppPermittivity, PolynomialCalibration>;
 
 // Water content, cm3/cm3, from one reading under the given conversion.

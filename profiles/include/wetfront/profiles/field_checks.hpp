@@ -16,23 +16,23 @@ namespace wetfront::profiles {
 struct DarcyEstimateRecord {
   std::string upper_sensor, lower_sensor;
   double upper_depth_cm = 0, lower_depth_cm = 0;
-  std::string conductivity_note;            // which layer's hydraulic model gives K
-  std::vector<double> amount_cm;            // [interval]; NaN without an estimate
-  std::vector<std::string> agreement;       // [interval]: "agree", "differ" or "no estimate"
-  std::vector<std::string> missing;         // [interval]: why there is no estimate, else empty
+  std::string conductivity_note;       // which layer's hydraulic model gives K
+  std::vector<double> amount_cm;       // [interval]; NaN without an estimate
+  std::vector<std::string> agreement;  // [interval]: "agree", "differ" or "no estimate"
+  std::vector<std::string> missing;    // [interval]: why there is no estimate, else empty
 };
 
 // Water-table fluctuation (Healy & Cook 2002): specific yield x rise of the water table.
 struct WaterTableEstimateRecord {
   std::string well;
-  double specific_yield = 0;                // 1
-  double recession_cm_per_d = 0;            // antecedent fall rate without recharge
-  std::string specific_yield_note;          // where the specific yield comes from
-  std::vector<double> start_depth_cm;       // [interval]: water-table depth read at its start; NaN: none
-  std::vector<double> end_depth_cm;         // [interval]: at its end
-  std::vector<double> amount_cm;            // [interval]; NaN without an estimate
-  std::vector<std::string> agreement;       // [interval]: against the model's drainage
-  std::vector<std::string> missing;         // [interval]
+  double specific_yield = 0;           // 1
+  double recession_cm_per_d = 0;       // antecedent fall rate without recharge
+  std::string specific_yield_note;     // where the specific yield comes from
+  std::vector<double> start_depth_cm;  // [interval]: water-table depth read at its start; NaN: none
+  std::vector<double> end_depth_cm;    // [interval]: at its end
+  std::vector<double> amount_cm;       // [interval]; NaN without an estimate
+  std::vector<std::string> agreement;  // [interval]: against the model's drainage
+  std::vector<std::string> missing;    // [interval]
 };
 
 // Water stored between the shallowest and the deepest water-content depth (trapezoid over

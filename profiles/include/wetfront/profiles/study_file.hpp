@@ -18,7 +18,7 @@ inline constexpr int kStudyFormatVersion = 1;
 
 struct StudyColumn {
   std::string name;
-  std::string units;           // "1" for a plain number
+  std::string units;  // "1" for a plain number
   std::string long_name;
   std::vector<double> values;  // one per row of the table
 };
@@ -32,7 +32,7 @@ struct StudyTextColumn {
 // rows x columns, row-major; rows follow the table's axis, columns their own axis.
 struct StudyMatrix {
   std::string name, units, long_name;
-  StudyColumn column_axis;     // written once per group under its name, as a dimension scale
+  StudyColumn column_axis;  // written once per group under its name, as a dimension scale
   std::vector<double> values;
 };
 
@@ -47,16 +47,16 @@ struct StudyTable {
 
 // The simulated profiles of one run, with the parameter values it ran with.
 struct StudyRun {
-  std::string name;                                     // group name under /runs
+  std::string name;  // group name under /runs
   std::string description;
-  std::vector<std::pair<std::string, double>> values;   // parameter name (with unit) -> value
+  std::vector<std::pair<std::string, double>> values;  // parameter name (with unit) -> value
   solver::ColumnRun run;
 };
 
 struct StudyRecord {
-  std::string study_kind;       // "parameter sweep" or "calibration"
+  std::string study_kind;  // "parameter sweep" or "calibration"
   std::string site_name;
-  std::string run_start_date;   // ISO 8601; the origin of every time axis
+  std::string run_start_date;  // ISO 8601; the origin of every time axis
   std::string program_version;
   std::string input_hash;
   std::vector<std::pair<std::string, std::string>> notes;  // further root attributes

@@ -16,6 +16,7 @@
 #include <vector>
 
 #include "wetfront/soils/retention_fit.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
@@ -34,11 +35,11 @@ struct CoreProperties {
   double water_mass_g = 0.0;
   double dry_soil_mass_g = 0.0;
   double gravimetric_water_content_g_per_g = 0.0;
-  double volumetric_water_content = 0.0;      // cm3/cm3
+  double volumetric_water_content = 0.0;  // cm3/cm3
   double dry_bulk_density_g_per_cm3 = 0.0;
 };
 
-// Throws std::invalid_argument naming the sample for impossible data: non-positive or
+// Throws base::InputError naming the sample for impossible data: non-positive or
 // non-finite volume, oven-dry mass not above the tare, wet mass below the oven-dry mass,
 // or a water content above 1.
 CoreProperties core_properties(const CoreSample& core, double water_density_g_per_cm3 = kWaterDensity_g_per_cm3);
@@ -57,8 +58,7 @@ struct PorosityCheck {
   bool exceeds_porosity = false;  // theta_s > porosity + tolerance
   std::string message;            // empty when consistent
 };
-PorosityCheck check_against_porosity(double saturated_water_content, double porosity_value,
-                                     double tolerance = 0.02);
+PorosityCheck check_against_porosity(double saturated_water_content, double porosity_value, double tolerance = 0.02);
 
 // One equilibrium weighing of a core at a suction step.
 struct SuctionStep {

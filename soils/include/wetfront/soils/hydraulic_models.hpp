@@ -14,12 +14,12 @@ namespace wetfront::soils {
 // Mualem (1976, WRR 12:513) conductivity, van Genuchten eq. (8) generalised by the
 // pore-connectivity exponent l:  K = Ks Se^l [1 - (1 - Se^(1/m))^m]^2.
 struct VanGenuchtenMualem {
-  double residual_water_content = 0.0;   // theta_r, cm3/cm3
-  double saturated_water_content = 0.0;  // theta_s, cm3/cm3
-  double alpha_per_cm = 0.0;             // alpha, 1/cm
-  double n = 0.0;                        // n > 1, dimensionless
+  double residual_water_content = 0.0;           // theta_r, cm3/cm3
+  double saturated_water_content = 0.0;          // theta_s, cm3/cm3
+  double alpha_per_cm = 0.0;                     // alpha, 1/cm
+  double n = 0.0;                                // n > 1, dimensionless
   double saturated_conductivity_cm_per_d = 0.0;  // Ks, cm/d
-  double pore_connectivity = 0.5;        // l, dimensionless (Mualem 1976)
+  double pore_connectivity = 0.5;                // l, dimensionless (Mualem 1976)
 };
 
 // van Genuchten-Mualem with an air-entry head h_e < 0 (Ippisch, Vogel & Bastian 2006,
@@ -27,16 +27,16 @@ struct VanGenuchtenMualem {
 // eq. (9) and (10) there, which keeps K finite in slope for n near 1.
 struct VanGenuchtenAirEntry {
   VanGenuchtenMualem base;
-  double air_entry_head_cm = -2.0;       // h_e, cm (negative)
+  double air_entry_head_cm = -2.0;  // h_e, cm (negative)
 };
 
 // Brooks & Corey (1964, Hydrology Paper 3) retention, Se = (h_b/h)^lambda for h < h_b,
 // with Burdine (1953) conductivity K = Ks Se^(3 + 2/lambda).
 struct BrooksCorey {
-  double residual_water_content = 0.0;   // theta_r
-  double saturated_water_content = 0.0;  // theta_s
-  double bubbling_head_cm = -10.0;       // h_b, cm (negative)
-  double pore_size_index = 0.5;          // lambda, dimensionless
+  double residual_water_content = 0.0;           // theta_r
+  double saturated_water_content = 0.0;          // theta_s
+  double bubbling_head_cm = -10.0;               // h_b, cm (negative)
+  double pore_size_index = 0.5;                  // lambda, dimensionless
   double saturated_conductivity_cm_per_d = 0.0;  // Ks, cm/d
 };
 
@@ -46,12 +46,11 @@ struct BrooksCorey {
 struct GardnerExponential {
   double residual_water_content = 0.0;
   double saturated_water_content = 0.0;
-  double sorptive_number_per_cm = 0.0;   // a (often alpha*), 1/cm
+  double sorptive_number_per_cm = 0.0;  // a (often alpha*), 1/cm
   double saturated_conductivity_cm_per_d = 0.0;
 };
 
-using HydraulicModel =
-    std::variant<VanGenuchtenMualem, VanGenuchtenAirEntry, BrooksCorey, GardnerExponential>;
+using HydraulicModel = std::variant<VanGenuchtenMualem, VanGenuchtenAirEntry, BrooksCorey, GardnerExponential>;
 
 // Effective saturation Se = (theta - theta_r) / (theta_s - theta_r), in [0, 1].
 double effective_saturation(const HydraulicModel& model, double pressure_head_cm);
@@ -77,10 +76,10 @@ double saturated_conductivity(const HydraulicModel& model);
 
 // Property bundle for one head: what the solver needs per cell per residual evaluation.
 struct HydraulicState {
-  double water_content;        // cm3/cm3
-  double moisture_capacity;    // 1/cm
-  double conductivity;         // cm/d
-  double conductivity_slope;   // cm/d per cm
+  double water_content;       // cm3/cm3
+  double moisture_capacity;   // 1/cm
+  double conductivity;        // cm/d
+  double conductivity_slope;  // cm/d per cm
 };
 HydraulicState evaluate(const HydraulicModel& model, double pressure_head_cm);
 

@@ -1,6 +1,7 @@
 // Readers for laboratory data in CSV files. The header row names the columns, with the unit
 // in the name; columns may come in any order. Blank lines and lines starting with '#' are
-// skipped. Every error names the file, the line and the column.
+// skipped (base::CsvTable reads them). Every error is a base::InputError naming the file, the
+// line and the column.
 //
 // Retention points:   suction_cm | suction_kPa, water_content        [, sample] [, note]
 // Core samples:       sample, ring_volume_cm3, tare_mass_g, wet_mass_g, oven_dry_mass_g [, note]
@@ -17,24 +18,9 @@
 
 #include "wetfront/soils/core_samples.hpp"
 #include "wetfront/soils/retention_fit.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
-
-// 1 kPa of suction as cm of water: 1000 Pa / (1000 kg/m3 * 9.80665 m/s2) (common practice).
-inline constexpr double kCentimetresOfWaterPerKilopascal = 10.197162129779283;
-
-class LabDataError : public std::runtime_error {
- public:
-  LabDataError(std::string source, int line, std::string column, const std::string& problem);
-  const std::string& source() const { return source_; }
-  int line() const { return line_; }             // 1-based line in the file
-  const std::string& column() const { return column_; }  // empty when the whole row is at fault
-
- private:
-  std::string source_;
-  int line_;
-  std::string column_;
-};
 
 // Retention points of one sample, in file order; `lines` gives each point's line number.
 struct RetentionSeries {
@@ -60,7 +46,7 @@ std::vector<SuctionStepSeries> read_suction_steps_csv(const std::filesystem::pat
 std::vector<SuctionStepSeries> parse_suction_steps_csv(std::istream& in, std::string_view source_name);
 
 // Retention points for each sample with suction steps, from the matching core (by name).
-// Throws std::invalid_argument for steps of a sample that has no core.
+// Throws base::InputError for steps of a sample that has no core.
 std::vector<RetentionSeries> retention_from_cores(const std::vector<CoreSample>& cores,
                                                   const std::vector<SuctionStepSeries>& steps);
 

@@ -6,12 +6,13 @@
 #include <vector>
 
 #include "wetfront/soils/hydraulic_models.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
 struct SoilLayer {
-  std::string name;          // user label, e.g. "sandy loam topsoil"
-  double top_depth_cm = 0;   // cm, positive downward
+  std::string name;         // user label, e.g. "sandy loam topsoil"
+  double top_depth_cm = 0;  // cm, positive downward
   double bottom_depth_cm = 0;
   HydraulicModel model;
 };
@@ -19,7 +20,7 @@ struct SoilLayer {
 // Ordered layers that start at 0 cm and touch without gaps or overlaps.
 class LayeredProfile {
  public:
-  // Throws std::invalid_argument naming the offending layer when the layers are not
+  // Throws base::InputError naming the offending layer when the layers are not
   // contiguous from the surface or a layer has zero or negative thickness.
   explicit LayeredProfile(std::vector<SoilLayer> layers);
 

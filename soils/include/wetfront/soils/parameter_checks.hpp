@@ -5,10 +5,11 @@
 #include <string_view>
 
 #include "wetfront/soils/hydraulic_models.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
-// Throws std::invalid_argument naming `label` (e.g. the layer name) and the offending field
+// Throws base::InputError naming `label` (e.g. the layer name) and the offending field
 // when a parameter is outside its physical range:
 //   0 <= theta_r < theta_s <= 1; Ks > 0; all values finite;
 //   van Genuchten: alpha > 0, n > 1; air entry h_e < 0;

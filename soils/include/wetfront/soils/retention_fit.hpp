@@ -13,7 +13,8 @@
 #include <vector>
 
 #include "wetfront/soils/hydraulic_models.hpp"
-#include "wetfront/soils/least_squares.hpp"
+#include "wetfront/studies/least_squares.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
@@ -34,11 +35,11 @@ struct RetentionParameters {
 double van_genuchten_water_content(const RetentionParameters& p, double suction_cm);
 
 struct RetentionFitOptions {
-  std::optional<double> fixed_residual_water_content;   // hold theta_r at this value
-  std::optional<double> fixed_saturated_water_content;  // hold theta_s at this value
-  double residual_lower = 0.0, residual_upper = 0.5;    // bounds on theta_r, cm3/cm3
-  double saturated_lower = 0.05, saturated_upper = 1.0; // bounds on theta_s, cm3/cm3
-  LeastSquaresOptions solver;
+  std::optional<double> fixed_residual_water_content;    // hold theta_r at this value
+  std::optional<double> fixed_saturated_water_content;   // hold theta_s at this value
+  double residual_lower = 0.0, residual_upper = 0.5;     // bounds on theta_r, cm3/cm3
+  double saturated_lower = 0.05, saturated_upper = 1.0;  // bounds on theta_s, cm3/cm3
+  studies::LeastSquaresOptions solver;
 };
 
 struct RetentionFit {
@@ -48,23 +49,26 @@ struct RetentionFit {
   // unavailable (see covariance_note).
   Eigen::Matrix4d correlation = Eigen::Matrix4d::Constant(std::nan(""));
   std::string covariance_note;
-  std::vector<std::string> at_bound;    // parameters pressed against a bound (see least_squares.hpp)
-  double sum_of_squares = 0.0;          // (cm3/cm3)^2
-  double rmse = 0.0;                    // sqrt(SSE / N), cm3/cm3
-  double r_squared = 0.0;               // 1 - SSE / sum (theta_i - mean)^2
+  std::vector<std::string> at_bound;  // parameters pressed against a bound (see least_squares.hpp)
+  double sum_of_squares = 0.0;        // (cm3/cm3)^2
+  double rmse = 0.0;                  // sqrt(SSE / N), cm3/cm3
+  double r_squared = 0.0;             // 1 - SSE / sum (theta_i - mean)^2
   int point_count = 0;
   int free_parameter_count = 0;
-  StopReason stop_reason = StopReason::iteration_limit;
-  int iterations = 0;                   // of the best start
+  studies::StopReason stop_reason = studies::StopReason::iteration_limit;
+  int iterations = 0;  // of the best start
   int starts_tried = 0;
-  bool converged() const { return stop_reason == StopReason::small_gradient || stop_reason == StopReason::small_step; }
+  bool converged() const {
+    return stop_reason == studies::StopReason::small_gradient || stop_reason == studies::StopReason::small_step;
+  }
 };
 
-// Checks the points (throws std::invalid_argument naming the offending points: water contents
+// Checks the points (throws base::InputError naming the offending points: water contents
 // outside (0, 1), negative or non-finite suctions, a water content that rises although the
 // suction rises, fewer points than free parameters) and fits from several starting points,
 // keeping the best. Points may come in any order.
-RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points, const RetentionFitOptions& options = {});
+RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points,
+                                         const RetentionFitOptions& options = {});
 
 // The fitted curve with a conductivity added, ready for the column model.
 VanGenuchtenMualem with_conductivity(const RetentionParameters& p, double saturated_conductivity_cm_per_d,

@@ -17,15 +17,16 @@
 #include <span>
 #include <stdexcept>
 #include <string>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
 // A reading that breaks a rule of the method; reading_index is 0-based in the span given,
 // so a caller that read the values from a file can name the line.
-class InvalidReading : public std::invalid_argument {
+class InvalidReading : public base::InputError {
  public:
   InvalidReading(std::size_t reading_index, const std::string& message)
-      : std::invalid_argument(message), reading_index_(reading_index) {}
+      : base::InputError(message), reading_index_(reading_index) {}
   std::size_t reading_index() const { return reading_index_; }
 
  private:
@@ -43,25 +44,24 @@ struct SteadinessTolerances {
 };
 
 struct SteadyOutflow {
-  double outflow_cm3_per_d = 0.0;      // Q = A v, cm3/d
+  double outflow_cm3_per_d = 0.0;         // Q = A v, cm3/d
   double level_fall_rate_cm_per_d = 0.0;  // v, cm/d (positive when the level falls)
   double first_half_rate_cm_per_d = 0.0;
   double second_half_rate_cm_per_d = 0.0;
-  double relative_drift = 0.0;         // |v1 - v2| / v
-  double residual_std_cm = 0.0;        // standard deviation of the residuals about the line, cm
-  double relative_scatter = 0.0;       // residual_std_cm / total fall
+  double relative_drift = 0.0;    // |v1 - v2| / v
+  double residual_std_cm = 0.0;   // standard deviation of the residuals about the line, cm
+  double relative_scatter = 0.0;  // residual_std_cm / total fall
   std::size_t reading_count = 0;
-  bool steady = false;                 // both drift and scatter within tolerance
-  std::string steadiness_note;         // empty when steady; otherwise says which check failed
+  bool steady = false;          // both drift and scatter within tolerance
+  std::string steadiness_note;  // empty when steady; otherwise says which check failed
 };
 
 double cm3_per_d_to_cm3_per_min(double cm3_per_d);
 
 // Fits the steady readings. Requires at least four readings (two per half), a positive
-// reservoir area and a falling level (std::invalid_argument otherwise), and times strictly
+// reservoir area and a falling level (base::InputError otherwise), and times strictly
 // increasing (InvalidReading naming the first reading out of order).
-SteadyOutflow steady_outflow(std::span<const ReservoirReading> steady_readings,
-                             double reservoir_area_cm2,
+SteadyOutflow steady_outflow(std::span<const ReservoirReading> steady_readings, double reservoir_area_cm2,
                              const SteadinessTolerances& tolerances = {});
 
 }  // namespace wetfront::soils

@@ -14,12 +14,13 @@
 
 #include <span>
 #include <vector>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
 struct DiscFlow {
-  double supply_head_cm = 0.0;            // h0 at the disc, cm (negative)
-  double steady_inflow_cm3_per_d = 0.0;   // Q, cm3/d (positive into the soil)
+  double supply_head_cm = 0.0;           // h0 at the disc, cm (negative)
+  double steady_inflow_cm3_per_d = 0.0;  // Q, cm3/d (positive into the soil)
 };
 
 struct HeadRange {
@@ -41,10 +42,10 @@ struct HeadConductivity {
 };
 
 struct DiscResult {
-  std::vector<PairSlope> pairs;                 // from driest to wettest pair
-  std::vector<HeadConductivity> conductivities; // one per head, driest first
-  double saturated_conductivity_cm_per_d = 0.0; // Ks, eq. (3)
-  HeadRange saturated_from;                     // the wettest pair
+  std::vector<PairSlope> pairs;                  // from driest to wettest pair
+  std::vector<HeadConductivity> conductivities;  // one per head, driest first
+  double saturated_conductivity_cm_per_d = 0.0;  // Ks, eq. (3)
+  HeadRange saturated_from;                      // the wettest pair
 };
 
 // Steady flow predicted by eq. (1) for a Gardner soil; used for synthetic data and checks.
@@ -52,7 +53,7 @@ double disc_inflow(double supply_head_cm, double disc_radius_cm, double saturate
                    double alpha_per_cm);
 
 // Analyses flows at two or more distinct negative heads (any order; sorted inside).
-// Throws std::invalid_argument for fewer than two heads, a head >= 0, a repeated head, a
+// Throws base::InputError for fewer than two heads, a head >= 0, a repeated head, a
 // non-positive disc radius or flow, or a flow that does not increase toward the wetter
 // head (alpha <= 0: the Gardner model cannot describe it).
 DiscResult analyse_disc(std::span<const DiscFlow> flows, double disc_radius_cm);

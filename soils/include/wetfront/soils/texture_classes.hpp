@@ -9,6 +9,7 @@
 #include <string_view>
 
 #include "wetfront/soils/hydraulic_models.hpp"
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
@@ -24,7 +25,7 @@ std::span<const TextureClass> texture_classes();
 // so "Sandy_Loam" and "sandy  loam" both find "sandy loam". Empty when the name is unknown.
 std::optional<VanGenuchtenMualem> find_texture_class(std::string_view name);
 
-// As find_texture_class, but an unknown name throws std::invalid_argument whose message
+// As find_texture_class, but an unknown name throws base::InputError whose message
 // lists the valid names and, when one is close, suggests it ("did you mean 'loam'?").
 VanGenuchtenMualem texture_class_parameters(std::string_view name);
 

@@ -27,6 +27,7 @@
 #include <string>
 #include <string_view>
 #include <vector>
+#include "wetfront/base/input_error.hpp"
 
 namespace wetfront::soils {
 
@@ -35,11 +36,11 @@ enum class ShapeFactorSoil { sand, structured_loam_or_clay, unstructured_clay };
 
 // Soil category for the single-head analysis: sets alpha* and the shape-factor fit.
 enum class WellSoilCategory {
-  compacted_clay,          // alpha* 0.01 /cm, unstructured-clay C
-  fine_unstructured,       // alpha* 0.04 /cm, unstructured-clay C
-  structured,              // alpha* 0.12 /cm, structured C (the usual default)
-  coarse_sand,             // alpha* 0.36 /cm, sand C
-  highly_structured,       // alpha* 0.36 /cm, structured C
+  compacted_clay,     // alpha* 0.01 /cm, unstructured-clay C
+  fine_unstructured,  // alpha* 0.04 /cm, unstructured-clay C
+  structured,         // alpha* 0.12 /cm, structured C (the usual default)
+  coarse_sand,        // alpha* 0.36 /cm, sand C
+  highly_structured,  // alpha* 0.36 /cm, structured C
 };
 
 double sorptive_number_per_cm(WellSoilCategory category);  // alpha*, 1/cm
@@ -48,23 +49,22 @@ ShapeFactorSoil shape_factor_soil(WellSoilCategory category);
 // "highly-structured") and a one-line description for reports.
 std::string_view category_name(WellSoilCategory category);
 std::string_view category_description(WellSoilCategory category);
-// Throws std::invalid_argument listing the accepted names.
+// Throws base::InputError listing the accepted names.
 WellSoilCategory parse_category(std::string_view name);
 std::span<const WellSoilCategory> all_categories();
 
-// Dimensionless shape factor C(H/a). Throws std::invalid_argument for H <= 0 or a <= 0.
+// Dimensionless shape factor C(H/a). Throws base::InputError for H <= 0 or a <= 0.
 double well_shape_factor(double water_depth_cm, double well_radius_cm, ShapeFactorSoil soil);
 
 // One steady flow at one ponded depth.
 struct WellFlow {
-  double water_depth_cm = 0.0;         // H, depth of water in the well, cm
+  double water_depth_cm = 0.0;            // H, depth of water in the well, cm
   double steady_outflow_cm3_per_d = 0.0;  // Q, cm3/d
 };
 
 // Steady outflow predicted by eq. (1); used for synthetic readings and checks.
 double well_outflow(double water_depth_cm, double well_radius_cm, ShapeFactorSoil soil,
-                    double field_saturated_conductivity_cm_per_d,
-                    double matric_flux_potential_cm2_per_d);
+                    double field_saturated_conductivity_cm_per_d, double matric_flux_potential_cm2_per_d);
 
 struct WellResult {
   double field_saturated_conductivity_cm_per_d = 0.0;  // Kfs, cm/d
@@ -78,7 +78,7 @@ WellResult single_head_analysis(const WellFlow& flow, double well_radius_cm, Wel
 
 // Solves eq. (1) at two depths. If Kfs or phi_m comes out negative (or not finite) the
 // returned result is the mean of the two single-head analyses with the category's alpha*,
-// and warnings say why. Throws std::invalid_argument when the two depths are equal.
+// and warnings say why. Throws base::InputError when the two depths are equal.
 WellResult two_head_analysis(const WellFlow& shallower, const WellFlow& deeper, double well_radius_cm,
                              WellSoilCategory category);
 

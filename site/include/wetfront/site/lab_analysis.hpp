@@ -1,0 +1,31 @@
+// Laboratory retention data run from CSV files: shared by `wetfront soil retention` and
+// `wetfront soil layer`. File formats are those of wetfront/soils/lab_csv.hpp.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "wetfront/site/report_table.hpp"
+#include "wetfront/soils/retention_fit.hpp"
+
+namespace wetfront::site {
+
+struct RetentionInputs {
+  std::string points_file;   // retention points (suction, water content), or
+  std::string cores_file;    // core samples plus
+  std::string steps_file;    // suction steps weighed on those cores
+  std::string sample;        // fit only this sample; empty: the only sample, or all pooled
+  std::string fix_residual;  // text: "0.05", "0.05 cm3/cm3" or "5 %"; empty: fitted
+};
+
+struct RetentionReport {
+  std::vector<ReportTable> tables;  // the last one lists every fit (written by --csv)
+  soils::RetentionParameters chosen;
+  std::string provenance;  // which file, sample(s), points, RMSE
+  std::vector<std::string> warnings;
+};
+
+RetentionReport analyse_retention(const RetentionInputs& inputs);
+
+}  // namespace wetfront::site

@@ -1,0 +1,24 @@
+#include "wetfront/site/run_season.hpp"
+
+#include <utility>
+
+namespace wetfront::site {
+
+SeasonResult finish_season(Season season, solver::ColumnRun run, const std::string& program_version) {
+  const bool complete = run.complete;
+  profiles::RunRecord record = make_record(season, std::move(run), program_version);
+  SensorCheck sensors = check_sensors(season, season.sensor_readings, record);
+  if (!season.sensor_readings.empty()) {
+    record.sensor_comparison = comparison_record(sensors, season.sensor_readings, record.run);
+  }
+  store_field_checks(sensors, record);
+  return SeasonResult{std::move(season), std::move(record), std::move(sensors), complete};
+}
+
+SeasonResult run_season(const SiteSetup& site, const std::string& program_version, const Simulate& simulate) {
+  Season season = prepare_season(site);
+  solver::ColumnRun run = simulate ? simulate(season.problem) : solver::simulate(season.problem);
+  return finish_season(std::move(season), std::move(run), program_version);
+}
+
+}  // namespace wetfront::site

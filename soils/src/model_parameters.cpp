@@ -1,0 +1,106 @@
+#include "wetfront/soils/model_parameters.hpp"
+
+#include <algorithm>
+#include <array>
+#include <type_traits>
+#include <variant>
+
+namespace wetfront::soils {
+namespace {
+
+constexpr std::array<ModelParameter, 6> kVanGenuchten = {{{"residual_water_content", "cm3/cm3"},
+                                                          {"saturated_water_content", "cm3/cm3"},
+                                                          {"alpha", "1/cm"},
+                                                          {"n", "1"},
+                                                          {"saturated_conductivity", "cm/d"},
+                                                          {"pore_connectivity", "1"}}};
+constexpr std::array<ModelParameter, 7> kAirEntry = {{{"residual_water_content", "cm3/cm3"},
+                                                      {"saturated_water_content", "cm3/cm3"},
+                                                      {"alpha", "1/cm"},
+                                                      {"n", "1"},
+                                                      {"saturated_conductivity", "cm/d"},
+                                                      {"pore_connectivity", "1"},
+                                                      {"air_entry_head", "cm"}}};
+constexpr std::array<ModelParameter, 5> kBrooksCorey = {{{"residual_water_content", "cm3/cm3"},
+                                                         {"saturated_water_content", "cm3/cm3"},
+                                                         {"bubbling_head", "cm"},
+                                                         {"pore_size_index", "1"},
+                                                         {"saturated_conductivity", "cm/d"}}};
+constexpr std::array<ModelParameter, 4> kGardner = {{{"residual_water_content", "cm3/cm3"},
+                                                     {"saturated_water_content", "cm3/cm3"},
+                                                     {"sorptive_number", "1/cm"},
+                                                     {"saturated_conductivity", "cm/d"}}};
+
+double* van_genuchten_value(VanGenuchtenMualem& m, std::string_view key) {
+  if (key == "residual_water_content") return &m.residual_water_content;
+  if (key == "saturated_water_content") return &m.saturated_water_content;
+  if (key == "alpha") return &m.alpha_per_cm;
+  if (key == "n") return &m.n;
+  if (key == "saturated_conductivity") return &m.saturated_conductivity_cm_per_d;
+  if (key == "pore_connectivity") return &m.pore_connectivity;
+  return nullptr;
+}
+
+double* value_of(VanGenuchtenMualem& m, std::string_view key) { return van_genuchten_value(m, key); }
+double* value_of(VanGenuchtenAirEntry& m, std::string_view key) {
+  return key == "air_entry_head" ? &m.air_entry_head_cm : van_genuchten_value(m.base, key);
+}
+double* value_of(BrooksCorey& m, std::string_view key) {
+  if (key == "residual_water_content") return &m.residual_water_content;
+  if (key == "saturated_water_content") return &m.saturated_water_content;
+  if (key == "bubbling_head") return &m.bubbling_head_cm;
+  if (key == "pore_size_index") return &m.pore_size_index;
+  if (key == "saturated_conductivity") return &m.saturated_conductivity_cm_per_d;
+  return nullptr;
+}
+double* value_of(GardnerExponential& m, std::string_view key) {
+  if (key == "residual_water_content") return &m.residual_water_content;
+  if (key == "saturated_water_content") return &m.saturated_water_content;
+  if (key == "sorptive_number") return &m.sorptive_number_per_cm;
+  if (key == "saturated_conductivity") return &m.saturated_conductivity_cm_per_d;
+  return nullptr;
+}
+
+}  // namespace
+
+std::string_view model_name(const HydraulicModel& model) {
+  static constexpr std::array<std::string_view, 4> names = {"van Genuchten-Mualem",
+                                                            "van Genuchten-Mualem with air-entry head",
+                                                            "Brooks-Corey-Burdine", "Gardner exponential"};
+  return names[model.index()];
+}
+
+std::span<const ModelParameter> model_parameters(const HydraulicModel& model) {
+  switch (model.index()) {
+    case 0: return kVanGenuchten;
+    case 1: return kAirEntry;
+    case 2: return kBrooksCorey;
+    default: return kGardner;
+  }
+}
+
+std::vector<std::string_view> all_parameter_keys() {
+  std::vector<std::string_view> keys;
+  for (const auto table : {std::span<const ModelParameter>(kVanGenuchten), std::span<const ModelParameter>(kAirEntry),
+                           std::span<const ModelParameter>(kBrooksCorey), std::span<const ModelParameter>(kGardner)}) {
+    for (const auto& p : table)
+      if (std::find(keys.begin(), keys.end(), p.key) == keys.end()) keys.push_back(p.key);
+  }
+  return keys;
+}
+
+double* parameter_value(HydraulicModel& model, std::string_view key) {
+  return std::visit([key](auto& m) { return value_of(m, key); }, model);
+}
+
+const double* parameter_value(const HydraulicModel& model, std::string_view key) {
+  return parameter_value(const_cast<HydraulicModel&>(model), key);
+}
+
+double full_saturation_head(const HydraulicModel& model) {
+  if (const auto* air_entry = std::get_if<VanGenuchtenAirEntry>(&model)) return air_entry->air_entry_head_cm;
+  if (const auto* brooks_corey = std::get_if<BrooksCorey>(&model)) return brooks_corey->bubbling_head_cm;
+  return 0.0;
+}
+
+}  // namespace wetfront::soils

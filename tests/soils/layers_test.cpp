@@ -1,0 +1,84 @@
+// LayeredProfile: contiguity validation and depth lookup.
+#include <gtest/gtest.h>
+
+#include "wetfront/base/input_error.hpp"
+
+#include <cmath>
+#include <stdexcept>
+#include <string>
+
+#include "wetfront/soils/layers.hpp"
+#include "wetfront/soils/texture_classes.hpp"
+
+namespace ws = wetfront::soils;
+
+namespace {
+ws::SoilLayer layer(std::string name, double top, double bottom, const char* texture = "loam") {
+  return ws::SoilLayer{std::move(name), top, bottom, ws::texture_class_parameters(texture)};
+}
+
+// Runs f, expects wetfront::base::InputError, returns its message.
+template <class F>
+std::string error_of(F f) {
+  try {
+    f();
+  } catch (const wetfront::base::InputError& e) {
+    return e.what();
+  }
+  ADD_FAILURE() << "no wetfront::base::InputError thrown";
+  return {};
+}
+}  // namespace
+
+TEST(LayeredProfile, AcceptsContiguousLayers) {
+  const ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 30, 80), layer("substratum", 80, 200)});
+  EXPECT_EQ(p.layers().size(), 3u);
+  EXPECT_EQ(p.total_depth_cm(), 200.0);
+}
+
+TEST(LayeredProfile, RejectsEmptyProfile) {
+  EXPECT_NE(error_of([] { ws::LayeredProfile p({}); }).find("at least one layer"), std::string::npos);
+}
+
+TEST(LayeredProfile, RejectsFirstLayerBelowSurface) {
+  const auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 5, 30)}); });
+  EXPECT_NE(msg.find("'topsoil'"), std::string::npos) << msg;
+  EXPECT_NE(msg.find("starts at 5"), std::string::npos) << msg;
+}
+
+TEST(LayeredProfile, RejectsGapNamingTheLayer) {
+  const auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 35, 80)}); });
+  EXPECT_NE(msg.find("'subsoil'"), std::string::npos) << msg;
+  EXPECT_NE(msg.find("35"), std::string::npos) << msg;
+  EXPECT_NE(msg.find("30"), std::string::npos) << msg;
+}
+
+TEST(LayeredProfile, RejectsOverlapNamingTheLayer) {
+  const auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 25, 80)}); });
+  EXPECT_NE(msg.find("'subsoil'"), std::string::npos) << msg;
+  EXPECT_NE(msg.find("25"), std::string::npos) << msg;
+}
+
+TEST(LayeredProfile, RejectsZeroAndNegativeThickness) {
+  auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("thin", 30, 30)}); });
+  EXPECT_NE(msg.find("'thin'"), std::string::npos) << msg;
+  msg = error_of([] { ws::LayeredProfile p({layer("upside down", 0, -10)}); });
+  EXPECT_NE(msg.find("'upside down'"), std::string::npos) << msg;
+}
+
+TEST(LayeredProfile, RejectsNonFiniteDepths) {
+  error_of([] { ws::LayeredProfile p({layer("topsoil", 0, std::nan(""))}); });
+  error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", std::nan(""), 80)}); });
+  error_of([] { ws::LayeredProfile p({layer("topsoil", 0, INFINITY)}); });
+}
+
+TEST(LayeredProfile, InterfaceDepthBelongsToTheLayerBelow) {
+  const ws::LayeredProfile p({layer("topsoil", 0, 30, "sandy loam"), layer("subsoil", 30, 80, "clay")});
+  EXPECT_EQ(p.layer_index_at(0.0), 0u);
+  EXPECT_EQ(p.layer_index_at(29.999), 0u);
+  EXPECT_EQ(p.layer_index_at(30.0), 1u);
+  EXPECT_EQ(p.layer_index_at(79.0), 1u);
+  EXPECT_EQ(p.layer_index_at(80.0), 1u);  // the bottom face belongs to the last layer
+  const auto& below = std::get<ws::VanGenuchtenMualem>(p.model_at(30.0));
+  EXPECT_EQ(below.n, 1.09);  // clay
+}
