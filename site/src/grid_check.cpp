@@ -22,7 +22,8 @@ void compare(const std::vector<profiles::ComparedReading>& coarse, const std::ve
   for (std::size_t k = 0; k < n; ++k) {
     const auto& a = coarse[k];
     const auto& b = fine[k];
-    if (!std::isfinite(a.simulated) || !std::isfinite(b.simulated) || a.sensor != b.sensor) continue;
+    // The readings the fit uses (a tensiometer reading beyond its working limit is not one).
+    if (!a.used || !std::isfinite(a.simulated) || !std::isfinite(b.simulated) || a.sensor != b.sensor) continue;
     auto [it, added] = row_of.try_emplace(a.sensor, out.size());
     if (added) {
       out.push_back({a.sensor, quantity, unit, 0, 0, 0, false});

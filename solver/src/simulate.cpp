@@ -111,6 +111,10 @@ class Integrator {
     detail::check_flag(IDASetJacFn(mem, jacobian_fn), "IDASetJacFn");
     detail::check_flag(IDASetNonlinConvCoef(mem, s.nonlinear_convergence_factor), "IDASetNonlinConvCoef");
     detail::check_flag(IDASetMaxNonlinIters(mem, s.max_nonlinear_iterations), "IDASetMaxNonlinIters");
+    // IDA gives up on a step after 10 Newton failures by default (each quarters the step); where a
+    // thin surface cell wets after rain a step can need more (the demo on 0.1 cm surface cells
+    // needed up to 30). The run's work limit still bounds the total.
+    detail::check_flag(IDASetMaxConvFails(mem, 50), "IDASetMaxConvFails");
     detail::check_flag(IDARootInit(mem, detail::event_count, event_fn), "IDARootInit");
     const int directions[detail::event_count] = {-1, -1, -1};
     detail::check_flag(IDASetRootDirection(mem, const_cast<int*>(directions)), "IDASetRootDirection");

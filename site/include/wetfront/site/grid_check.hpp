@@ -24,7 +24,7 @@ struct SensorGridChange {
   std::string name;
   std::string quantity;  // "pressure head" or "water content"
   std::string unit;      // "cm" or "cm3/cm3"
-  int readings = 0;      // readings that both runs simulate
+  int readings = 0;      // readings the fit uses that both runs simulate
   double rms_change = 0;
   double largest_change = 0;
   bool too_coarse = false;
