@@ -106,7 +106,6 @@ ColumnModel::ColumnModel(const ColumnProblem& problem)
   sink_rate_.assign(uptake_cells_, 0.0);
   sink_slope_.assign(uptake_cells_, 0.0);
   totals_.face.assign(n + 1, 0.0);
-  faces_scratch_.assign(n + 1, 0.0);
 }
 
 void ColumnModel::begin_period(double t) {

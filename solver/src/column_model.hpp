@@ -169,7 +169,6 @@ class ColumnModel {
 
   // Workspace, refreshed by evaluate_cells(): per cell head, dh/dS, K, dK/dS, sink and its slope.
   std::vector<double> head_, head_per_storage_, conductivity_, conductivity_per_storage_, sink_rate_, sink_slope_;
-  std::vector<double> faces_scratch_;
   std::vector<double> evaluated_state_;  // the state of the last residual, while the workspace holds it
 };
 
