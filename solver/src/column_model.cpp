@@ -9,6 +9,7 @@
 #include <sunmatrix/sunmatrix_band.h>
 
 #include "face_flux.hpp"
+#include "series_checks.hpp"
 
 namespace wetfront::solver::detail {
 
@@ -27,16 +28,6 @@ double initial_head(const InitialCondition& initial, double depth) {
   const auto k = static_cast<std::size_t>(it - d.begin());
   const double w = (depth - d[k - 1]) / (d[k] - d[k - 1]);
   return table.head_cm[k - 1] + w * (table.head_cm[k] - table.head_cm[k - 1]);
-}
-
-void check_series(const StepSeries& s, const char* what) {
-  if (s.values.empty() || s.values.size() != s.start_days.size())
-    throw std::invalid_argument(fmt::format("{}: a step series needs one value per start time", what));
-  for (std::size_t i = 1; i < s.start_days.size(); ++i)
-    if (!(s.start_days[i] > s.start_days[i - 1]))
-      throw std::invalid_argument(fmt::format("{}: start times must increase", what));
-  for (double v : s.values)
-    if (!std::isfinite(v)) throw std::invalid_argument(fmt::format("{}: values must be finite (found {})", what, v));
 }
 
 // A side of a face held at a fixed head (surface or bottom boundary): the slopes are those with
@@ -74,17 +65,17 @@ ColumnModel::ColumnModel(const ColumnProblem& problem)
   }
   for (double d : problem.flux_plane_depths_cm) grid_.face_at(d);  // each plane must lie on a face
   if (const auto* lf = std::get_if<LimitedFlux>(&top_)) {
-    check_series(lf->water_input_cm_per_d, "water input");
-    check_series(lf->potential_evaporation_cm_per_d, "potential evaporation");
+    check_step_series(lf->water_input_cm_per_d, "water input", false);
+    check_step_series(lf->potential_evaporation_cm_per_d, "potential evaporation", false);
     atmospheric_ = true;
     dry_limit_head_ = lf->dry_limit_head_cm;
     max_ponded_depth_ = lf->max_ponded_depth_cm;
     if (!(dry_limit_head_ < 0)) throw std::invalid_argument("the dry limit head must be negative");
     if (!(max_ponded_depth_ >= 0)) throw std::invalid_argument("the maximum ponded depth must not be negative");
   } else if (const auto* pf = std::get_if<PrescribedFlux>(&top_)) {
-    check_series(pf->flux_cm_per_d, "surface flux");
+    check_step_series(pf->flux_cm_per_d, "surface flux", false);
   } else {
-    check_series(std::get<PrescribedHead>(top_).head_cm, "surface head");
+    check_step_series(std::get<PrescribedHead>(top_).head_cm, "surface head", false);
   }
   if (const auto* table = std::get_if<HeadTable>(&initial_)) {
     if (table->depth_cm.empty() || table->depth_cm.size() != table->head_cm.size())

@@ -1,5 +1,7 @@
 #include "wetfront/solver/root_uptake.hpp"
 
+#include "series_checks.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <stdexcept>
@@ -40,17 +42,6 @@ struct CumulativeFraction {
   }
   double operator()(const RootDensityTable& t, double x) const { return table_integral(t, x) / table_integral(t, 1.0); }
 };
-
-void check_step_series(const StepSeries& s, const char* what) {
-  if (s.values.empty() || s.values.size() != s.start_days.size())
-    throw std::invalid_argument(fmt::format("{}: a step series needs one value per start time", what));
-  for (std::size_t i = 1; i < s.start_days.size(); ++i)
-    if (!(s.start_days[i] > s.start_days[i - 1]))
-      throw std::invalid_argument(fmt::format("{}: start times must increase", what));
-  for (double v : s.values)
-    if (!(v >= 0) || !std::isfinite(v))
-      throw std::invalid_argument(fmt::format("{}: values must be finite and not negative (found {})", what, v));
-}
 
 }  // namespace
 
@@ -140,8 +131,8 @@ std::vector<double> root_fractions_per_cell(const RootDistribution& distribution
 RootUptake::RootUptake(RootUptakeSettings settings, const Grid& grid) : settings_(std::move(settings)) {
   check_feddes_response(settings_.response);
   check_root_distribution(settings_.distribution);
-  check_step_series(settings_.root_depth_cm, "root depth");
-  check_step_series(settings_.potential_transpiration_cm_per_d, "potential transpiration");
+  detail::check_step_series(settings_.root_depth_cm, "root depth", true);
+  detail::check_step_series(settings_.potential_transpiration_cm_per_d, "potential transpiration", true);
   const auto faces = grid.face_depths_cm();
   face_depths_cm_.assign(faces.begin(), faces.end());
   for (std::size_t i = 0; i < grid.cell_count(); ++i) cell_thickness_cm_.push_back(grid.cell_thickness_cm(i));
