@@ -4,6 +4,9 @@
 #include <H5LTpublic.h>
 #include <fmt/format.h>
 
+#include "wetfront/profiles/file_save.hpp"
+#include "wetfront/profiles/run_file.hpp"
+
 #include <algorithm>
 #include <cstring>
 
@@ -142,6 +145,33 @@ std::vector<char> build_in_memory(const std::string& name, const std::function<v
   std::vector<char> image = file_image(file);
   file.close("closing the in-memory file");
   return image;
+}
+
+void write_file(const std::filesystem::path& path, std::string_view what, const std::function<void()>& check,
+                const std::function<void(hid_t)>& write) {
+  const auto failure = [&](std::string_view cause) {
+    return RunFileError(fmt::format("cannot write {} '{}': {}", what, path.string(), cause));
+  };
+  if (path.filename().empty()) throw failure("the path names no file");
+  try {
+    check();
+  } catch (const std::invalid_argument& error) {
+    throw failure(error.what());
+  }
+  // The file is built in memory, so the HDF5 library never meets a disk error; the bytes
+  // then go to a temporary name in the target directory, which is renamed (atomically on
+  // POSIX file systems) only when they are all on the disk.
+  std::vector<char> image;
+  try {
+    image = build_in_memory(path.string(), write);
+  } catch (const std::exception& error) {
+    throw failure(error.what());
+  }
+  try {
+    save_file_image(path, image);
+  } catch (const std::exception& error) {
+    throw failure(error.what());
+  }
 }
 
 File open_file_read_only(const std::string& path) {
@@ -386,6 +416,28 @@ std::vector<std::string> read_texts(hid_t parent, std::string_view name) {
     const char* start = buffer.data() + i * size;
     values.emplace_back(start, strnlen(start, size));
   }
+  return values;
+}
+
+namespace {
+
+void require_entries(hid_t parent, std::string_view name, std::size_t entries, std::size_t length) {
+  if (entries != length)
+    throw Error(fmt::format("dataset {}/{} has {} entries, expected {}", object_path(parent), name, entries, length));
+}
+
+}  // namespace
+
+std::vector<double> read_doubles_of_length(hid_t parent, std::string_view name, std::size_t length) {
+  std::vector<std::size_t> dims;
+  std::vector<double> values = read_doubles(parent, name, 1, dims);
+  require_entries(parent, name, values.size(), length);
+  return values;
+}
+
+std::vector<std::string> read_texts_of_length(hid_t parent, std::string_view name, std::size_t length) {
+  std::vector<std::string> values = read_texts(parent, name);
+  require_entries(parent, name, values.size(), length);
   return values;
 }
 

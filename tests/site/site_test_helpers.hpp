@@ -5,6 +5,9 @@
 #include <string>
 #include <vector>
 
+#include "wetfront/profiles/run_record.hpp"
+#include "wetfront/site/season_setup.hpp"
+
 namespace wetfront::site::testing {
 
 std::filesystem::path demo_folder();
@@ -33,6 +36,14 @@ class ScratchSite {
 // Removes the demo's core samples and observation well (the [[sensors]] tables after the last
 // probe) from the scratch site file, leaving tensiometers and probes only.
 void keep_tensiometers_and_probes(const ScratchSite& site);
+
+// The scratch site's season from its start to `to` (YYYY-MM-DD), simulated and recorded (the
+// record's run may be incomplete; tests that need it whole say so).
+struct SimulatedSeason {
+  Season season;
+  profiles::RunRecord record;
+};
+SimulatedSeason simulate_until(const ScratchSite& site, const std::string& to);
 
 struct ProgramResult {
   int exit_code = -1;

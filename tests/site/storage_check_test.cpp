@@ -45,10 +45,9 @@ TEST(StoredWater, TrapezoidOverThreeProbesByHand) {
   site.write("probe-20cm.csv", probe_file(p20));
   site.write("probe-50cm.csv", probe_file(p50, 4));  // no reading at the fifth visit (2025-05-06)
   site.write("probe-80cm.csv", probe_file(p80));
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-05-28"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
+  const auto [season, record] = simulate_until(site, "2025-05-28");
+  const solver::ColumnRun& run = record.run;
   ASSERT_TRUE(run.complete);
-  const profiles::RunRecord record = make_record(season, run, "test");
   const StorageCheck check = check_storage(season.sensor_readings, record);
   ASSERT_EQ(check.depths_cm, (std::vector<double>{20, 50, 80}));
   ASSERT_EQ(check.visits.size(), record.visit_balance.size() + 1);

@@ -48,6 +48,20 @@ std::string well_file(const std::vector<double>& depths_m) {
   return text;
 }
 
+// The demo's probes with P80 moved up to 20 cm (both read 0.30 at two visits), the 50 cm probe
+// missing its second reading (0.22 at the first), and core samples "C" from cores.csv.
+void add_cores_beside_probes(const ScratchSite& site) {
+  testing::keep_tensiometers_and_probes(site);
+  site.replace("site.toml", "[[sensors]]\nname = \"P80\"",
+               "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
+               "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
+  site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"",
+               "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
+  site.write("probe-20cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
+  site.write("probe-80cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
+  site.write("probe-50cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.22\n");
+}
+
 std::string line_with(const std::string& text, const std::string& start) {
   std::istringstream in(text);
   for (std::string line; std::getline(in, line);) {
@@ -135,9 +149,7 @@ TEST(WaterTableEstimate, RecessionRateCountsARiseAgainstTheFall) {
   ScratchSite site("well-recession");
   add_sensor(site, well_block("recession_rate = \"0.5 cm/d\"\n"));
   site.write("well.csv", well_file({3.00, 3.02}));
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-16"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
+  const auto [season, record] = simulate_until(site, "2025-04-16");
   const auto check = check_water_table(season, season.sensor_readings, record);
   ASSERT_TRUE(check.has_value());
   ASSERT_GE(check->intervals.size(), 2u);
@@ -151,9 +163,7 @@ TEST(WaterTableEstimate, MissingReadingsNameTheVisitsWithout) {
   ScratchSite site("well-missing");
   add_sensor(site, well_block());
   site.write("well.csv", well_file({3.00}));
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-23"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
+  const auto [season, record] = simulate_until(site, "2025-04-23");
   const auto check = check_water_table(season, season.sensor_readings, record);
   ASSERT_TRUE(check.has_value());
   ASSERT_GE(check->intervals.size(), 3u);
@@ -261,19 +271,9 @@ TEST(CoreSamples, EnterTheComparisonPerDepthAndPooledWithTheProbes) {
 // taken there at 50 cm stands in. By hand: (0.30 + 0.20) / 2 x 30 cm = 7.5 cm.
 TEST(CoreSamples, StandInForAMissingProbeReadingInTheStoredWater) {
   ScratchSite site("cores-storage");
-  testing::keep_tensiometers_and_probes(site);
-  site.replace("site.toml", "[[sensors]]\nname = \"P80\"",
-               "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
-               "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
-  site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"",
-               "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
-  site.write("probe-20cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-80cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-50cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.22\n");
+  add_cores_beside_probes(site);
   site.write("cores.csv", "time,depth [cm],water content [%]\n2025-04-15T10:00,50,20\n");
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-20"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
+  const auto [season, record] = simulate_until(site, "2025-04-20");
   const StorageCheck check = check_storage(season.sensor_readings, record);
   ASSERT_EQ(check.depths_cm, (std::vector<double>{20, 50}));
   EXPECT_EQ(check.probe_names.back(), "C");
@@ -289,19 +289,11 @@ TEST(CoreSamples, StandInForAMissingProbeReadingInTheStoredWater) {
 // / 2 x 35 cm = 8.75 cm between 20 and 55 cm.
 TEST(CoreSamples, DepthInMetresMatchesAProbeDepthInCentimetres) {
   ScratchSite site("cores-metres");
-  testing::keep_tensiometers_and_probes(site);
-  site.replace("site.toml", "[[sensors]]\nname = \"P80\"",
-               "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
-               "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
-  site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"",
-               "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
+  add_cores_beside_probes(site);
   site.replace("site.toml", "name = \"P50\"\nkind = \"water content probe\"\ndepth = \"50 cm\"",
                "name = \"P50\"\nkind = \"water content probe\"\ndepth = \"55 cm\"");
-  site.write("probe-20cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-80cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-50cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.22\n");
   site.write("cores.csv", "time,depth [m],water content [%]\n2025-04-15T10:00,0.55,20\n");
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-20"}));
+  const auto [season, record] = simulate_until(site, "2025-04-20");
   const SensorRecord* cores = nullptr;
   for (const auto& r : season.sensor_readings) {
     if (r.name == "C") cores = &r;
@@ -309,8 +301,6 @@ TEST(CoreSamples, DepthInMetresMatchesAProbeDepthInCentimetres) {
   ASSERT_NE(cores, nullptr);
   ASSERT_EQ(cores->series.observations.size(), 1u);
   EXPECT_EQ(cores->series.observations[0].depth_cm, 55.0);
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
   const StorageCheck check = check_storage(season.sensor_readings, record);
   ASSERT_EQ(check.depths_cm.size(), 2u);
   EXPECT_EQ(check.depths_cm[0], 20.0);

@@ -6,6 +6,7 @@
 
 #include "wetfront/soils/layers.hpp"
 #include "wetfront/solver/column_problem.hpp"
+#include "wetfront/solver/grid.hpp"
 
 namespace wetfront::solver_tests {
 
@@ -47,6 +48,12 @@ inline solver::ColumnProblem make_column(soils::LayeredProfile soil, solver::Gri
                                1.0,
                                {},
                                solver::SolverSettings{}};
+}
+
+// One soil down to request.depth_cm on the graded grid `request` asks for: {depth, faces to
+// keep, surface cell, growth factor, largest cell}, lengths in cm.
+inline solver::ColumnProblem graded_column(soils::HydraulicModel model, const solver::GridRequest& request) {
+  return make_column(single_layer(request.depth_cm, std::move(model)), solver::graded_grid(request));
 }
 
 }  // namespace wetfront::solver_tests
