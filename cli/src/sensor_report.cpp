@@ -38,6 +38,15 @@ EstimateSummary summarise(const std::vector<EstimateInterval>& intervals) {
   return s;
 }
 
+// How many of the intervals have an estimate, what the model drained and what `source` gives
+// over them, and in how many the two differ.
+std::string agreement_text(const EstimateSummary& s, std::size_t intervals, std::string_view source) {
+  return fmt::format(
+      "  Intervals with an estimate: {} of {}; over them the model drained {} mm, {} gives {} mm;\n"
+      "  they differ in {} interval(s).\n",
+      s.estimated, intervals, mm(s.model_cm), source, mm(s.estimate_cm), s.differ);
+}
+
 }  // namespace
 
 std::string sensor_section(const SensorCheck& sensors) {
@@ -92,10 +101,7 @@ std::string sensor_section(const SensorCheck& sensors) {
         d.upper_name, number(d.upper_depth_cm), d.lower_name, number(d.lower_depth_cm), d.soil_note,
         kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
     const EstimateSummary s = summarise(d.intervals);
-    out += fmt::format(
-        "  Intervals with an estimate: {} of {}; over them the model drained {} mm, Darcy gives {} mm;\n"
-        "  they differ in {} interval(s).\n",
-        s.estimated, d.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
+    out += agreement_text(s, d.intervals.size(), "Darcy");
     if (!s.reasons.empty()) {
       out += "  Where they differ, consider:\n";
       for (const auto& reason : s.reasons) out += fmt::format("    - {}\n", reason);
@@ -165,10 +171,7 @@ std::string water_table_section(const WaterTableCheck& w) {
       "  (both below {} mm agree). See the visit table for every interval.\n",
       kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
   const EstimateSummary s = summarise(w.intervals);
-  out += fmt::format(
-      "  Intervals with an estimate: {} of {}; over them the model drained {} mm, the water table gives {} mm;\n"
-      "  they differ in {} interval(s).\n",
-      s.estimated, w.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
+  out += agreement_text(s, w.intervals.size(), "the water table");
   if (!s.reasons.empty()) {
     out += "  Where they differ, consider:\n";
     for (const auto& reason : s.reasons) {
