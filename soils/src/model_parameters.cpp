@@ -26,6 +26,18 @@ constexpr std::array kAirEntry = {kResidual, kSaturated, kAlpha, kShape, kConduc
 constexpr std::array kBrooksCorey = {kResidual, kSaturated, kBubblingHead, kPoreSizeIndex, kConductivity};
 constexpr std::array kGardner = {kResidual, kSaturated, kSorptiveNumber, kConductivity};
 
+// Per model, in the order of HydraulicModel: its parameters, published name and site-file name.
+constexpr std::array<std::span<const ModelParameter>, 4> kParameters = {kVanGenuchten, kAirEntry, kBrooksCorey,
+                                                                        kGardner};
+constexpr std::array<std::string_view, 4> kNames = {"van Genuchten-Mualem", "van Genuchten-Mualem with air-entry head",
+                                                    "Brooks-Corey-Burdine", "Gardner exponential"};
+constexpr std::array<std::string_view, 4> kKeys = {"van genuchten", "van genuchten air entry", "brooks corey",
+                                                   "gardner"};
+static_assert(kParameters.size() == std::variant_size_v<HydraulicModel> &&
+                  kNames.size() == std::variant_size_v<HydraulicModel> &&
+                  kKeys.size() == std::variant_size_v<HydraulicModel>,
+              "every model in HydraulicModel needs its parameters, name and key here");
+
 template <std::size_t... I>
 std::vector<HydraulicModel> default_models(std::index_sequence<I...>) {
   return {HydraulicModel(std::in_place_index<I>)...};
@@ -63,18 +75,9 @@ double* value_of(GardnerExponential& m, std::string_view key) {
 
 }  // namespace
 
-std::string_view model_name(const HydraulicModel& model) {
-  static constexpr std::array<std::string_view, 4> names = {"van Genuchten-Mualem",
-                                                            "van Genuchten-Mualem with air-entry head",
-                                                            "Brooks-Corey-Burdine", "Gardner exponential"};
-  return names[model.index()];
-}
+std::string_view model_name(const HydraulicModel& model) { return kNames[model.index()]; }
 
-std::string_view model_key(const HydraulicModel& model) {
-  static constexpr std::array<std::string_view, 4> keys = {"van genuchten", "van genuchten air entry", "brooks corey",
-                                                           "gardner"};
-  return keys[model.index()];
-}
+std::string_view model_key(const HydraulicModel& model) { return kKeys[model.index()]; }
 
 std::vector<HydraulicModel> all_models() {
   return default_models(std::make_index_sequence<std::variant_size_v<HydraulicModel>>());
@@ -88,14 +91,7 @@ std::optional<base::Dimension> parameter_dimension(const ModelParameter& paramet
   return std::nullopt;
 }
 
-std::span<const ModelParameter> model_parameters(const HydraulicModel& model) {
-  switch (model.index()) {
-    case 0: return kVanGenuchten;
-    case 1: return kAirEntry;
-    case 2: return kBrooksCorey;
-    default: return kGardner;
-  }
-}
+std::span<const ModelParameter> model_parameters(const HydraulicModel& model) { return kParameters[model.index()]; }
 
 std::vector<std::string_view> all_parameter_keys() {
   std::vector<std::string_view> keys;
