@@ -45,11 +45,8 @@ double steady_interface_error(std::size_t cells, solver::FaceConductivity face) 
 
 TEST(FaceConductivityAtALayerInterface, EveryMeanConvergesToTheLayeredSteadyProfile) {
   const std::size_t cells[] = {20, 40, 80, 160};
-  for (const auto face :
-       {solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic}) {
-    const char* name = face == solver::FaceConductivity::arithmetic ? "arithmetic"
-                       : face == solver::FaceConductivity::geometric ? "geometric"
-                                                                      : "harmonic";
+  for (const auto face : kFaceConductivities) {
+    const char* name = face_name(face);
     double errors[4];
     for (int k = 0; k < 4; ++k) {
       errors[k] = steady_interface_error(cells[k], face);
@@ -113,11 +110,8 @@ TEST(FaceConductivityInDrySoil, WettingFrontPositionOnCoarseGrids) {
   SCOPED_TRACE(fmt::format("front at {:.3f} cm after 2 d (480 cells; harmonic on 480 cells: {:.3f} cm)",
                            reference_front, front_depth_cm(fine_harmonic, initial_theta)));
   double arithmetic_coarse_lag = 0.0;
-  for (const auto face :
-       {solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic}) {
-    const char* name = face == solver::FaceConductivity::arithmetic ? "arithmetic"
-                       : face == solver::FaceConductivity::geometric ? "geometric"
-                                                                      : "harmonic";
+  for (const auto face : kFaceConductivities) {
+    const char* name = face_name(face);
     double lags[3];
     const std::size_t cells[] = {15, 30, 60};
     for (int k = 0; k < 3; ++k) {

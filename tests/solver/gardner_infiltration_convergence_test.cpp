@@ -135,13 +135,10 @@ TEST(GardnerInfiltrationToWaterTable, FluxChangeAtABreakpointMidRun) {
 TEST(GardnerInfiltrationToWaterTable, FaceConductivityChoicesOnACoarseGrid) {
   // The three face means on 20 and 40 cells (5 and 2.5 cm): all converge on this smooth
   // problem; the errors are recorded to inform the default.
-  for (const auto face :
-       {solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic}) {
+  for (const auto face : kFaceConductivities) {
     const double coarse = run_error(20, face, 1e-8);
     const double finer = run_error(40, face, 1e-8);
-    const char* name = face == solver::FaceConductivity::arithmetic ? "arithmetic"
-                       : face == solver::FaceConductivity::geometric ? "geometric"
-                                                                      : "harmonic";
+    const char* name = face_name(face);
     SCOPED_TRACE(fmt::format("{} mean: max head error {:.3e} cm (20 cells), {:.3e} cm (40 cells), order {:.2f}", name,
                              coarse, finer, std::log2(coarse / finer)));
     RecordProperty(fmt::format("{}_error_cm_20_cells", name), fmt::format("{:.3e}", coarse));

@@ -1,6 +1,7 @@
 // Soils and small helpers shared by the solver verification tests.
 #pragma once
 
+#include <array>
 #include <string>
 #include <vector>
 
@@ -48,6 +49,15 @@ inline solver::ColumnProblem make_column(soils::LayeredProfile soil, solver::Gri
                                1.0,
                                {},
                                solver::SolverSettings{}};
+}
+
+// The three face conductivities, and their names in messages and test properties.
+inline constexpr std::array<solver::FaceConductivity, 3> kFaceConductivities = {
+    solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic};
+inline const char* face_name(solver::FaceConductivity face) {
+  return face == solver::FaceConductivity::arithmetic ? "arithmetic"
+         : face == solver::FaceConductivity::geometric ? "geometric"
+                                                        : "harmonic";
 }
 
 // One soil down to request.depth_cm on the graded grid `request` asks for: {depth, faces to
