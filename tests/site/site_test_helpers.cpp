@@ -110,4 +110,10 @@ double at_depth(const std::vector<double>& centres, const std::vector<double>& v
   return 0;
 }
 
+ProgramResult run_site(const ScratchSite& site, const std::filesystem::path& out, const std::string& options) {
+  return run_program(fmt::format("run '{}' --out '{}'{}{}", site.site_file().string(), out.string(),
+                                 options.empty() ? "" : " ", options),
+                     site.folder());
+}
+
 }  // namespace wetfront::site::testing

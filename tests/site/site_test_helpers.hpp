@@ -58,4 +58,8 @@ double at_depth(const std::vector<double>& centres, const std::vector<double>& v
 // Runs the wetfront program with `arguments` (already quoted as needed).
 ProgramResult run_program(const std::string& arguments, const std::filesystem::path& scratch);
 
+// `wetfront run` on the scratch site's site file, writing `out`, with further `options` (e.g.
+// "--to 2025-04-20").
+ProgramResult run_site(const ScratchSite& site, const std::filesystem::path& out, const std::string& options = "");
+
 }  // namespace wetfront::site::testing

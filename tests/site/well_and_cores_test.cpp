@@ -17,6 +17,7 @@
 #include "wetfront/site/sensor_check.hpp"
 #include "wetfront/site/sensor_readings.hpp"
 #include "wetfront/site/site_file.hpp"
+#include "input_error_of.hpp"
 #include "site_test_helpers.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/profiles/visit_balance.hpp"
@@ -24,6 +25,7 @@
 namespace wetfront::site {
 namespace {
 
+using test_support::input_error_message;
 using testing::run_program;
 using testing::ScratchSite;
 
@@ -86,8 +88,7 @@ TEST(WaterTableEstimate, ReportCsvAndRunFileCarryTheHandWorkedAmounts) {
   add_sensor(site, well_block("specific_yield_source = \"invented for the test\"\n"));
   site.write("well.csv", well_file({3.00, 2.90, 2.95, 2.80, 2.80}));
   const auto out = site.folder() / "w.h5";
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-05-06", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out, "--to 2025-05-06");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(run.out.find("Recharge from the water table"), std::string::npos) << run.out;
   EXPECT_NE(run.out.find("with specific yield 0.1;"), std::string::npos) << run.out;
@@ -183,8 +184,7 @@ TEST(WaterTableEstimate, PerVisitRowsSumToTheSeasonTotals) {
   add_sensor(site, well_block());
   site.write("well.csv", well_file({3.00, 2.90, 2.95, 2.80, 2.78}));
   const auto out = site.folder() / "w.h5";
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-05-20", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out, "--to 2025-05-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   const profiles::RunRecord record = profiles::read_run(out);
   const auto total = profiles::season_total(record.run.balances);
@@ -246,8 +246,7 @@ TEST(CoreSamples, EnterTheComparisonPerDepthAndPooledWithTheProbes) {
              "2025-04-15T10:00,20,160.0,135.0,100\n"
              "2025-04-15T10:00,50,168.0,140.0,100\n");
   const auto out = site.folder() / "c.h5";
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-04-20", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out, "--to 2025-04-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(line_with(run.out, "  C at 20 cm ").find(" 2 "), std::string::npos) << run.out;
   EXPECT_NE(line_with(run.out, "  C at 50 cm ").find(" 2 "), std::string::npos) << run.out;
@@ -332,8 +331,7 @@ TEST_P(BadWellOrCoreFile, NamesFileAndLineAndExitsWithOne) {
   add_sensor(site, c.sensor);
   site.write(c.file, c.text);
   const auto out = site.folder() / "bad.h5";
-  const auto run =
-      run_program(fmt::format("run '{}' --out '{}'", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out);
   EXPECT_EQ(run.exit_code, 1) << run.out;
   EXPECT_NE(run.err.find(c.expected), std::string::npos) << run.err;
   EXPECT_FALSE(std::filesystem::exists(out));
@@ -388,31 +386,19 @@ TEST(WellSiteKeys, DepthAndMissingSpecificYieldAreErrorsWithTheLine) {
              "[[sensors]]\nname = \"W1\"\nkind = \"observation well\"\ndepth = \"300 cm\"\nreadings = \"well.csv\"\n"
              "specific_yield = 0.1\n");
   site.write("well.csv", well_file({3.0}));
-  try {
-    (void)load_site_file(site.site_file());
-    ADD_FAILURE() << "accepted a well with a depth";
-  } catch (const base::InputError& error) {
-    const std::string text = site.read("site.toml");
-    const auto line =
-        1 + std::count(text.begin(), text.begin() + static_cast<long>(text.find("depth = \"300 cm\"\nreadings")), '\n');
-    EXPECT_NE(std::string(error.what()).find(fmt::format("site.toml:{}: key 'sensors[8].depth'", line)),
-              std::string::npos)
-        << error.what();
-    EXPECT_NE(std::string(error.what()).find("its readings give the depth to water"), std::string::npos)
-        << error.what();
-  }
+  const std::string message = input_error_message([&] { (void)load_site_file(site.site_file()); });
+  const std::string text = site.read("site.toml");
+  const auto line =
+      1 + std::count(text.begin(), text.begin() + static_cast<long>(text.find("depth = \"300 cm\"\nreadings")), '\n');
+  EXPECT_NE(message.find(fmt::format("site.toml:{}: key 'sensors[8].depth'", line)), std::string::npos) << message;
+  EXPECT_NE(message.find("its readings give the depth to water"), std::string::npos) << message;
   ScratchSite second("well-keys-yield");
   add_sensor(
       second,
       "[[sensors]]\nname = \"W1\"\nkind = \"observation well\"\nreadings = \"well.csv\"\nspecific_yield = 1.2\n");
   second.write("well.csv", well_file({3.0}));
-  try {
-    (void)load_site_file(second.site_file());
-    ADD_FAILURE() << "accepted a specific yield of 1.2";
-  } catch (const base::InputError& error) {
-    EXPECT_NE(std::string(error.what()).find("1.2 is not a fraction between 0 and 1"), std::string::npos)
-        << error.what();
-  }
+  const std::string message_12 = input_error_message([&] { (void)load_site_file(second.site_file()); });
+  EXPECT_NE(message_12.find("1.2 is not a fraction between 0 and 1"), std::string::npos) << message_12;
 }
 
 }  // namespace
