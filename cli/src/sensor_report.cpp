@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
+#include <vector>
 
 namespace wetfront::cli {
 
@@ -36,6 +38,27 @@ EstimateSummary summarise(const std::vector<EstimateInterval>& intervals) {
     }
   }
   return s;
+}
+
+// Over the entries where both the observed and the simulated value are known: how many, and
+// the sum of each.
+struct PairedSums {
+  int count = 0;
+  double observed = 0;
+  double simulated = 0;
+};
+
+template <class Entry>
+PairedSums paired_sums(const std::vector<Entry>& entries, std::optional<double> Entry::*observed,
+                       std::optional<double> Entry::*simulated) {
+  PairedSums sums;
+  for (const Entry& entry : entries) {
+    if (!(entry.*observed) || !(entry.*simulated)) continue;
+    ++sums.count;
+    sums.observed += *(entry.*observed);
+    sums.simulated += *(entry.*simulated);
+  }
+  return sums;
 }
 
 // How many of the intervals have an estimate, what the model drained and what `source` gives
@@ -126,14 +149,8 @@ std::string storage_section(const StorageCheck& storage) {
       "  below the deepest probe.\n",
       number(storage.depths_cm.front()), number(storage.depths_cm.back()), fmt::join(storage.probe_names, ", "),
       fmt::join(storage.depths_cm, ", "), kVisitReadingWindowDays);
-  int both = 0;
-  double observed = 0, simulated = 0;
-  for (const auto& v : storage.visits) {
-    if (!v.observed_cm || !v.simulated_cm) continue;
-    ++both;
-    observed += *v.observed_cm;
-    simulated += *v.simulated_cm;
-  }
+  const auto [both, observed, simulated] =
+      paired_sums(storage.visits, &StorageVisit::observed_cm, &StorageVisit::simulated_cm);
   out += fmt::format("  Visits (with the run start and end) with a reading at every depth: {} of {}.\n", both,
                      storage.visits.size());
   if (both > 0) {
@@ -141,14 +158,8 @@ std::string storage_section(const StorageCheck& storage) {
         fmt::format("  Mean stored water at those visits: readings {} mm, model {} mm (model minus readings {} mm).\n",
                     mm(observed / both), mm(simulated / both), mm((simulated - observed) / both));
   }
-  int intervals = 0;
-  double observed_change = 0, simulated_change = 0;
-  for (const auto& i : storage.intervals) {
-    if (!i.observed_change_cm || !i.simulated_change_cm) continue;
-    ++intervals;
-    observed_change += *i.observed_change_cm;
-    simulated_change += *i.simulated_change_cm;
-  }
+  const auto [intervals, observed_change, simulated_change] =
+      paired_sums(storage.intervals, &StorageInterval::observed_change_cm, &StorageInterval::simulated_change_cm);
   out += fmt::format(
       "  Intervals with a change from both: {} of {}; the changes summed over them: readings {} mm,\n"
       "  model {} mm (positive: water gained). The storage change columns of the visit table give every\n"

@@ -202,15 +202,26 @@ bool has_link(hid_t parent, std::string_view name) {
   return exists > 0;
 }
 
-Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about) {
+namespace {
+
+// A one-dimensional dataset of `file_type` on disk, written from `values` in `memory_type`.
+template <class T>
+Dataset write_one_dimensional(hid_t parent, std::string_view name, std::span<const T> values, hid_t file_type,
+                              hid_t memory_type, const Description& about) {
   const hsize_t dims[1] = {values.size()};
   Dataspace space = simple_space(dims);
-  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, file_type, space, ordered_dataset_properties());
   if (!values.empty())
-    check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
+    check(H5Dwrite(dataset.id(), memory_type, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
           fmt::format("writing dataset {}", child_path(parent, name)));
   describe(parent, name, about);
   return dataset;
+}
+
+}  // namespace
+
+Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about) {
+  return write_one_dimensional(parent, name, values, H5T_IEEE_F64LE, H5T_NATIVE_DOUBLE, about);
 }
 
 Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std::size_t columns,
@@ -240,14 +251,7 @@ Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std:
 }
 
 Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values, Description about) {
-  const hsize_t dims[1] = {values.size()};
-  Dataspace space = simple_space(dims);
-  Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space, ordered_dataset_properties());
-  if (!values.empty())
-    check(H5Dwrite(dataset.id(), H5T_NATIVE_INT64, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
-          fmt::format("writing dataset {}", child_path(parent, name)));
-  describe(parent, name, about);
-  return dataset;
+  return write_one_dimensional(parent, name, values, H5T_STD_I64LE, H5T_NATIVE_INT64, about);
 }
 
 Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about) {
