@@ -139,7 +139,7 @@ soils::HydraulicModel layer_model(const SiteTable& layer) {
   std::vector<std::string_view> choices = names;
   choices.insert(choices.begin() + 1, "van genuchten-mualem");
   const std::string name = layer.choice("model", choices);
-  soils::HydraulicModel model = defaults.front();
+  soils::HydraulicModel model = defaults.front();  // the plain van Genuchten model, also for its alias
   for (const auto& candidate : defaults)
     if (soils::model_key(candidate) == name) model = candidate;
   // Each model takes its own parameters; a parameter of another model is an error, not ignored.
