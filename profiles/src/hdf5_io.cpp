@@ -14,12 +14,6 @@ namespace wetfront::profiles::hdf5 {
 
 namespace {
 
-std::string child_path(hid_t parent, std::string_view name) {
-  std::string base = object_path(parent);
-  if (base.empty() || base.back() != '/') base += '/';
-  return base + std::string(name);
-}
-
 std::string attribute_path(hid_t location, std::string_view object_name, std::string_view name) {
   const std::string object = object_name == "." ? object_path(location) : child_path(location, object_name);
   return fmt::format("attribute '{}' of {}", name, object);
@@ -105,6 +99,12 @@ void require_single_value(const Attribute& attribute, const std::string& what) {
 }
 
 }  // namespace
+
+std::string child_path(hid_t parent, std::string_view name) {
+  std::string base = object_path(parent);
+  if (base.empty() || base.back() != '/') base += '/';
+  return base + std::string(name);
+}
 
 std::string object_path(hid_t object) {
   const ssize_t length = H5Iget_name(object, nullptr, 0);
@@ -541,7 +541,7 @@ namespace {
 
 void require_entries(hid_t parent, std::string_view name, std::size_t entries, std::size_t length) {
   if (entries != length)
-    throw Error(fmt::format("dataset {}/{} has {} entries, expected {}", object_path(parent), name, entries, length));
+    throw Error(fmt::format("dataset {} has {} entries, expected {}", child_path(parent, name), entries, length));
 }
 
 }  // namespace

@@ -107,5 +107,7 @@ void set_identity_attributes(hid_t file, const FileIdentity& identity);
 
 // Full HDF5 path of an object, for messages.
 std::string object_path(hid_t object);
+// Full HDF5 path of `name` in the group `parent`.
+std::string child_path(hid_t parent, std::string_view name);
 
 }  // namespace wetfront::profiles::hdf5

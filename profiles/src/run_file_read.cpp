@@ -19,7 +19,7 @@ std::vector<double> read_shaped(hid_t parent, std::string_view name, std::vector
   std::vector<std::size_t> dims;
   std::vector<double> values = h5::read_doubles(parent, name, static_cast<int>(expected.size()), dims);
   if (dims != expected)
-    throw h5::Error(fmt::format("dataset {}/{} has shape {}, expected {}", h5::object_path(parent), name,
+    throw h5::Error(fmt::format("dataset {} has shape {}, expected {}", h5::child_path(parent, name),
                                 shape_text(dims), shape_text(expected)));
   return values;
 }
@@ -149,7 +149,7 @@ std::vector<std::int64_t> read_integer_vector(hid_t parent, std::string_view nam
   std::vector<std::int64_t> values = h5::read_integers(parent, name, 1, dims);
   if (values.size() != length)
     throw h5::Error(
-        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+        fmt::format("dataset {} has {} entries, expected {}", h5::child_path(parent, name), values.size(), length));
   return values;
 }
 
