@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-"""The demo's run file and a small sweep file are netCDF-4 files that follow CF-1.10, read by
+"""The demo's run file and small sweep and calibration files are netCDF-4 files that follow CF-1.10, read by
 the tools hydrologists use: xarray (default engine, netCDF-C underneath), ncdump, UDUNITS-2.
 
 Usage: cf_files_test.py WETFRONT_PROGRAM DEMO_DIRECTORY
@@ -193,6 +193,13 @@ def main(program, demo):
         checks.expect(done.returncode == 0, f"sweep failed: {done.stderr}")
         if done.returncode == 0:
             check_netcdf_file(checks, sweep_path, udunits)
+
+        calibration_path = scratch / "calibration.h5"
+        done = subprocess.run([program, "calibrate", str(tenth / "site.toml"), "--to", "2025-05-01", "--out",
+                               str(calibration_path), "--threads", "1", "--quiet"], capture_output=True, text=True)
+        checks.expect(done.returncode == 0, f"calibration failed: {done.stderr}")
+        if done.returncode == 0:
+            check_netcdf_file(checks, calibration_path, udunits)
 
     for message in checks.failures:
         print("FAIL:", message)
