@@ -14,8 +14,8 @@ namespace wetfront::profiles::cf {
 void set_depth_attributes(const hdf5::Dataset& depth);
 
 // Days since the run start (`units` from days_since_units): standard_name "time", standard calendar.
-hdf5::Dataset write_times(hid_t parent, std::string_view name, const std::vector<double>& days, const std::string& units,
-                          std::string_view long_name);
+hdf5::Dataset write_times(hid_t parent, std::string_view name, const std::vector<double>& days,
+                          const std::string& units, std::string_view long_name);
 
 // The same as coordinate variables (the dimension of the variable's own name), with `axis`.
 hdf5::Dataset write_time_axis(hid_t parent, std::string_view name, const std::vector<double>& days,

@@ -99,8 +99,8 @@ void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const Intervals& in
   h5::Group group = h5::create_group(parent, "darcy");
   const h5::Dataset interval_end = write_interval_ends(group.id(), intervals);
   // The pair as dimension `sensor` (names as its coordinate), their depths along it.
-  h5::Dataset sensor =
-      h5::write_texts(group.id(), "sensor", {d.upper_sensor, d.lower_sensor}, {"", "tensiometer pair, the upper first"});
+  h5::Dataset sensor = h5::write_texts(group.id(), "sensor", {d.upper_sensor, d.lower_sensor},
+                                       {"", "tensiometer pair, the upper first"});
   h5::make_coordinate(sensor);
   const double depths[2] = {d.upper_depth_cm, d.lower_depth_cm};
   h5::Dataset depth = h5::write_vector(group.id(), "sensor_depth", depths, {"cm", "depth of each tensiometer cup"});
@@ -137,7 +137,8 @@ void write_water_table(hid_t parent, const WaterTableEstimateRecord& w, const In
 void write_stored_water(hid_t file, const StoredWaterRecord& s, const Intervals& intervals) {
   h5::Group group = h5::create_group(file, "stored_water");
   const h5::Dataset interval_end = write_interval_ends(group.id(), intervals);
-  const h5::Dataset depth = cf::write_depth_axis(group.id(), "depth", s.depths_cm, "water-content depths the storage spans");
+  const h5::Dataset depth =
+      cf::write_depth_axis(group.id(), "depth", s.depths_cm, "water-content depths the storage spans");
   h5::make_coordinate(
       h5::write_texts(group.id(), "source", s.sources, {"", "probes and core samples that give the readings"}));
   const h5::Dataset time = cf::write_time_axis(group.id(), "storage_time", s.visit_days, intervals.time_units,

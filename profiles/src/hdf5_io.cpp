@@ -338,9 +338,10 @@ void attach_dimension_scale(const Dataset& dataset, const Dataset& scale, unsign
   const std::string dataset_path = object_path(dataset.id());
   const std::string scale_group = group_part(object_path(scale.id()));
   if (dataset_path.compare(0, scale_group.size(), scale_group) != 0)
-    throw Error(fmt::format("dimension {} is not visible from {} (netCDF-4 allows only scales in the same or an "
-                            "ancestor group)",
-                            object_path(scale.id()), dataset_path));
+    throw Error(
+        fmt::format("dimension {} is not visible from {} (netCDF-4 allows only scales in the same or an "
+                    "ancestor group)",
+                    object_path(scale.id()), dataset_path));
   check(H5DSattach_scale(dataset.id(), scale.id(), dimension),
         fmt::format("attaching dimension scale {} to dimension {} of {}", object_path(scale.id()), dimension,
                     object_path(dataset.id())));

@@ -19,8 +19,8 @@ std::vector<double> read_shaped(hid_t parent, std::string_view name, std::vector
   std::vector<std::size_t> dims;
   std::vector<double> values = h5::read_doubles(parent, name, static_cast<int>(expected.size()), dims);
   if (dims != expected)
-    throw h5::Error(fmt::format("dataset {} has shape {}, expected {}", h5::child_path(parent, name),
-                                shape_text(dims), shape_text(expected)));
+    throw h5::Error(fmt::format("dataset {} has shape {}, expected {}", h5::child_path(parent, name), shape_text(dims),
+                                shape_text(expected)));
   return values;
 }
 
@@ -223,10 +223,11 @@ void require_run_record(hid_t file) {
   // Version 1 kept the profiles in /profiles and attached datasets to scales in other groups,
   // which netCDF readers refuse; it is not read (run the site again to write the current layout).
   if (version != kRecordFormatVersion)
-    throw h5::Error(fmt::format("the file has run record layout version {}; this program reads only version {} ({}). "
-                                "Run the site again with this program to write it in the current layout",
-                                version, kRecordFormatVersion,
-                                version < kRecordFormatVersion ? "the netCDF/CF layout" : "a newer program wrote it"));
+    throw h5::Error(
+        fmt::format("the file has run record layout version {}; this program reads only version {} ({}). "
+                    "Run the site again with this program to write it in the current layout",
+                    version, kRecordFormatVersion,
+                    version < kRecordFormatVersion ? "the netCDF/CF layout" : "a newer program wrote it"));
 }
 
 }  // namespace

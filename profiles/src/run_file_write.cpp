@@ -1,6 +1,6 @@
 // Writes a RunRecord as a netCDF-4 file (HDF5 with netCDF-4's rules) following the CF
-// conventions: root attributes, the shared dimensions and the profiles at the root, then one
-// group per part of the record (layout in docs/hdf5-layout.md).
+// conventions: root attributes and the profiles with their coordinates at the root, then one
+// group per part of the record, each with its own coordinates (layout in docs/hdf5-layout.md).
 #include <fmt/format.h>
 
 #include "cf_variables.hpp"
@@ -237,8 +237,8 @@ void write_compared(hid_t parent, std::string_view name, const std::vector<Compa
     used.push_back(r.used ? 1 : 0);
   }
   along_readings(h5::write_texts(group.id(), "sensor", sensors, {"", "name of the sensor that took the reading"}));
-  along_readings(
-      write_times(group.id(), "time", column(readings, &ComparedReading::time_days), time_units, "time of the reading"));
+  along_readings(write_times(group.id(), "time", column(readings, &ComparedReading::time_days), time_units,
+                             "time of the reading"));
   h5::Dataset depth = h5::write_vector(group.id(), "depth", column(readings, &ComparedReading::depth_cm),
                                        {"cm", "depth of the sensor below the soil surface"});
   set_depth_attributes(depth);
@@ -254,7 +254,8 @@ void write_compared(hid_t parent, std::string_view name, const std::vector<Compa
   }
   along_readings(h5::write_integers(
       group.id(), "used", used,
-      {"1", "1 when the reading is in the fit metrics, 0 when left out (beyond the working limit or outside the run)"}));
+      {"1",
+       "1 when the reading is in the fit metrics, 0 when left out (beyond the working limit or outside the run)"}));
 }
 
 void write_sensor_comparison(hid_t file, const SensorComparisonRecord& comparison, const std::string& time_units) {
@@ -277,8 +278,8 @@ void write_sensor_comparison(hid_t file, const SensorComparisonRecord& compariso
   }
   along_rows(h5::write_texts(metrics.id(), "name", names, {"", "sensor name, or all sensors of one kind pooled"}));
   along_rows(h5::write_texts(metrics.id(), "quantity", quantities, {"", "quantity compared"}));
-  along_rows(
-      h5::write_texts(metrics.id(), "unit", units, {"", "unit of the quantity, of bias and of root_mean_square_error"}));
+  along_rows(h5::write_texts(metrics.id(), "unit", units,
+                             {"", "unit of the quantity, of bias and of root_mean_square_error"}));
   h5::Dataset depth = h5::write_vector(metrics.id(), "depth", column(rows, &SensorMetrics::depth_cm),
                                        {"cm", "depth of the sensor below the soil surface (NaN for pooled rows)"});
   set_depth_attributes(depth);
@@ -292,9 +293,9 @@ void write_sensor_comparison(hid_t file, const SensorComparisonRecord& compariso
   // names each row's.
   along_rows(h5::write_vector(metrics.id(), "bias", column(rows, &SensorMetrics::bias),
                               {"", "mean of simulated minus observed, in the unit given by unit"}));
-  along_rows(
-      h5::write_vector(metrics.id(), "root_mean_square_error", column(rows, &SensorMetrics::root_mean_square_error),
-                       {"", "root mean square of simulated minus observed, in the unit given by unit"}));
+  along_rows(h5::write_vector(metrics.id(), "root_mean_square_error",
+                              column(rows, &SensorMetrics::root_mean_square_error),
+                              {"", "root mean square of simulated minus observed, in the unit given by unit"}));
   along_rows(h5::write_vector(metrics.id(), "nash_sutcliffe", column(rows, &SensorMetrics::nash_sutcliffe),
                               {"1", "Nash-Sutcliffe efficiency (NaN when undefined)"}));
   along_rows(h5::write_vector(metrics.id(), "kling_gupta", column(rows, &SensorMetrics::kling_gupta),

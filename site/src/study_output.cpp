@@ -110,7 +110,8 @@ void write_sweep_file(const std::filesystem::path& path, const SeasonModel& mode
   const auto& parameters = model.study().parameters;
   StudyColumn parameter_axis{"parameter_number", "1", "number of the adjustable parameter", {}};
   for (std::size_t k = 0; k < parameters.size(); ++k) parameter_axis.values.push_back(static_cast<double>(k + 1));
-  profiles::StudyMatrix values{"values", "", "parameter values of the set, in the units given by /parameters/unit", parameter_axis, {}};
+  profiles::StudyMatrix values{
+      "values", "", "parameter values of the set, in the units given by /parameters/unit", parameter_axis, {}};
   profiles::StudyMatrix recharge{"interval_recharge",
                                  "cm",
                                  "water across the recharge plane per visit interval (positive downward)",

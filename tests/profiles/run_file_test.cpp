@@ -305,9 +305,9 @@ TEST_F(RunFileTest, FieldChecksUseTheirGroupsVisitIntervalAxis) {
   write_run(path, testing::sample_record());
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
   ASSERT_GE(file, 0);
-  for (const char* name : {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
-                           "recharge_estimates/water_table/end_depth", "stored_water/observed_change",
-                           "visits/water_input"}) {
+  for (const char* name :
+       {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
+        "recharge_estimates/water_table/end_depth", "stored_water/observed_change", "visits/water_input"}) {
     const std::string group = fs::path(name).parent_path().string();
     const hid_t interval_end = H5Dopen2(file, (group + "/interval_end").c_str(), H5P_DEFAULT);
     ASSERT_GE(interval_end, 0) << group;
@@ -363,8 +363,7 @@ TEST_F(RunFileTest, ReadingAMisshapedDatasetNamesIt) {
   ASSERT_GE(H5LTmake_dataset_double(file, "water_content", 2, dims, values.data()), 0);
   H5Fclose(file);
   const std::string message = message_of([&] { read_run(path); });
-  EXPECT_NE(message.find("dataset /water_content has shape 31 x 19, expected 31 x 20"), std::string::npos)
-      << message;
+  EXPECT_NE(message.find("dataset /water_content has shape 31 x 19, expected 31 x 20"), std::string::npos) << message;
 }
 
 // A file of the first layout (profiles in /profiles, scales shared across groups) is refused
