@@ -1,0 +1,118 @@
+// `run_network` and `wetfront network` on a scratch copy of the demo network (examples/network),
+// shortened to two months so that the tests stay quick.
+#include <gtest/gtest.h>
+
+#include <fstream>
+#include <random>
+#include <sstream>
+
+#include "site_test_helpers.hpp"
+#include "wetfront/site/network.hpp"
+
+namespace wetfront::site {
+namespace {
+
+namespace fs = std::filesystem;
+
+std::string read_text(const fs::path& path) {
+  std::ifstream in(path);
+  std::stringstream buffer;
+  buffer << in.rdbuf();
+  return buffer.str();
+}
+
+void write_text(const fs::path& path, const std::string& text) { std::ofstream(path) << text; }
+
+class ScratchNetwork {
+ public:
+  ScratchNetwork() {
+    std::random_device seed;
+    folder_ = fs::temp_directory_path() / ("wetfront-network-" + std::to_string(seed()));
+    fs::create_directories(folder_);
+    fs::copy(fs::path(WETFRONT_SOURCE_DIR) / "examples" / "network", folder_, fs::copy_options::recursive);
+    for (const char* plot : {"plot-a.toml", "plot-b.toml", "plot-c.toml"}) {
+      std::string text = read_text(folder_ / plot);
+      const auto at = text.find("end = \"2025-10-18\"");
+      if (at == std::string::npos) throw std::runtime_error("the network plot has no end date to shorten");
+      text.replace(at, 18, "end = \"2025-06-01\"");
+      write_text(folder_ / plot, text);
+    }
+  }
+  ~ScratchNetwork() {
+    std::error_code ignored;
+    fs::remove_all(folder_, ignored);
+  }
+  ScratchNetwork(const ScratchNetwork&) = delete;
+  ScratchNetwork& operator=(const ScratchNetwork&) = delete;
+  const fs::path& folder() const { return folder_; }
+  fs::path network_file() const { return folder_ / "network.toml"; }
+
+ private:
+  fs::path folder_;
+};
+
+TEST(Network, DemoNetworkRunsThreeSites) {
+  const ScratchNetwork network;
+  const NetworkPlan plan = load_network_file(network.network_file());
+  ASSERT_EQ(plan.site_files.size(), 3u);
+  const auto sites = run_network(plan, 2, "test");
+  ASSERT_EQ(sites.size(), 3u);
+  for (const auto& s : sites) {
+    EXPECT_EQ(s.status, SiteStatus::done) << s.reason;
+    EXPECT_FALSE(s.intervals.empty());
+  }
+  EXPECT_EQ(sites[0].name, "Network plot A (invented)");
+  // Plot A has a tensiometer pair and the well; plot C has neither.
+  EXPECT_TRUE(sites[0].head_rmse_cm.has_value());
+  EXPECT_FALSE(sites[2].head_rmse_cm.has_value());
+  EXPECT_FALSE(sites[2].darcy_cm.has_value());
+  EXPECT_FALSE(sites[2].water_table_cm.has_value());
+  // Different soils under the same weather drain differently.
+  EXPECT_NE(sites[1].drainage_cm, sites[2].drainage_cm);
+}
+
+TEST(Network, BrokenSiteIsReportedAndTheOthersFinish) {
+  const ScratchNetwork network;
+  write_text(network.folder() / "plot-b.toml", "[site\nname = broken\n");
+  const auto result = testing::run_program("network \"" + network.network_file().string() + "\"", network.folder());
+  EXPECT_EQ(result.exit_code, 4) << result.err;
+  EXPECT_NE(result.err.find("plot-b.toml"), std::string::npos) << result.err;
+  EXPECT_TRUE(fs::exists(network.folder() / "plot-a.h5"));
+  EXPECT_TRUE(fs::exists(network.folder() / "plot-c.h5"));
+  EXPECT_FALSE(fs::exists(network.folder() / "plot-b.h5"));
+  ASSERT_TRUE(fs::exists(network.folder() / "network.h5"));
+  const std::string sites_csv = read_text(network.folder() / "network-sites.csv");
+  EXPECT_NE(sites_csv.find("bad input"), std::string::npos) << sites_csv;
+  EXPECT_NE(sites_csv.find("Network plot A (invented),done"), std::string::npos) << sites_csv;
+  EXPECT_NE(sites_csv.find("Network plot C (invented),done"), std::string::npos) << sites_csv;
+}
+
+TEST(Network, ResultsDoNotDependOnTheThreadCount) {
+  const ScratchNetwork network;
+  const NetworkPlan plan = load_network_file(network.network_file());
+  const auto one = run_network(plan, 1, "test");
+  const auto two = run_network(plan, 2, "test");
+  ASSERT_EQ(one.size(), two.size());
+  for (std::size_t k = 0; k < one.size(); ++k) {
+    EXPECT_EQ(one[k].name, two[k].name);
+    EXPECT_EQ(one[k].status, two[k].status);
+    EXPECT_EQ(one[k].drainage_cm, two[k].drainage_cm);
+    EXPECT_EQ(one[k].evaporation_cm, two[k].evaporation_cm);
+    EXPECT_EQ(one[k].head_rmse_cm, two[k].head_rmse_cm);
+    EXPECT_EQ(one[k].water_table_cm, two[k].water_table_cm);
+    ASSERT_EQ(one[k].intervals.size(), two[k].intervals.size());
+    for (std::size_t i = 0; i < one[k].intervals.size(); ++i) {
+      EXPECT_EQ(one[k].intervals[i].drainage_cm, two[k].intervals[i].drainage_cm);
+      EXPECT_EQ(one[k].intervals[i].darcy_cm, two[k].intervals[i].darcy_cm);
+    }
+  }
+}
+
+TEST(Network, SiteListedTwiceIsBadInput) {
+  const ScratchNetwork network;
+  write_text(network.network_file(), "sites = [\"plot-a.toml\", \"plot-b.toml\", \"plot-a.toml\"]\n");
+  EXPECT_THROW(load_network_file(network.network_file()), base::InputError);
+}
+
+}  // namespace
+}  // namespace wetfront::site
