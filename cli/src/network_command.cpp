@@ -26,29 +26,45 @@ std::filesystem::path with_suffix(const std::filesystem::path& base, const std::
   return out;
 }
 
-std::string mm_or_dash(const std::optional<double>& cm) { return cm ? mm(*cm) : std::string("-"); }
+std::string mm_or_blank(const std::optional<double>& cm) { return cm ? mm(*cm) : std::string(); }
 
 // One row per site: status, period, season totals, estimates and the fit of the heads.
 ReportTable sites_table(const std::vector<NetworkSite>& sites) {
   ReportTable table;
   table.title =
       "Network: season per site [mm] (fluxes positive downward; field estimates summed over the visit intervals "
-      "that have one, - where none)";
-  table.headers = {"site",          "status",           "from",          "to",
-                   "plane [cm]",    "rain + irrigation [mm]", "evaporation [mm]", "transpiration [mm]",
-                   "runoff [mm]",   "storage change [mm]", "drainage at plane [mm]", "Darcy estimate [mm]",
-                   "water-table estimate [mm]", "head RMSE [cm]", "head bias [cm]", "head readings",
-                   "site file",     "reason"};
+      "that have one; blank where none)";
+  table.headers = {"site",
+                   "status",
+                   "from",
+                   "to",
+                   "plane [cm]",
+                   "rain + irrigation [mm]",
+                   "evaporation [mm]",
+                   "transpiration [mm]",
+                   "runoff [mm]",
+                   "storage change [mm]",
+                   "drainage at plane [mm]",
+                   "Darcy estimate [mm]",
+                   "water-table estimate [mm]",
+                   "head RMSE [cm]",
+                   "head bias [cm]",
+                   "head readings",
+                   "site file",
+                   "reason"};
   for (const auto& s : sites) {
     if (!s.has_run()) {
-      table.add_row({s.name, status_text(s.status), "-", "-", "-", "-", "-", "-", "-", "-", "-", "-", "-", "-", "-",
-                     "-", s.site_file.string(), s.reason});
+      std::vector<std::string> row{s.name, status_text(s.status)};
+      row.resize(table.headers.size() - 2);
+      row.push_back(s.site_file.string());
+      row.push_back(s.reason);
+      table.add_row(std::move(row));
       continue;
     }
     table.add_row({s.name, status_text(s.status), s.run_start, s.run_end, number(s.plane_depth_cm),
                    mm(s.water_input_cm), mm(s.evaporation_cm), mm(s.transpiration_cm), mm(s.runoff_cm),
-                   mm(s.storage_change_cm), mm(s.drainage_cm), mm_or_dash(s.darcy_cm), mm_or_dash(s.water_table_cm),
-                   s.head_rmse_cm ? number(*s.head_rmse_cm) : "-", s.head_bias_cm ? number(*s.head_bias_cm) : "-",
+                   mm(s.storage_change_cm), mm(s.drainage_cm), mm_or_blank(s.darcy_cm), mm_or_blank(s.water_table_cm),
+                   s.head_rmse_cm ? number(*s.head_rmse_cm) : "", s.head_bias_cm ? number(*s.head_bias_cm) : "",
                    fmt::format("{}", s.head_readings), s.site_file.string(), s.reason});
   }
   return table;
@@ -61,8 +77,8 @@ ReportTable intervals_table(const std::vector<NetworkSite>& sites) {
   table.headers = {"site", "from", "to", "drainage at plane [mm]", "Darcy estimate [mm]", "water-table estimate [mm]"};
   for (const auto& s : sites) {
     for (const auto& i : s.intervals) {
-      table.add_row({s.name, i.start_date, i.end_date, mm(i.drainage_cm), mm_or_dash(i.darcy_cm),
-                     mm_or_dash(i.water_table_cm)});
+      table.add_row(
+          {s.name, i.start_date, i.end_date, mm(i.drainage_cm), mm_or_blank(i.darcy_cm), mm_or_blank(i.water_table_cm)});
     }
   }
   return table;
@@ -128,8 +144,7 @@ void add_network_command(CLI::App& app) {
       plan = load_network_file(options->network);
       if (!options->summary.empty()) plan.summary = options->summary;
     } else {
-      if (options->sites.empty())
-        throw base::InputError("give a network file or --sites with one or more site files");
+      if (options->sites.empty()) throw base::InputError("give a network file or --sites with one or more site files");
       std::vector<std::filesystem::path> files(options->sites.begin(), options->sites.end());
       plan = network_of_sites(std::move(files), options->summary.empty() ? "network" : options->summary);
     }
@@ -139,8 +154,8 @@ void add_network_command(CLI::App& app) {
                  std::min<std::size_t>(threads, plan.site_files.size()));
     const bool quiet = options->quiet;
     const std::size_t total = plan.site_files.size();
-    const std::vector<NetworkSite> results =
-        run_network(plan, threads, WETFRONT_VERSION, write_site_files, [quiet, total](std::size_t done, const NetworkSite& s) {
+    const std::vector<NetworkSite> results = run_network(
+        plan, threads, WETFRONT_VERSION, write_site_files, [quiet, total](std::size_t done, const NetworkSite& s) {
           if (!quiet) fmt::print(stderr, "wetfront: [{}/{}] {}: {}\n", done, total, s.name, status_text(s.status));
         });
     const ReportTable per_site = sites_table(results);

@@ -2,6 +2,7 @@
 
 #include <array>
 #include <cmath>
+#include <cstdint>
 #include <mutex>
 #include <set>
 #include <string_view>
@@ -49,8 +50,8 @@ void check_distinct(const std::vector<std::filesystem::path>& files, const std::
   for (const auto& f : files) {
     const auto key = std::filesystem::weakly_canonical(f);
     if (!seen.insert(key).second)
-      throw base::InputError(fmt::format("{}: the site file {} is listed twice (its run file would be written twice)",
-                                         where, f.string()));
+      throw base::InputError(
+          fmt::format("{}: the site file {} is listed twice (its run file would be written twice)", where, f.string()));
   }
 }
 
@@ -80,9 +81,9 @@ NetworkPlan load_network_file(const std::filesystem::path& network_file) {
   std::set<std::filesystem::path> seen;
   for (std::size_t i = 0; i < plan.site_files.size(); ++i) {
     if (!seen.insert(std::filesystem::weakly_canonical(plan.site_files[i])).second)
-      root.fail_entry("sites", i,
-                      fmt::format("{} is listed twice; each site file once (its run file would be written twice)",
-                                  sites[i]));
+      root.fail_entry(
+          "sites", i,
+          fmt::format("{} is listed twice; each site file once (its run file would be written twice)", sites[i]));
   }
   const std::string summary = root.optional_text("summary").value_or(network_file.stem().string());
   if (summary.empty()) root.fail("summary", "is empty; expected a file name without extension, e.g. \"network\"");
@@ -116,6 +117,7 @@ NetworkSite summarise_site(const std::filesystem::path& site_file, const SeasonR
                           : std::string("the solver stopped early");
   }
   site.run_start = record.run_start_date;
+  site.input_hash = record.input_hash;
   const double reached = record.run.balances.empty() ? 0.0 : record.run.balances.back().time_days;
   site.run_end = date_after(record.run_start_date, reached);
   if (!record.flux_plane_depths_cm.empty()) site.plane_depth_cm = record.flux_plane_depths_cm.front();
@@ -197,9 +199,14 @@ profiles::StudyRecord network_record(const NetworkPlan& plan, const std::vector<
       break;
     }
   }
-  std::string hash;
-  for (const auto& s : sites) hash += s.site_file.string() + ";";
-  record.input_hash = hash;
+  // FNV-1a over every site's input digest and status, in network order.
+  std::uint64_t hash = 1469598103934665603ULL;
+  for (const auto& s : sites) {
+    for (const char c : s.input_hash + "|" + status_text(s.status) + ";") {
+      hash = (hash ^ static_cast<unsigned char>(c)) * 1099511628211ULL;
+    }
+  }
+  record.input_hash = fmt::format("{:016x}", hash);
   record.notes.push_back({"network_sites", fmt::format("{}", sites.size())});
   record.notes.push_back({"dates", "every date is ISO 8601 text; day columns count from each site's own run start"});
 
@@ -208,8 +215,8 @@ profiles::StudyRecord network_record(const NetworkPlan& plan, const std::vector<
   table.axis = {"site_number", "1", "number of the site in the network (listed order)", {}};
   StudyTextColumn name{"name", "site name", {}}, file{"site_file", "site file", {}},
       status{"status", "done, bad input, solver failure or program fault", {}},
-      reason{"reason", "why the site did not finish (empty when done)", {}},
-      start{"run_start", "run start date", {}}, end{"run_end", "date the run reached", {}};
+      reason{"reason", "why the site did not finish (empty when done)", {}}, start{"run_start", "run start date", {}},
+      end{"run_end", "date the run reached", {}};
   auto mm = [](std::string n, std::string l) { return StudyColumn{std::move(n), "mm", std::move(l), {}}; };
   StudyColumn plane{"recharge_plane_depth", "cm", "depth of the recharge plane below the surface", {}};
   StudyColumn input = mm("water_input", "rain and irrigation reaching the surface over the run"),
@@ -219,7 +226,8 @@ profiles::StudyRecord network_record(const NetworkPlan& plan, const std::vector<
               drainage = mm("drainage", "model drainage across the recharge plane over the run (positive down)"),
               bottom = mm("bottom_flux", "net downward flux out of the column bottom over the run"),
               darcy = mm("darcy_estimate", "Darcy recharge estimate summed over the visit intervals that have one"),
-              table_est = mm("water_table_estimate", "water-table-fluctuation recharge estimate summed over the visit intervals that have one"),
+              table_est = mm("water_table_estimate",
+                             "water-table-fluctuation recharge estimate summed over the visit intervals that have one"),
               rmse{"head_rmse", "cm", "root mean square error of simulated pressure heads, all tensiometers", {}},
               bias{"head_bias", "cm", "mean simulated minus observed pressure head, all tensiometers", {}},
               count{"head_readings", "1", "tensiometer readings compared", {}};
@@ -256,7 +264,8 @@ profiles::StudyRecord network_record(const NetworkPlan& plan, const std::vector<
   intervals.group = "intervals";
   intervals.axis = {"interval_number", "1", "row: one visit interval of one site", {}};
   StudyColumn site_number{"site_number", "1", "number of the site (see /sites)", {}};
-  StudyTextColumn from{"start_date", "start of the visit interval", {}}, to{"end_date", "end of the visit interval", {}};
+  StudyTextColumn from{"start_date", "start of the visit interval", {}},
+      to{"end_date", "end of the visit interval", {}};
   StudyColumn i_drainage = mm("drainage", "model drainage across the recharge plane (positive down)"),
               i_darcy = mm("darcy_estimate", "Darcy recharge estimate from a tensiometer pair"),
               i_table = mm("water_table_estimate", "water-table-fluctuation recharge estimate");

@@ -47,8 +47,9 @@ struct NetworkSite {
   std::filesystem::path site_file;
   std::string name;  // from the site file; the file name when it could not be read
   SiteStatus status = SiteStatus::done;
-  std::string reason;  // why the site did not finish; empty when done
+  std::string reason;              // why the site did not finish; empty when done
   std::string run_start, run_end;  // ISO 8601; run_end: where the run reached
+  std::string input_hash;          // the run record's digest of the site's inputs
   double plane_depth_cm = std::numeric_limits<double>::quiet_NaN();
   // Season totals (cm; fluxes positive downward, evaporation etc. positive amounts).
   double water_input_cm = 0, runoff_cm = 0, evaporation_cm = 0, transpiration_cm = 0, storage_change_cm = 0,
