@@ -77,8 +77,8 @@ ReportTable intervals_table(const std::vector<NetworkSite>& sites) {
   table.headers = {"site", "from", "to", "drainage at plane [mm]", "Darcy estimate [mm]", "water-table estimate [mm]"};
   for (const auto& s : sites) {
     for (const auto& i : s.intervals) {
-      table.add_row(
-          {s.name, i.start_date, i.end_date, mm(i.drainage_cm), mm_or_blank(i.darcy_cm), mm_or_blank(i.water_table_cm)});
+      table.add_row({s.name, i.start_date, i.end_date, mm(i.drainage_cm), mm_or_blank(i.darcy_cm),
+                     mm_or_blank(i.water_table_cm)});
     }
   }
   return table;

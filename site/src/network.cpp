@@ -97,6 +97,10 @@ NetworkPlan load_network_file(const std::filesystem::path& network_file) {
 NetworkPlan network_of_sites(std::vector<std::filesystem::path> site_files, std::filesystem::path summary) {
   if (site_files.empty()) throw base::InputError("no site files given; expected one or more site files (TOML)");
   check_distinct(site_files, "command line");
+  const auto folder = summary.parent_path();
+  if (!folder.empty() && !std::filesystem::is_directory(folder))
+    throw base::InputError(
+        fmt::format("--summary {}: the folder {} does not exist", summary.string(), folder.string()));
   NetworkPlan plan;
   plan.name = summary.stem().string();
   plan.site_files = std::move(site_files);
@@ -168,7 +172,15 @@ std::vector<NetworkSite> run_network(const NetworkPlan& plan, unsigned threads, 
       site.name = setup.name;
       const SeasonResult result = run_season(setup, program_version);
       site = summarise_site(file, result);
-      if (finished) finished(result);
+      if (finished) {
+        try {
+          finished(result);
+        } catch (const std::exception& error) {
+          // The run is summarised, but its own files are not there: the site counts as failed.
+          site.status = SiteStatus::bad_input;
+          site.reason = fmt::format("its run files could not be written: {}", error.what());
+        }
+      }
     } catch (const base::InputError& error) {
       site.status = SiteStatus::bad_input;
       site.reason = error.what();

@@ -105,6 +105,33 @@ TEST(Network, ResultsDoNotDependOnTheThreadCount) {
   }
 }
 
+TEST(Network, SitesOnTheCommandLineWithOneMissing) {
+  const ScratchNetwork network;
+  const fs::path& f = network.folder();
+  const auto result = testing::run_program("network --sites '" + (f / "plot-c.toml").string() + "' '" +
+                                               (f / "no-such-plot.toml").string() + "' --summary '" +
+                                               (f / "two").string() + "' --threads 1",
+                                           f);
+  EXPECT_EQ(result.exit_code, 4) << result.err;
+  EXPECT_NE(result.err.find("no-such-plot.toml"), std::string::npos) << result.err;
+  EXPECT_TRUE(fs::exists(network.folder() / "plot-c.h5"));
+  EXPECT_TRUE(fs::exists(network.folder() / "two.h5"));
+  EXPECT_TRUE(fs::exists(network.folder() / "two-intervals.csv"));
+  const std::string sites_csv = read_text(network.folder() / "two-sites.csv");
+  EXPECT_NE(sites_csv.find("no-such-plot,bad input"), std::string::npos) << sites_csv;
+}
+
+TEST(Network, SummaryInAMissingFolderIsBadInputAndRunsNothing) {
+  const ScratchNetwork network;
+  const fs::path& f = network.folder();
+  const auto result = testing::run_program("network --sites '" + (f / "plot-c.toml").string() + "' --summary '" +
+                                               (f / "no-such-folder" / "out").string() + "'",
+                                           f);
+  EXPECT_EQ(result.exit_code, 1) << result.err;
+  EXPECT_NE(result.err.find("no-such-folder"), std::string::npos) << result.err;
+  EXPECT_FALSE(fs::exists(network.folder() / "plot-c.h5"));
+}
+
 TEST(Network, SiteListedTwiceIsBadInput) {
   const ScratchNetwork network;
   write_text(network.network_file(), "sites = [\"plot-a.toml\", \"plot-b.toml\", \"plot-a.toml\"]\n");

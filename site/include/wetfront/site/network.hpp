@@ -29,7 +29,8 @@ struct NetworkPlan {
 // sites, a site listed twice, a summary name with a folder that does not exist.
 NetworkPlan load_network_file(const std::filesystem::path& network_file);
 
-// A plan from site files given directly; throws base::InputError for none or one given twice.
+// A plan from site files given directly; throws base::InputError for none, one given twice or a
+// summary in a folder that does not exist.
 NetworkPlan network_of_sites(std::vector<std::filesystem::path> site_files, std::filesystem::path summary);
 
 enum class SiteStatus { done, bad_input, solver_failure, program_fault };
@@ -63,7 +64,8 @@ struct NetworkSite {
 };
 
 // Called on a worker thread with each site's finished (or partially finished) run, e.g. to
-// write its own files. What it throws makes the site a failure with that reason.
+// write its own files. What it throws makes the site a failure (bad input) with that reason;
+// its summary values stay, but has_run() is then false.
 using SiteFinished = std::function<void(const SeasonResult&)>;
 // Called under a lock after each site with the number of sites done so far.
 using NetworkProgress = std::function<void(std::size_t done, const NetworkSite& site)>;
