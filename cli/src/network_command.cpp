@@ -132,7 +132,7 @@ void add_network_command(CLI::App& app) {
   cmd->footer(
       "Runs every site as `wetfront run` would and writes its run file and CSV tables beside its site file;\n"
       "then writes the summary: NAME-sites.csv (one row per site), NAME-intervals.csv (one row per site and\n"
-      "visit interval) and NAME.h5 (the same tables; docs/hdf5-layout.md). A site that cannot be read or whose\n"
+      "visit interval) and NAME.h5 (the same tables; docs/network-file.md). A site that cannot be read or whose\n"
       "solver fails is listed with its reason and the others go on.\n"
       "Exit codes: 0 every site done, 1 bad network file or options (nothing written), 4 one or more sites\n"
       "failed (the summary names them; the others' files are written).\n"
