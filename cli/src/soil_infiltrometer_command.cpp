@@ -16,6 +16,7 @@ void add_infiltrometer_command(CLI::App& soil) {
   struct Options {
     InfiltrometerInputs inputs;
     std::string csv_path;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand(
@@ -37,11 +38,13 @@ void add_infiltrometer_command(CLI::App& soil) {
                   "largest accepted scatter about the fitted line, as a fraction of the level fall")
       ->capture_default_str();
   cmd->add_option("--csv", options->csv_path, "also write the conductivity table to this CSV file");
+  add_force_flag(cmd, options->force);
   cmd->footer(
       "Example:\n"
       "  wetfront soil infiltrometer examples/soil-data/tension-disc.csv --disc-radius \"10 cm\" \\\n"
       "      --tower-area \"19.6 cm2\" --csv disc.csv");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
+    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
     const FieldReport report = analyse_infiltrometer(options->inputs);
     emit_report(report.tables, report.warnings, options->csv_path);
     fmt::print("\nSaturated conductivity: {} cm/d ({})\n", number(report.saturated_conductivity_cm_per_d),

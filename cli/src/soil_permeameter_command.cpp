@@ -16,6 +16,7 @@ void add_permeameter_command(CLI::App& soil) {
   struct Options {
     PermeameterInputs inputs;
     std::string csv_path;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand(
@@ -42,11 +43,13 @@ void add_permeameter_command(CLI::App& soil) {
                   "largest accepted scatter about the fitted line, as a fraction of the level fall")
       ->capture_default_str();
   cmd->add_option("--csv", options->csv_path, "also write the results table to this CSV file");
+  add_force_flag(cmd, options->force);
   cmd->footer(
       "Example:\n"
       "  wetfront soil permeameter examples/soil-data/well-permeameter.csv --well-radius \"3 cm\" \\\n"
       "      --reservoir-area \"35.4 cm2\" --soil structured --csv kfs.csv");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
+    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
     const FieldReport report = analyse_permeameter(options->inputs);
     emit_report(report.tables, report.warnings, options->csv_path);
     fmt::print("\nField-saturated conductivity: {} cm/d ({})\n", number(report.saturated_conductivity_cm_per_d),
