@@ -114,6 +114,24 @@ std::vector<double> output_days(const SiteSetup& site, double end_day, const std
   return days;
 }
 
+// Refuses, before any output time is laid out, a run whose record would pass [run]
+// output_size_limit. Estimate: per output time the two profiles (pressure head and water content
+// per cell) and about 16 balance series, 8 bytes each; visits and readings add a few times more.
+void check_output_size(const SiteSetup& site, double end_day, std::size_t cells) {
+  const double times =
+      std::floor(end_day / site.output_interval_days) + 2.0 + static_cast<double>(site.visit_days.size());
+  const double bytes = times * (2.0 * static_cast<double>(cells) + 16.0) * 8.0;
+  if (bytes <= site.output_size_limit_bytes) return;
+  throw base::InputError(
+      site.site_file.string(), 0, "run.output_interval",
+      fmt::format(
+          "output every {:g} d over {:g} d gives about {:.3g} output times on {} cells, a run record of about {:.3g} "
+          "GB, beyond the output size limit of {:.3g} GB: choose a longer output_interval, or raise [run] "
+          "output_size_limit (e.g. output_size_limit = \"{:.0f} GB\") if the machine has the memory and disk",
+          site.output_interval_days, end_day, times, cells, bytes / 1e9, site.output_size_limit_bytes / 1e9,
+          std::ceil(bytes / 1e9)));
+}
+
 // The parts of a Season gathered before its column problem can be built.
 struct Seasonal {
   SiteSetup site;
@@ -190,6 +208,7 @@ Season build_season(SiteSetup site_setup, const FieldRecords& records) {
   } catch (const std::invalid_argument& error) {
     throw base::InputError(site_file, 0, "", fmt::format("[[layer]] / [grid]: {}", error.what()));
   }
+  check_output_size(site, end_day, grid->cell_count());
   std::shared_ptr<const solver::CellSink> roots;
   try {
     solver::RootUptakeSettings uptake{site.crop.uptake_response, site.crop.root_shape, season.demand.root_depth_cm,

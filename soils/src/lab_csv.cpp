@@ -93,6 +93,9 @@ class Table {
 };
 
 std::ifstream open(const std::filesystem::path& file) {
+  std::error_code error;
+  if (std::filesystem::is_directory(file, error))
+    throw base::InputError(file.string(), 0, "", "is a folder, not a CSV file; give the name of a file");
   std::ifstream in(file);
   if (!in) throw base::InputError(file.string(), 0, "", "cannot open the file for reading");
   return in;

@@ -211,4 +211,91 @@ case_show_damaged_run_file() { first_run; head -c 3000 site.h5 > cut.h5; refused
 case_show_run_file_is_a_folder() { mkdir r.h5; refused 1 "r\.h5.*is a folder" show r.h5; }
 case_show_text_file() { refused 1 "not an HDF5 file" show rain.csv; }
 
+# --- physical ranges: hard limits are errors naming file, line and column --------------------
+probe_file() { printf '# probe\ntime,permittivity\n2025-04-08T09:00,%s\n' "$1" > probe-20cm.csv; }
+case_probe_permittivity_below_soil() { probe_file 1.5; refused 1 "probe-20cm\.csv:3: column 'permittivity'.*negative water content" check site.toml; }
+case_probe_permittivity_above_water() { probe_file 120; refused 1 "probe-20cm\.csv:3: column 'permittivity'.*above 88" check site.toml; }
+case_probe_permittivity_below_vacuum() { probe_file 0.5; refused 1 "probe-20cm\.csv:3:.*below 1" check site.toml; }
+case_pan_level_falls_too_fast() {
+  sed -i 's/^2025-04-02T08:00,200.4,/2025-04-02T08:00,50.4,/' pan-readings.csv
+  refused 1 "pan-readings\.csv:5: column 'level': the level fell 151\.6 mm.*faster than a pan evaporates" check site.toml
+}
+case_pan_two_before_refill_rows() {
+  printf 'time,level_mm,rain_mm,event\n2025-03-31T08:00,202.0,,\n2025-04-02T08:00,200.4,4.6,before_refill\n2025-04-02T08:10,200.4,,before_refill\n' > pan-readings.csv
+  refused 1 "pan-readings\.csv:4: column 'event': 'before_refill' follows before_refill \(line 3\)" check site.toml
+}
+case_saturated_conductivity_absurd() {
+  set_key 'saturated_conductivity = "20 cm/d"' 'saturated_conductivity = "1e308 cm/d"'
+  refused 1 "site\.toml:[0-9]+: key 'layers\[2\]\.saturated_conductivity'.*at most 100000 cm/d" run site.toml
+}
+case_saturated_conductivity_zero() {
+  set_key 'saturated_conductivity = "20 cm/d"' 'saturated_conductivity = "0 cm/d"'
+  refused 1 "saturated_conductivity.*positive" check site.toml
+}
+case_rain_depth_absurd() {
+  sed -i 's/^2025-04-02,4.6$/2025-04-02,1e308/' rain.csv
+  refused 1 "rain\.csv:5: column 'rain_mm': 1e\+308 mm in one interval is beyond any rain on record" run site.toml
+}
+case_irrigation_depth_absurd() {
+  sed -i '4s/,31$/,99999/' irrigation.csv
+  refused 1 "irrigation\.csv:[0-9]+: .*beyond any irrigation on record" check site.toml
+}
+case_theta_r_above_theta_s_blames_theta_r() {
+  set_key 'residual_water_content = 0.08' 'residual_water_content = 0.5'
+  refused 1 "key 'layers\[2\]\.residual_water_content'.*0\.5 is not below the saturated water content 0\.42" check site.toml
+}
+case_theta_s_too_low_blames_theta_s() {
+  set_key 'saturated_water_content = "0.42 cm3/cm3"' 'saturated_water_content = 0.05'
+  refused 1 "key 'layers\[2\]\.saturated_water_content'.*unusually low" check site.toml
+}
+case_negative_theta_r_no_percent_advice() {
+  set_key 'residual_water_content = 0.08' 'residual_water_content = -0.05'
+  refused 1 "residual_water_content.*-0\.05 is negative" check site.toml
+  [[ ! $OUT =~ "%" ]] || fail "suggests a percentage for a negative value: $OUT"
+}
+case_water_content_percent_advice() {
+  set_key 'residual_water_content = 0.08' 'residual_water_content = 8'
+  refused 1 "for a percentage write \"8 %\"" check site.toml
+}
+
+# --- accepted as a spreadsheet writes it; clear words for a folder or missing tables -----------
+case_rain_csv_with_byte_order_mark() {
+  printf '\xEF\xBB\xBF' | cat - rain.csv > r && mv r rain.csv
+  run 0 "Site file is usable" check site.toml
+}
+case_probe_csv_with_byte_order_mark() {
+  printf '\xEF\xBB\xBF' | cat - probe-20cm.csv > p && mv p probe-20cm.csv
+  run 0 "Site file is usable" check site.toml
+}
+case_lab_csv_with_byte_order_mark() {
+  printf '\xEF\xBB\xBFsuction_cm,water_content\n0,0.42\n10,0.41\n50,0.35\n100,0.3\n300,0.22\n1000,0.15\n15000,0.09\n' > points.csv
+  run 0 "Retention: theta_r" soil retention points.csv
+}
+case_site_file_is_a_folder() { mkdir s.toml; refused 1 "s\.toml: is a folder, not a site file" check s.toml; }
+case_rain_file_is_a_folder() { rm rain.csv; mkdir rain.csv; refused 1 "weather\.rain'.*is a folder" check site.toml; }
+case_lab_csv_is_a_folder() { mkdir points.csv; refused 1 "points\.csv: is a folder" soil retention points.csv; }
+case_site_file_missing_tables() {
+  sed -i '/^\[weather\]$/d; /^\[pan\]$/d; /^\[recharge\]$/d' site.toml
+  refused 1 "missing tables \[weather\], \[pan\], \[recharge\]" check site.toml
+}
+
+# --- bounded work: the output size is estimated and refused before any computation ------------
+case_output_every_second_refused_by_check() {
+  set_key 'output_interval = "1 d"' 'output_interval = "1 s"'
+  refused 1 "run\.output_interval.*output size limit of 1 GB.*output_size_limit" check site.toml
+}
+case_output_every_second_refused_by_run() {
+  set_key 'output_interval = "1 s"' 'output_interval = "1 s"'
+  set_key 'output_interval = "1 d"' 'output_interval = "1 s"'
+  refused 1 "output size limit" run site.toml
+}
+case_output_size_limit_not_a_size() {
+  set_key 'output_interval = "1 d"' 'output_interval = "1 d"\noutput_size_limit = "lots"'
+  refused 1 "run\.output_size_limit': 'lots' is not a size" check site.toml
+}
+case_output_size_limit_raised() {
+  set_key 'output_interval = "1 d"' 'output_interval = "1 min"\noutput_size_limit = "100 GB"'
+  run 0 "Site file is usable" check site.toml
+}
+
 "case_$NAME"
