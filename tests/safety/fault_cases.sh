@@ -257,6 +257,18 @@ case_water_content_percent_advice() {
   set_key 'residual_water_content = 0.08' 'residual_water_content = 8'
   refused 1 "for a percentage write \"8 %\"" check site.toml
 }
+case_retention_lab_noise_fitted_with_warning() {
+  printf 'suction_cm,water_content\n0,0.415\n10,0.416\n50,0.39\n100,0.35\n330,0.27\n1000,0.19\n15000,0.1\n' > points.csv
+  refused 0 "warning: points\.csv: all points: point 2 \(suction 10 cm.*lab noise" soil retention points.csv
+}
+case_retention_rise_beyond_noise_refused() {
+  printf 'suction_cm,water_content\n0,0.40\n100,0.30\n330,0.35\n1000,0.20\n15000,0.10\n' > points.csv
+  refused 1 "points\.csv: all points: .*point 3 \(suction 330 cm.*0\.0500 more water" soil retention points.csv
+}
+case_retention_replicate_cores_pooled() {
+  printf 'sample,suction_cm,water_content\nA,0,0.43\nA,10,0.425\nA,100,0.33\nA,1000,0.2\nA,15000,0.1\nB,0,0.40\nB,10,0.395\nB,100,0.31\nB,1000,0.19\nB,15000,0.09\n' > points.csv
+  refused 0 "sample A .*sample B .*all samples pooled" soil retention points.csv
+}
 
 # --- accepted as a spreadsheet writes it; clear words for a folder or missing tables -----------
 case_rain_csv_with_byte_order_mark() {
