@@ -269,6 +269,20 @@ case_retention_replicate_cores_pooled() {
   printf 'sample,suction_cm,water_content\nA,0,0.43\nA,10,0.425\nA,100,0.33\nA,1000,0.2\nA,15000,0.1\nB,0,0.40\nB,10,0.395\nB,100,0.31\nB,1000,0.19\nB,15000,0.09\n' > points.csv
   refused 0 "sample A .*sample B .*all samples pooled" soil retention points.csv
 }
+# Outside the usual range but inside the hard one: used, with a note in the report.
+case_conductivity_unusual_noted() {
+  set_key 'saturated_conductivity = "20 cm/d"' 'saturated_conductivity = "5000 cm/d"'
+  set_key 'range = \["5 cm/d", "80 cm/d"\]' 'range = ["5 cm/d", "8000 cm/d"]'
+  refused 0 "note: layer 'loam subsoil': saturated conductivity 5000 cm/d is outside the usual range" check site.toml
+}
+case_rain_unusual_noted() {
+  sed -i 's/^2025-04-02,4.6$/2025-04-02,350/' rain.csv
+  refused 0 "note: .*rain\.csv:5: 350 mm of rain in one interval is more than usual" check site.toml
+}
+case_pan_fall_unusual_noted() {
+  sed -i 's/^2025-03-31T08:00,202.0,/2025-03-31T08:00,239.0,/' pan-readings.csv
+  refused 0 "note: .*pan-readings\.csv:5: the pan level fell 19\.3 mm/d, more than usual" check site.toml
+}
 
 # --- accepted as a spreadsheet writes it; clear words for a folder or missing tables -----------
 case_rain_csv_with_byte_order_mark() {
