@@ -94,6 +94,13 @@ def head_at_depth(data, depth_cm):
     return np.array([np.interp(depth_cm, data["cell_depth"], row) for row in data["head"]])
 
 
+def save(figure, target):
+    """Writes the figure to target (PNG, 110 dots per inch) and frees it."""
+    figure.tight_layout()
+    figure.savefig(target, dpi=110)
+    plt.close(figure)
+
+
 def plot_sensor_heads(data, target):
     figure, axis = plt.subplots(figsize=(9, 5))
     times = calendar(data, data["time"])
@@ -109,9 +116,7 @@ def plot_sensor_heads(data, target):
     axis.grid(True, alpha=0.3)
     if data["sensor_names"]:
         axis.legend()
-    figure.tight_layout()
-    figure.savefig(target, dpi=110)
-    plt.close(figure)
+    save(figure, target)
 
 
 def choose_times(data, dates):
@@ -142,9 +147,7 @@ def plot_water_content(data, dates, target):
     axis.set_title(title(data, "water-content profiles"))
     axis.grid(True, alpha=0.3)
     axis.legend()
-    figure.tight_layout()
-    figure.savefig(target, dpi=110)
-    plt.close(figure)
+    save(figure, target)
 
 
 def plot_balance(data, target):
@@ -170,9 +173,7 @@ def plot_balance(data, target):
     lower.set_ylabel("balance error (cm)")
     lower.grid(True, alpha=0.3)
     format_time_axis(lower)
-    figure.tight_layout()
-    figure.savefig(target, dpi=110)
-    plt.close(figure)
+    save(figure, target)
 
 
 def parse_dates(value):

@@ -175,6 +175,16 @@ bool CsvTable::flag(std::size_t row, std::size_t column) const {
   throw error_at(row, column, fmt::format("expected yes or no, got '{}'", text(row, column)));
 }
 
+TimePoint CsvTable::timestamp(std::size_t row, std::size_t column) const {
+  const auto when = parse_timestamp(text(row, column));
+  if (!when) {
+    throw error_at(row, column,
+                   fmt::format("expected an ISO 8601 date or date-time (2025-04-08 or 2025-04-08T09:00), got '{}'",
+                               text(row, column)));
+  }
+  return *when;
+}
+
 InputError CsvTable::error_at(std::size_t row, std::size_t column, const std::string& message) const {
   return InputError(path_, rows_[row].line, columns_[column].name, message);
 }

@@ -23,6 +23,7 @@
 #include "sensor_report.hpp"
 #include "wetfront/site/site_file.hpp"
 #include "wetfront/profiles/run_file.hpp"
+#include "wetfront/soils/model_parameters.hpp"
 #include "wetfront/soils/texture_classes.hpp"
 #include "wetfront/solver/column_run.hpp"
 
@@ -66,33 +67,17 @@ solver::ColumnRun simulate_with_progress(const solver::ColumnProblem& problem, b
   return future.get();
 }
 
+// "van Genuchten-Mualem: theta_r 0.05 ... Ks 25 cm/d l 0.5": the model's parameters as
+// model_parameters.hpp lists them, with the unit where it is not a fraction or a pure number.
 std::string layer_text(const soils::SoilLayer& layer) {
-  return std::visit(
-      [](const auto& m) -> std::string {
-        using M = std::decay_t<decltype(m)>;
-        if constexpr (std::is_same_v<M, soils::VanGenuchtenMualem>) {
-          return fmt::format("van Genuchten-Mualem: theta_r {} theta_s {} alpha {} 1/cm n {} Ks {} cm/d l {}",
-                             number(m.residual_water_content), number(m.saturated_water_content),
-                             number(m.alpha_per_cm), number(m.n), number(m.saturated_conductivity_cm_per_d),
-                             number(m.pore_connectivity));
-        } else if constexpr (std::is_same_v<M, soils::VanGenuchtenAirEntry>) {
-          return fmt::format(
-              "van Genuchten-Mualem with air entry {} cm: theta_r {} theta_s {} alpha {} 1/cm n {} Ks {} cm/d",
-              number(m.air_entry_head_cm), number(m.base.residual_water_content),
-              number(m.base.saturated_water_content), number(m.base.alpha_per_cm), number(m.base.n),
-              number(m.base.saturated_conductivity_cm_per_d));
-        } else if constexpr (std::is_same_v<M, soils::BrooksCorey>) {
-          return fmt::format("Brooks-Corey: theta_r {} theta_s {} h_b {} cm lambda {} Ks {} cm/d",
-                             number(m.residual_water_content), number(m.saturated_water_content),
-                             number(m.bubbling_head_cm), number(m.pore_size_index),
-                             number(m.saturated_conductivity_cm_per_d));
-        } else {
-          return fmt::format("Gardner: theta_r {} theta_s {} a {} 1/cm Ks {} cm/d", number(m.residual_water_content),
-                             number(m.saturated_water_content), number(m.sorptive_number_per_cm),
-                             number(m.saturated_conductivity_cm_per_d));
-        }
-      },
-      layer.model);
+  std::string text(soils::model_name(layer.model));
+  std::string_view separator = ":";
+  for (const auto& p : soils::model_parameters(layer.model)) {
+    text += fmt::format("{} {} {}", separator, p.symbol, number(*soils::parameter_value(layer.model, p.key)));
+    if (p.unit != "cm3/cm3" && p.unit != "1") text += fmt::format(" {}", p.unit);
+    separator = "";
+  }
+  return text;
 }
 
 std::string resolved_setup(const Season& season) {
@@ -175,13 +160,14 @@ std::string grid_check_text(const GridCheck& check) {
   if (!check.finer_complete) {
     out += fmt::format("  the finer run did not finish: {}\n", check.finer_failure);
   } else {
-    out += fmt::format("  season recharge {} mm on this grid, {} mm on the finer one: change {:+.2f} % (limit {} %){}\n",
-                       number(check.recharge_cm * 10), number(check.finer_recharge_cm * 10), 100 * check.recharge_change,
-                       number(100 * kGridRechargeLimit), check.recharge_too_coarse ? "  TOO COARSE" : "");
+    out +=
+        fmt::format("  season recharge {} mm on this grid, {} mm on the finer one: change {:+.2f} % (limit {} %){}\n",
+                    number(check.recharge_cm * 10), number(check.finer_recharge_cm * 10), 100 * check.recharge_change,
+                    number(100 * kGridRechargeLimit), check.recharge_too_coarse ? "  TOO COARSE" : "");
     for (const auto& s : check.sensors) {
       const double limit = s.quantity == "pressure head" ? kGridHeadLimitCm : kGridWaterContentLimit;
-      out += fmt::format("  {:<24} {:<14} change RMS {} {}, largest {} {} over {} readings (limit {} {} RMS){}\n", s.name,
-                         s.quantity, number(s.rms_change), s.unit, number(s.largest_change), s.unit, s.readings,
+      out += fmt::format("  {:<24} {:<14} change RMS {} {}, largest {} {} over {} readings (limit {} {} RMS){}\n",
+                         s.name, s.quantity, number(s.rms_change), s.unit, number(s.largest_change), s.unit, s.readings,
                          number(limit), s.unit, s.too_coarse ? "  TOO COARSE" : "");
     }
   }

@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
+#include <vector>
 
 namespace wetfront::cli {
 
@@ -36,6 +38,36 @@ EstimateSummary summarise(const std::vector<EstimateInterval>& intervals) {
     }
   }
   return s;
+}
+
+// Over the entries where both the observed and the simulated value are known: how many, and
+// the sum of each.
+struct PairedSums {
+  int count = 0;
+  double observed = 0;
+  double simulated = 0;
+};
+
+template <class Entry>
+PairedSums paired_sums(const std::vector<Entry>& entries, std::optional<double> Entry::*observed,
+                       std::optional<double> Entry::*simulated) {
+  PairedSums sums;
+  for (const Entry& entry : entries) {
+    if (!(entry.*observed) || !(entry.*simulated)) continue;
+    ++sums.count;
+    sums.observed += *(entry.*observed);
+    sums.simulated += *(entry.*simulated);
+  }
+  return sums;
+}
+
+// How many of the intervals have an estimate, what the model drained and what `source` gives
+// over them, and in how many the two differ.
+std::string agreement_text(const EstimateSummary& s, std::size_t intervals, std::string_view source) {
+  return fmt::format(
+      "  Intervals with an estimate: {} of {}; over them the model drained {} mm, {} gives {} mm;\n"
+      "  they differ in {} interval(s).\n",
+      s.estimated, intervals, mm(s.model_cm), source, mm(s.estimate_cm), s.differ);
 }
 
 }  // namespace
@@ -92,10 +124,7 @@ std::string sensor_section(const SensorCheck& sensors) {
         d.upper_name, number(d.upper_depth_cm), d.lower_name, number(d.lower_depth_cm), d.soil_note,
         kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
     const EstimateSummary s = summarise(d.intervals);
-    out += fmt::format(
-        "  Intervals with an estimate: {} of {}; over them the model drained {} mm, Darcy gives {} mm;\n"
-        "  they differ in {} interval(s).\n",
-        s.estimated, d.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
+    out += agreement_text(s, d.intervals.size(), "Darcy");
     if (!s.reasons.empty()) {
       out += "  Where they differ, consider:\n";
       for (const auto& reason : s.reasons) out += fmt::format("    - {}\n", reason);
@@ -120,14 +149,8 @@ std::string storage_section(const StorageCheck& storage) {
       "  below the deepest probe.\n",
       number(storage.depths_cm.front()), number(storage.depths_cm.back()), fmt::join(storage.probe_names, ", "),
       fmt::join(storage.depths_cm, ", "), kVisitReadingWindowDays);
-  int both = 0;
-  double observed = 0, simulated = 0;
-  for (const auto& v : storage.visits) {
-    if (!v.observed_cm || !v.simulated_cm) continue;
-    ++both;
-    observed += *v.observed_cm;
-    simulated += *v.simulated_cm;
-  }
+  const auto [both, observed, simulated] =
+      paired_sums(storage.visits, &StorageVisit::observed_cm, &StorageVisit::simulated_cm);
   out += fmt::format("  Visits (with the run start and end) with a reading at every depth: {} of {}.\n", both,
                      storage.visits.size());
   if (both > 0) {
@@ -135,14 +158,8 @@ std::string storage_section(const StorageCheck& storage) {
         fmt::format("  Mean stored water at those visits: readings {} mm, model {} mm (model minus readings {} mm).\n",
                     mm(observed / both), mm(simulated / both), mm((simulated - observed) / both));
   }
-  int intervals = 0;
-  double observed_change = 0, simulated_change = 0;
-  for (const auto& i : storage.intervals) {
-    if (!i.observed_change_cm || !i.simulated_change_cm) continue;
-    ++intervals;
-    observed_change += *i.observed_change_cm;
-    simulated_change += *i.simulated_change_cm;
-  }
+  const auto [intervals, observed_change, simulated_change] =
+      paired_sums(storage.intervals, &StorageInterval::observed_change_cm, &StorageInterval::simulated_change_cm);
   out += fmt::format(
       "  Intervals with a change from both: {} of {}; the changes summed over them: readings {} mm,\n"
       "  model {} mm (positive: water gained). The storage change columns of the visit table give every\n"
@@ -165,10 +182,7 @@ std::string water_table_section(const WaterTableCheck& w) {
       "  (both below {} mm agree). See the visit table for every interval.\n",
       kVisitReadingWindowDays, kAgreementFactor, kNegligibleRechargeCm * kMmPerCm);
   const EstimateSummary s = summarise(w.intervals);
-  out += fmt::format(
-      "  Intervals with an estimate: {} of {}; over them the model drained {} mm, the water table gives {} mm;\n"
-      "  they differ in {} interval(s).\n",
-      s.estimated, w.intervals.size(), mm(s.model_cm), mm(s.estimate_cm), s.differ);
+  out += agreement_text(s, w.intervals.size(), "the water table");
   if (!s.reasons.empty()) {
     out += "  Where they differ, consider:\n";
     for (const auto& reason : s.reasons) {

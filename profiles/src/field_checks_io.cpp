@@ -17,19 +17,23 @@ void require_length(std::size_t actual, std::size_t expected, std::string_view w
         fmt::format("{} has {} entries, expected {} (one per visit interval)", what, actual, expected));
 }
 
+// The per-interval columns every recharge estimate has (amount, agreement, missing).
+template <class Estimate>
+void check_agreement_lengths(const Estimate& e, std::size_t intervals, std::string_view estimate) {
+  require_length(e.amount_cm.size(), intervals, fmt::format("{} amount", estimate));
+  require_length(e.agreement.size(), intervals, fmt::format("{} agreement", estimate));
+  require_length(e.missing.size(), intervals, fmt::format("{} missing", estimate));
+}
+
 void check_darcy(const DarcyEstimateRecord& d, std::size_t intervals) {
-  require_length(d.amount_cm.size(), intervals, "Darcy estimate amount");
-  require_length(d.agreement.size(), intervals, "Darcy estimate agreement");
-  require_length(d.missing.size(), intervals, "Darcy estimate missing");
+  check_agreement_lengths(d, intervals, "Darcy estimate");
   if (!(d.upper_depth_cm < d.lower_depth_cm))
     throw std::invalid_argument(fmt::format("Darcy estimate: upper cup at {} cm is not above the lower one at {} cm",
                                             d.upper_depth_cm, d.lower_depth_cm));
 }
 
 void check_water_table(const WaterTableEstimateRecord& w, std::size_t intervals) {
-  require_length(w.amount_cm.size(), intervals, "water-table estimate amount");
-  require_length(w.agreement.size(), intervals, "water-table estimate agreement");
-  require_length(w.missing.size(), intervals, "water-table estimate missing");
+  check_agreement_lengths(w, intervals, "water-table estimate");
   require_length(w.start_depth_cm.size(), intervals, "water-table estimate start depth");
   require_length(w.end_depth_cm.size(), intervals, "water-table estimate end depth");
   if (!(w.specific_yield > 0 && w.specific_yield < 1))
@@ -145,51 +149,38 @@ void write_stored_water(hid_t file, const StoredWaterRecord& s, const std::strin
                   interval_end);
 }
 
-std::vector<double> read_vector_of(hid_t parent, std::string_view name, std::size_t length) {
-  std::vector<std::size_t> dims;
-  std::vector<double> values = h5::read_doubles(parent, name, 1, dims);
-  if (values.size() != length)
-    throw h5::Error(
-        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
-  return values;
-}
-
-std::vector<std::string> read_texts_of(hid_t parent, std::string_view name, std::size_t length) {
-  std::vector<std::string> values = h5::read_texts(parent, name);
-  if (values.size() != length)
-    throw h5::Error(
-        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
-  return values;
+// What write_agreement wrote: the estimate's amount, agreement and missing per interval.
+template <class Estimate>
+void read_agreement(hid_t group, std::size_t intervals, Estimate& e) {
+  e.amount_cm = h5::read_doubles_of_length(group, "amount", intervals);
+  e.agreement = h5::read_texts_of_length(group, "agreement", intervals);
+  e.missing = h5::read_texts_of_length(group, "missing", intervals);
 }
 
 DarcyEstimateRecord read_darcy(hid_t parent, std::size_t intervals) {
   h5::Group group = h5::open_group(parent, "darcy");
   DarcyEstimateRecord d;
-  const auto sensors = read_texts_of(group.id(), "sensor", 2);
-  const auto depths = read_vector_of(group.id(), "sensor_depth", 2);
+  const auto sensors = h5::read_texts_of_length(group.id(), "sensor", 2);
+  const auto depths = h5::read_doubles_of_length(group.id(), "sensor_depth", 2);
   d.upper_sensor = sensors[0];
   d.lower_sensor = sensors[1];
   d.upper_depth_cm = depths[0];
   d.lower_depth_cm = depths[1];
-  d.conductivity_note = read_texts_of(group.id(), "conductivity_note", 1).front();
-  d.amount_cm = read_vector_of(group.id(), "amount", intervals);
-  d.agreement = read_texts_of(group.id(), "agreement", intervals);
-  d.missing = read_texts_of(group.id(), "missing", intervals);
+  d.conductivity_note = h5::read_texts_of_length(group.id(), "conductivity_note", 1).front();
+  read_agreement(group.id(), intervals, d);
   return d;
 }
 
 WaterTableEstimateRecord read_water_table(hid_t parent, std::size_t intervals) {
   h5::Group group = h5::open_group(parent, "water_table");
   WaterTableEstimateRecord w;
-  w.well = read_texts_of(group.id(), "well", 1).front();
-  w.specific_yield = read_vector_of(group.id(), "specific_yield", 1).front();
-  w.specific_yield_note = read_texts_of(group.id(), "specific_yield_note", 1).front();
-  w.recession_cm_per_d = read_vector_of(group.id(), "recession_rate", 1).front();
-  w.start_depth_cm = read_vector_of(group.id(), "start_depth", intervals);
-  w.end_depth_cm = read_vector_of(group.id(), "end_depth", intervals);
-  w.amount_cm = read_vector_of(group.id(), "amount", intervals);
-  w.agreement = read_texts_of(group.id(), "agreement", intervals);
-  w.missing = read_texts_of(group.id(), "missing", intervals);
+  w.well = h5::read_texts_of_length(group.id(), "well", 1).front();
+  w.specific_yield = h5::read_doubles_of_length(group.id(), "specific_yield", 1).front();
+  w.specific_yield_note = h5::read_texts_of_length(group.id(), "specific_yield_note", 1).front();
+  w.recession_cm_per_d = h5::read_doubles_of_length(group.id(), "recession_rate", 1).front();
+  w.start_depth_cm = h5::read_doubles_of_length(group.id(), "start_depth", intervals);
+  w.end_depth_cm = h5::read_doubles_of_length(group.id(), "end_depth", intervals);
+  read_agreement(group.id(), intervals, w);
   return w;
 }
 
@@ -199,11 +190,11 @@ StoredWaterRecord read_stored_water(hid_t file, std::size_t intervals) {
   std::vector<std::size_t> dims;
   s.depths_cm = h5::read_doubles(group.id(), "depth", 1, dims);
   s.sources = h5::read_texts(group.id(), "source");
-  s.visit_days = read_vector_of(group.id(), "time", intervals + 1);
-  s.observed_cm = read_vector_of(group.id(), "observed", intervals + 1);
-  s.simulated_cm = read_vector_of(group.id(), "simulated", intervals + 1);
-  s.observed_change_cm = read_vector_of(group.id(), "observed_change", intervals);
-  s.simulated_change_cm = read_vector_of(group.id(), "simulated_change", intervals);
+  s.visit_days = h5::read_doubles_of_length(group.id(), "time", intervals + 1);
+  s.observed_cm = h5::read_doubles_of_length(group.id(), "observed", intervals + 1);
+  s.simulated_cm = h5::read_doubles_of_length(group.id(), "simulated", intervals + 1);
+  s.observed_change_cm = h5::read_doubles_of_length(group.id(), "observed_change", intervals);
+  s.simulated_change_cm = h5::read_doubles_of_length(group.id(), "simulated_change", intervals);
   return s;
 }
 

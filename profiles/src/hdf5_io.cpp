@@ -4,6 +4,9 @@
 #include <H5LTpublic.h>
 #include <fmt/format.h>
 
+#include "wetfront/profiles/file_save.hpp"
+#include "wetfront/profiles/run_file.hpp"
+
 #include <algorithm>
 #include <cstring>
 
@@ -144,6 +147,33 @@ std::vector<char> build_in_memory(const std::string& name, const std::function<v
   return image;
 }
 
+void write_file(const std::filesystem::path& path, std::string_view what, const std::function<void()>& check,
+                const std::function<void(hid_t)>& write) {
+  const auto failure = [&](std::string_view cause) {
+    return RunFileError(fmt::format("cannot write {} '{}': {}", what, path.string(), cause));
+  };
+  if (path.filename().empty()) throw failure("the path names no file");
+  try {
+    check();
+  } catch (const std::invalid_argument& error) {
+    throw failure(error.what());
+  }
+  // The file is built in memory, so the HDF5 library never meets a disk error; the bytes
+  // then go to a temporary name in the target directory, which is renamed (atomically on
+  // POSIX file systems) only when they are all on the disk.
+  std::vector<char> image;
+  try {
+    image = build_in_memory(path.string(), write);
+  } catch (const std::exception& error) {
+    throw failure(error.what());
+  }
+  try {
+    save_file_image(path, image);
+  } catch (const std::exception& error) {
+    throw failure(error.what());
+  }
+}
+
 File open_file_read_only(const std::string& path) {
   PropertyList fapl = new_property_list(H5P_FILE_ACCESS, "file access property list");
   check(H5Pset_fclose_degree(fapl.id(), H5F_CLOSE_SEMI), "setting the file close degree");
@@ -172,15 +202,26 @@ bool has_link(hid_t parent, std::string_view name) {
   return exists > 0;
 }
 
-Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about) {
+namespace {
+
+// A one-dimensional dataset of `file_type` on disk, written from `values` in `memory_type`.
+template <class T>
+Dataset write_one_dimensional(hid_t parent, std::string_view name, std::span<const T> values, hid_t file_type,
+                              hid_t memory_type, const Description& about) {
   const hsize_t dims[1] = {values.size()};
   Dataspace space = simple_space(dims);
-  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, file_type, space, ordered_dataset_properties());
   if (!values.empty())
-    check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
+    check(H5Dwrite(dataset.id(), memory_type, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
           fmt::format("writing dataset {}", child_path(parent, name)));
   describe(parent, name, about);
   return dataset;
+}
+
+}  // namespace
+
+Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about) {
+  return write_one_dimensional(parent, name, values, H5T_IEEE_F64LE, H5T_NATIVE_DOUBLE, about);
 }
 
 Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std::size_t columns,
@@ -210,14 +251,7 @@ Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std:
 }
 
 Dataset write_integers(hid_t parent, std::string_view name, std::span<const std::int64_t> values, Description about) {
-  const hsize_t dims[1] = {values.size()};
-  Dataspace space = simple_space(dims);
-  Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space, ordered_dataset_properties());
-  if (!values.empty())
-    check(H5Dwrite(dataset.id(), H5T_NATIVE_INT64, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
-          fmt::format("writing dataset {}", child_path(parent, name)));
-  describe(parent, name, about);
-  return dataset;
+  return write_one_dimensional(parent, name, values, H5T_STD_I64LE, H5T_NATIVE_INT64, about);
 }
 
 Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about) {
@@ -386,6 +420,28 @@ std::vector<std::string> read_texts(hid_t parent, std::string_view name) {
     const char* start = buffer.data() + i * size;
     values.emplace_back(start, strnlen(start, size));
   }
+  return values;
+}
+
+namespace {
+
+void require_entries(hid_t parent, std::string_view name, std::size_t entries, std::size_t length) {
+  if (entries != length)
+    throw Error(fmt::format("dataset {}/{} has {} entries, expected {}", object_path(parent), name, entries, length));
+}
+
+}  // namespace
+
+std::vector<double> read_doubles_of_length(hid_t parent, std::string_view name, std::size_t length) {
+  std::vector<std::size_t> dims;
+  std::vector<double> values = read_doubles(parent, name, 1, dims);
+  require_entries(parent, name, values.size(), length);
+  return values;
+}
+
+std::vector<std::string> read_texts_of_length(hid_t parent, std::string_view name, std::size_t length) {
+  std::vector<std::string> values = read_texts(parent, name);
+  require_entries(parent, name, values.size(), length);
   return values;
 }
 

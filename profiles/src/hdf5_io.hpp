@@ -4,6 +4,7 @@
 #pragma once
 
 #include <cstdint>
+#include <filesystem>
 #include <functional>
 #include <span>
 #include <string>
@@ -24,6 +25,12 @@ std::vector<char> file_image(const File& file);
 // A whole file built in memory by `write` (given the file's id), with HDF5's own error printing
 // turned off; its bytes, ready to be saved. Throws Error (or what `write` throws).
 std::vector<char> build_in_memory(const std::string& name, const std::function<void(hid_t)>& write);
+// Writes a wetfront file: `check` the record (std::invalid_argument when it is inconsistent),
+// build the file in memory with `write`, then save it under `path` (file_save.hpp: a temporary
+// name renamed when complete). Every failure throws RunFileError "cannot write <what> '<path>':
+// <cause>".
+void write_file(const std::filesystem::path& path, std::string_view what, const std::function<void()>& check,
+                const std::function<void(hid_t)>& write);
 File open_file_read_only(const std::string& path);
 Group create_group(hid_t parent, std::string_view name);
 Group open_group(hid_t parent, std::string_view name);
@@ -64,6 +71,10 @@ std::vector<double> read_doubles(hid_t parent, std::string_view name, int expect
 std::vector<std::int64_t> read_integers(hid_t parent, std::string_view name, int expected_rank,
                                         std::vector<std::size_t>& dims);
 std::vector<std::string> read_texts(hid_t parent, std::string_view name);
+
+// A one-dimensional dataset that must hold exactly `length` entries; throws Error otherwise.
+std::vector<double> read_doubles_of_length(hid_t parent, std::string_view name, std::size_t length);
+std::vector<std::string> read_texts_of_length(hid_t parent, std::string_view name, std::size_t length);
 
 // What a wetfront file is and where it came from, as attributes of `file`: record_format,
 // record_format_version, program_version, site_name, run_start_date, input_hash, and run_id

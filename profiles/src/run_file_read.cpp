@@ -29,14 +29,6 @@ std::vector<double> read_vector(hid_t parent, std::string_view name) {
   return h5::read_doubles(parent, name, 1, dims);
 }
 
-std::vector<std::string> read_texts_of_length(hid_t parent, std::string_view name, std::size_t length) {
-  std::vector<std::string> values = h5::read_texts(parent, name);
-  if (values.size() != length)
-    throw h5::Error(
-        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
-  return values;
-}
-
 void read_root_attributes(hid_t file, RunRecord& record) {
   record.program_version = h5::get_text_attribute(file, ".", "program_version");
   record.site_name = h5::get_text_attribute(file, ".", "site_name");
@@ -116,16 +108,16 @@ void read_layers(hid_t inputs, std::vector<LayerDescription>& layers) {
   const std::vector<double> tops = read_vector(group.id(), "top_depth");
   const std::size_t count = tops.size();
   const std::vector<double> bottoms = read_shaped(group.id(), "bottom_depth", {count});
-  const std::vector<std::string> names = read_texts_of_length(group.id(), "name", count);
-  const std::vector<std::string> models = read_texts_of_length(group.id(), "model", count);
+  const std::vector<std::string> names = h5::read_texts_of_length(group.id(), "name", count);
+  const std::vector<std::string> models = h5::read_texts_of_length(group.id(), "model", count);
   layers.assign(count, {});
   for (std::size_t i = 0; i < count; ++i) layers[i] = {names[i], tops[i], bottoms[i], models[i], {}};
   std::vector<std::size_t> dims;
   const std::vector<std::int64_t> owners = h5::read_integers(group.id(), "parameter_layer", 1, dims);
   const std::size_t parameters = owners.size();
-  const std::vector<std::string> parameter_names = read_texts_of_length(group.id(), "parameter_name", parameters);
+  const std::vector<std::string> parameter_names = h5::read_texts_of_length(group.id(), "parameter_name", parameters);
   const std::vector<double> values = read_shaped(group.id(), "parameter_value", {parameters});
-  const std::vector<std::string> units = read_texts_of_length(group.id(), "parameter_unit", parameters);
+  const std::vector<std::string> units = h5::read_texts_of_length(group.id(), "parameter_unit", parameters);
   for (std::size_t p = 0; p < parameters; ++p) {
     if (owners[p] < 0 || static_cast<std::size_t>(owners[p]) >= count)
       throw h5::Error(fmt::format("dataset {}/parameter_layer: entry {} names layer {}, but there are {} layers",
@@ -149,7 +141,7 @@ void read_forcing(hid_t inputs, std::vector<ForcingInterval>& forcing) {
 void read_sensors(hid_t file, std::vector<Sensor>& sensors) {
   h5::Group group = h5::open_group(file, "sensors");
   const std::vector<double> depths = read_vector(group.id(), "depth");
-  const std::vector<std::string> names = read_texts_of_length(group.id(), "name", depths.size());
+  const std::vector<std::string> names = h5::read_texts_of_length(group.id(), "name", depths.size());
   sensors.assign(depths.size(), {});
   for (std::size_t i = 0; i < depths.size(); ++i) sensors[i] = {names[i], depths[i]};
 }
@@ -169,7 +161,7 @@ std::vector<ComparedReading> read_compared(hid_t parent, std::string_view name) 
   h5::Group group = h5::open_group(parent, name);
   const std::vector<double> times = read_vector(group.id(), "time");
   const std::size_t n = times.size();
-  const auto sensors = read_texts_of_length(group.id(), "sensor", n);
+  const auto sensors = h5::read_texts_of_length(group.id(), "sensor", n);
   const auto depths = read_shaped(group.id(), "depth", {n});
   const auto observed = read_shaped(group.id(), "observed", {n});
   const auto simulated = read_shaped(group.id(), "simulated", {n});
@@ -188,9 +180,9 @@ void read_sensor_comparison(hid_t file, RunRecord& record) {
   h5::Group metrics = h5::open_group(group.id(), "metrics");
   const std::vector<double> depth = read_vector(metrics.id(), "depth");
   const std::size_t n = depth.size();
-  const auto names = read_texts_of_length(metrics.id(), "name", n);
-  const auto quantities = read_texts_of_length(metrics.id(), "quantity", n);
-  const auto units = read_texts_of_length(metrics.id(), "unit", n);
+  const auto names = h5::read_texts_of_length(metrics.id(), "name", n);
+  const auto quantities = h5::read_texts_of_length(metrics.id(), "quantity", n);
+  const auto units = h5::read_texts_of_length(metrics.id(), "unit", n);
   const auto used = read_integer_vector(metrics.id(), "readings_used", n);
   const auto beyond = read_integer_vector(metrics.id(), "left_out_beyond_working_limit", n);
   const auto outside = read_integer_vector(metrics.id(), "left_out_outside_run", n);

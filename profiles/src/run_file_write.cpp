@@ -3,7 +3,6 @@
 #include <fmt/format.h>
 
 #include "field_checks_io.hpp"
-#include "wetfront/profiles/file_save.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
 #include "wetfront/profiles/run_file.hpp"
@@ -312,29 +311,8 @@ void write_contents(hid_t file, const RunRecord& record) {
 }  // namespace
 
 void write_run(const std::filesystem::path& path, const RunRecord& record) {
-  const auto failure = [&](std::string_view cause) {
-    return RunFileError(fmt::format("cannot write run record '{}': {}", path.string(), cause));
-  };
-  if (path.filename().empty()) throw failure("the path names no file");
-  try {
-    check_record(record);
-  } catch (const std::invalid_argument& error) {
-    throw failure(error.what());
-  }
-  // The file is built in memory, so the HDF5 library never meets a disk error; the bytes
-  // then go to a temporary name in the target directory, which is renamed (atomically on
-  // POSIX file systems) only when they are all on the disk.
-  std::vector<char> image;
-  try {
-    image = h5::build_in_memory(path.string(), [&](hid_t file) { write_contents(file, record); });
-  } catch (const std::exception& error) {
-    throw failure(error.what());
-  }
-  try {
-    save_file_image(path, image);
-  } catch (const std::exception& error) {
-    throw failure(error.what());
-  }
+  h5::write_file(
+      path, "run record", [&] { check_record(record); }, [&](hid_t file) { write_contents(file, record); });
 }
 
 }  // namespace wetfront::profiles

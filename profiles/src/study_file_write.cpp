@@ -3,7 +3,6 @@
 
 #include <map>
 
-#include "wetfront/profiles/file_save.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
 #include "wetfront/profiles/run_file.hpp"
@@ -106,15 +105,8 @@ void write_contents(hid_t file, const StudyRecord& record) {
 }  // namespace
 
 void write_study(const std::filesystem::path& path, const StudyRecord& record) {
-  const auto failure = [&](std::string_view cause) {
-    return RunFileError(fmt::format("cannot write parameter study file '{}': {}", path.string(), cause));
-  };
-  if (path.filename().empty()) throw failure("the path names no file");
-  try {
-    save_file_image(path, h5::build_in_memory(path.string(), [&](hid_t file) { write_contents(file, record); }));
-  } catch (const std::exception& error) {
-    throw failure(error.what());
-  }
+  h5::write_file(
+      path, "parameter study file", [] {}, [&](hid_t file) { write_contents(file, record); });
 }
 
 }  // namespace wetfront::profiles

@@ -32,16 +32,9 @@ constexpr std::array<std::string_view, 5> kSiteKeys = {"kc_initial", "kc_mid", "
 // plain number.
 std::optional<base::Dimension> dimension_of(std::string_view key) {
   if (key == "water_table_depth") return base::Dimension::length;
-  for (const soils::HydraulicModel& model :
-       {soils::HydraulicModel(soils::VanGenuchtenAirEntry{}), soils::HydraulicModel(soils::BrooksCorey{}),
-        soils::HydraulicModel(soils::GardnerExponential{})}) {
+  for (const soils::HydraulicModel& model : soils::all_models()) {
     for (const auto& p : soils::model_parameters(model)) {
-      if (p.key != key) continue;
-      if (p.unit == "cm3/cm3") return base::Dimension::water_content;
-      if (p.unit == "1/cm") return base::Dimension::inverse_length;
-      if (p.unit == "cm/d") return base::Dimension::conductivity;
-      if (p.unit == "cm") return base::Dimension::pressure_head;
-      return std::nullopt;
+      if (p.key == key) return soils::parameter_dimension(p);
     }
   }
   return std::nullopt;

@@ -79,14 +79,7 @@ SensorRecord read_one(const SensorSetup& sensor, base::TimePoint run_start, doub
       sensor.gauge_height_cm.value_or(0.0)};
   double previous_day = -1e300;
   for (std::size_t row = 0; row < table.row_count(); ++row) {
-    const auto when = base::parse_timestamp(table.text(row, time_col));
-    if (!when) {
-      throw table.error_at(
-          row, time_col,
-          fmt::format("expected an ISO 8601 date or date-time (2025-04-08 or 2025-04-08T09:00), got '{}'",
-                      table.text(row, time_col)));
-    }
-    const double day = base::days_since(run_start, *when);
+    const double day = base::days_since(run_start, table.timestamp(row, time_col));
     if (!(day > previous_day)) throw table.error_at(row, time_col, "times must increase down the file");
     previous_day = day;
     const double raw = table.number(row, value_col);

@@ -14,6 +14,7 @@
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/site/site_keys.hpp"
 #include "wetfront/forcing/dry_limit.hpp"
+#include "wetfront/soils/model_parameters.hpp"
 #include "wetfront/soils/parameter_checks.hpp"
 #include "wetfront/soils/texture_classes.hpp"
 
@@ -121,9 +122,19 @@ double water_content(const SiteTable& layer, std::string_view key) {
   return layer.quantity(key, base::Dimension::water_content);
 }
 
+// A parameter's value as model_parameters.hpp describes it: a value with a unit of its
+// dimension, a water content, or a plain number.
+double parameter_from(const SiteTable& layer, const soils::ModelParameter& parameter) {
+  const auto dimension = soils::parameter_dimension(parameter);
+  if (!dimension) return layer.number(parameter.key);
+  if (*dimension == base::Dimension::water_content) return water_content(layer, parameter.key);
+  return layer.quantity(parameter.key, *dimension);
+}
+
 soils::HydraulicModel layer_model(const SiteTable& layer) {
-  static constexpr std::array<std::string_view, 5> models = {"van genuchten", "van genuchten-mualem",
-                                                             "van genuchten air entry", "brooks corey", "gardner"};
+  const std::vector<soils::HydraulicModel> defaults = soils::all_models();
+  std::vector<std::string_view> names;
+  for (const auto& model : defaults) names.push_back(soils::model_key(model));
   if (layer.has("texture")) {
     if (layer.has("model"))
       layer.fail("model", "give either 'texture' (class defaults) or 'model' with parameters, not both");
@@ -138,111 +149,33 @@ soils::HydraulicModel layer_model(const SiteTable& layer) {
     }
   }
   if (!layer.has("model")) {
-    layer.fail("",
-               "a layer needs either 'texture' (a USDA texture class) or 'model' (" +
-                   std::string("van genuchten, van genuchten air entry, brooks corey or gardner) with its parameters"));
+    layer.fail("", fmt::format("a layer needs either 'texture' (a USDA texture class) or 'model' ({} or {}) with its "
+                               "parameters",
+                               fmt::join(names.begin(), names.end() - 1, ", "), names.back()));
   }
-  const std::string model = layer.choice("model", models);
+  // "van genuchten-mualem" is the published name of the plain van Genuchten model.
+  std::vector<std::string_view> choices = names;
+  choices.insert(choices.begin() + 1, "van genuchten-mualem");
+  const std::string name = layer.choice("model", choices);
+  soils::HydraulicModel model = defaults.front();  // the plain van Genuchten model, also for its alias
+  for (const auto& candidate : defaults)
+    if (soils::model_key(candidate) == name) model = candidate;
   // Each model takes its own parameters; a parameter of another model is an error, not ignored.
-  static constexpr std::array<std::string_view, 11> van_genuchten_keys = {"name",
-                                                                          "top",
-                                                                          "bottom",
-                                                                          "note",
-                                                                          "model",
-                                                                          "residual_water_content",
-                                                                          "saturated_water_content",
-                                                                          "alpha",
-                                                                          "n",
-                                                                          "saturated_conductivity",
-                                                                          "pore_connectivity"};
-  static constexpr std::array<std::string_view, 12> air_entry_keys = {"name",
-                                                                      "top",
-                                                                      "bottom",
-                                                                      "note",
-                                                                      "model",
-                                                                      "residual_water_content",
-                                                                      "saturated_water_content",
-                                                                      "alpha",
-                                                                      "n",
-                                                                      "saturated_conductivity",
-                                                                      "pore_connectivity",
-                                                                      "air_entry_head"};
-  static constexpr std::array<std::string_view, 10> brooks_corey_keys = {"name",
-                                                                         "top",
-                                                                         "bottom",
-                                                                         "note",
-                                                                         "model",
-                                                                         "residual_water_content",
-                                                                         "saturated_water_content",
-                                                                         "bubbling_head",
-                                                                         "pore_size_index",
-                                                                         "saturated_conductivity"};
-  static constexpr std::array<std::string_view, 9> gardner_keys = {"name",
-                                                                   "top",
-                                                                   "bottom",
-                                                                   "note",
-                                                                   "model",
-                                                                   "residual_water_content",
-                                                                   "saturated_water_content",
-                                                                   "sorptive_number",
-                                                                   "saturated_conductivity"};
-  if (model == "brooks corey") {
-    layer.only_keys(brooks_corey_keys);
-  } else if (model == "gardner") {
-    layer.only_keys(gardner_keys);
-  } else if (model == "van genuchten air entry") {
-    layer.only_keys(air_entry_keys);
-  } else {
-    layer.only_keys(van_genuchten_keys);
+  std::vector<std::string_view> keys = {"name", "top", "bottom", "note", "model"};
+  for (const auto& parameter : soils::model_parameters(model)) keys.push_back(parameter.key);
+  layer.only_keys(keys);
+  for (const auto& parameter : soils::model_parameters(model)) {
+    if (parameter.optional && !layer.has(parameter.key)) continue;
+    *soils::parameter_value(model, parameter.key) = parameter_from(layer, parameter);
   }
-  const double theta_r = water_content(layer, "residual_water_content");
-  const double theta_s = water_content(layer, "saturated_water_content");
-  const double ks = layer.quantity("saturated_conductivity", base::Dimension::conductivity);
-  if (model == "van genuchten" || model == "van genuchten-mualem" || model == "van genuchten air entry") {
-    soils::VanGenuchtenMualem vg;
-    vg.residual_water_content = theta_r;
-    vg.saturated_water_content = theta_s;
-    vg.alpha_per_cm = layer.quantity("alpha", base::Dimension::inverse_length);
-    vg.n = layer.number("n");
-    vg.saturated_conductivity_cm_per_d = ks;
-    vg.pore_connectivity = layer.optional_number("pore_connectivity").value_or(0.5);
-    if (model != "van genuchten air entry") return vg;
-    return soils::VanGenuchtenAirEntry{vg, layer.quantity("air_entry_head", base::Dimension::pressure_head)};
-  }
-  if (model == "brooks corey") {
-    soils::BrooksCorey bc;
-    bc.residual_water_content = theta_r;
-    bc.saturated_water_content = theta_s;
-    bc.bubbling_head_cm = layer.quantity("bubbling_head", base::Dimension::pressure_head);
-    bc.pore_size_index = layer.number("pore_size_index");
-    bc.saturated_conductivity_cm_per_d = ks;
-    return bc;
-  }
-  soils::GardnerExponential g;
-  g.residual_water_content = theta_r;
-  g.saturated_water_content = theta_s;
-  g.sorptive_number_per_cm = layer.quantity("sorptive_number", base::Dimension::inverse_length);
-  g.saturated_conductivity_cm_per_d = ks;
-  return g;
+  return model;
 }
 
 std::vector<soils::SoilLayer> read_layers(const SiteTable& root) {
-  static constexpr std::array<std::string_view, 16> keys = {"name",
-                                                            "top",
-                                                            "bottom",
-                                                            "texture",
-                                                            "model",
-                                                            "residual_water_content",
-                                                            "saturated_water_content",
-                                                            "alpha",
-                                                            "n",
-                                                            "saturated_conductivity",
-                                                            "pore_connectivity",
-                                                            "air_entry_head",
-                                                            "bubbling_head",
-                                                            "pore_size_index",
-                                                            "sorptive_number",
-                                                            "note"};
+  std::vector<std::string_view> keys = {"name", "top", "bottom", "texture", "model"};
+  const auto parameter_keys = soils::all_parameter_keys();
+  keys.insert(keys.end(), parameter_keys.begin(), parameter_keys.end());
+  keys.push_back("note");
   const auto tables = root.table_array("layers");
   if (tables.empty())
     root.fail("layers", "the site needs at least one [[layers]] table (soil layers from the surface down)");
@@ -689,8 +622,9 @@ void read_numerics(const SiteTable& root, SiteSetup& site) {
     if (site.max_ponded_depth_cm < 0) surface->fail("max_ponding", "must not be negative");
   }
   if (const auto solver = root.subtable("solver")) {
-    static constexpr std::array<std::string_view, 6> keys = {"relative_tolerance", "storage_tolerance", "head_tolerance",
-                                                             "max_step", "face_conductivity", "specific_storage"};
+    static constexpr std::array<std::string_view, 6> keys = {"relative_tolerance", "storage_tolerance",
+                                                             "head_tolerance",     "max_step",
+                                                             "face_conductivity",  "specific_storage"};
     solver->only_keys(keys);
     auto& s = site.settings;
     s.relative_tolerance = solver->optional_number("relative_tolerance").value_or(s.relative_tolerance);

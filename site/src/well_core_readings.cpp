@@ -48,14 +48,7 @@ double length_factor(const base::CsvTable& table, std::size_t column, std::strin
 }
 
 double day_at(const base::CsvTable& table, std::size_t row, std::size_t column, base::TimePoint run_start) {
-  const auto when = base::parse_timestamp(table.text(row, column));
-  if (!when) {
-    throw table.error_at(
-        row, column,
-        fmt::format("expected an ISO 8601 date or date-time (2025-04-08 or 2025-04-08T09:00), got '{}'",
-                    table.text(row, column)));
-  }
-  return base::days_since(run_start, *when);
+  return base::days_since(run_start, table.timestamp(row, column));
 }
 
 SensorRecord start_record(const SensorSetup& setup, std::string_view quantity, std::string_view unit) {

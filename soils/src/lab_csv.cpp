@@ -92,13 +92,15 @@ class Table {
   std::vector<Row> rows_;
 };
 
-std::ifstream open(const std::filesystem::path& file) {
+// `parse` (one of the parse_*_csv functions) on the contents of `file`, which it names in errors.
+template <class Parse>
+auto parse_file(const std::filesystem::path& file, Parse parse) {
   std::error_code error;
   if (std::filesystem::is_directory(file, error))
     throw base::InputError(file.string(), 0, "", "is a folder, not a CSV file; give the name of a file");
   std::ifstream in(file);
   if (!in) throw base::InputError(file.string(), 0, "", "cannot open the file for reading");
-  return in;
+  return parse(in, file.string());
 }
 
 // Suction in cm from whichever of suction_cm / suction_kPa the table has (exactly one).
@@ -174,8 +176,7 @@ std::vector<RetentionSeries> parse_retention_csv(std::istream& in, std::string_v
 }
 
 std::vector<RetentionSeries> read_retention_csv(const std::filesystem::path& file) {
-  auto in = open(file);
-  return parse_retention_csv(in, file.string());
+  return parse_file(file, parse_retention_csv);
 }
 
 std::vector<CoreSample> parse_core_samples_csv(std::istream& in, std::string_view source_name) {
@@ -204,8 +205,7 @@ std::vector<CoreSample> parse_core_samples_csv(std::istream& in, std::string_vie
 }
 
 std::vector<CoreSample> read_core_samples_csv(const std::filesystem::path& file) {
-  auto in = open(file);
-  return parse_core_samples_csv(in, file.string());
+  return parse_file(file, parse_core_samples_csv);
 }
 
 std::vector<SuctionStepSeries> parse_suction_steps_csv(std::istream& in, std::string_view source_name) {
@@ -223,8 +223,7 @@ std::vector<SuctionStepSeries> parse_suction_steps_csv(std::istream& in, std::st
 }
 
 std::vector<SuctionStepSeries> read_suction_steps_csv(const std::filesystem::path& file) {
-  auto in = open(file);
-  return parse_suction_steps_csv(in, file.string());
+  return parse_file(file, parse_suction_steps_csv);
 }
 
 std::vector<RetentionSeries> retention_from_cores(const std::vector<CoreSample>& cores,

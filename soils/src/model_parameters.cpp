@@ -3,33 +3,45 @@
 #include <algorithm>
 #include <array>
 #include <type_traits>
+#include <utility>
 #include <variant>
 
 namespace wetfront::soils {
 namespace {
 
-constexpr std::array<ModelParameter, 6> kVanGenuchten = {{{"residual_water_content", "cm3/cm3"},
-                                                          {"saturated_water_content", "cm3/cm3"},
-                                                          {"alpha", "1/cm"},
-                                                          {"n", "1"},
-                                                          {"saturated_conductivity", "cm/d"},
-                                                          {"pore_connectivity", "1"}}};
-constexpr std::array<ModelParameter, 7> kAirEntry = {{{"residual_water_content", "cm3/cm3"},
-                                                      {"saturated_water_content", "cm3/cm3"},
-                                                      {"alpha", "1/cm"},
-                                                      {"n", "1"},
-                                                      {"saturated_conductivity", "cm/d"},
-                                                      {"pore_connectivity", "1"},
-                                                      {"air_entry_head", "cm"}}};
-constexpr std::array<ModelParameter, 5> kBrooksCorey = {{{"residual_water_content", "cm3/cm3"},
-                                                         {"saturated_water_content", "cm3/cm3"},
-                                                         {"bubbling_head", "cm"},
-                                                         {"pore_size_index", "1"},
-                                                         {"saturated_conductivity", "cm/d"}}};
-constexpr std::array<ModelParameter, 4> kGardner = {{{"residual_water_content", "cm3/cm3"},
-                                                     {"saturated_water_content", "cm3/cm3"},
-                                                     {"sorptive_number", "1/cm"},
-                                                     {"saturated_conductivity", "cm/d"}}};
+// Each parameter once; the tables below list them per model.
+constexpr ModelParameter kResidual{"residual_water_content", "cm3/cm3", "theta_r"};
+constexpr ModelParameter kSaturated{"saturated_water_content", "cm3/cm3", "theta_s"};
+constexpr ModelParameter kAlpha{"alpha", "1/cm", "alpha"};
+constexpr ModelParameter kShape{"n", "1", "n"};
+constexpr ModelParameter kConductivity{"saturated_conductivity", "cm/d", "Ks"};
+constexpr ModelParameter kConnectivity{"pore_connectivity", "1", "l", true};
+constexpr ModelParameter kAirEntryHead{"air_entry_head", "cm", "h_e"};
+constexpr ModelParameter kBubblingHead{"bubbling_head", "cm", "h_b"};
+constexpr ModelParameter kPoreSizeIndex{"pore_size_index", "1", "lambda"};
+constexpr ModelParameter kSorptiveNumber{"sorptive_number", "1/cm", "a"};
+
+constexpr std::array kVanGenuchten = {kResidual, kSaturated, kAlpha, kShape, kConductivity, kConnectivity};
+constexpr std::array kAirEntry = {kResidual, kSaturated, kAlpha, kShape, kConductivity, kConnectivity, kAirEntryHead};
+constexpr std::array kBrooksCorey = {kResidual, kSaturated, kBubblingHead, kPoreSizeIndex, kConductivity};
+constexpr std::array kGardner = {kResidual, kSaturated, kSorptiveNumber, kConductivity};
+
+// Per model, in the order of HydraulicModel: its parameters, published name and site-file name.
+constexpr std::array<std::span<const ModelParameter>, 4> kParameters = {kVanGenuchten, kAirEntry, kBrooksCorey,
+                                                                        kGardner};
+constexpr std::array<std::string_view, 4> kNames = {"van Genuchten-Mualem", "van Genuchten-Mualem with air-entry head",
+                                                    "Brooks-Corey-Burdine", "Gardner exponential"};
+constexpr std::array<std::string_view, 4> kKeys = {"van genuchten", "van genuchten air entry", "brooks corey",
+                                                   "gardner"};
+static_assert(kParameters.size() == std::variant_size_v<HydraulicModel> &&
+                  kNames.size() == std::variant_size_v<HydraulicModel> &&
+                  kKeys.size() == std::variant_size_v<HydraulicModel>,
+              "every model in HydraulicModel needs its parameters, name and key here");
+
+template <std::size_t... I>
+std::vector<HydraulicModel> default_models(std::index_sequence<I...>) {
+  return {HydraulicModel(std::in_place_index<I>)...};
+}
 
 double* van_genuchten_value(VanGenuchtenMualem& m, std::string_view key) {
   if (key == "residual_water_content") return &m.residual_water_content;
@@ -63,27 +75,28 @@ double* value_of(GardnerExponential& m, std::string_view key) {
 
 }  // namespace
 
-std::string_view model_name(const HydraulicModel& model) {
-  static constexpr std::array<std::string_view, 4> names = {"van Genuchten-Mualem",
-                                                            "van Genuchten-Mualem with air-entry head",
-                                                            "Brooks-Corey-Burdine", "Gardner exponential"};
-  return names[model.index()];
+std::string_view model_name(const HydraulicModel& model) { return kNames[model.index()]; }
+
+std::string_view model_key(const HydraulicModel& model) { return kKeys[model.index()]; }
+
+std::vector<HydraulicModel> all_models() {
+  return default_models(std::make_index_sequence<std::variant_size_v<HydraulicModel>>());
 }
 
-std::span<const ModelParameter> model_parameters(const HydraulicModel& model) {
-  switch (model.index()) {
-    case 0: return kVanGenuchten;
-    case 1: return kAirEntry;
-    case 2: return kBrooksCorey;
-    default: return kGardner;
+std::optional<base::Dimension> parameter_dimension(const ModelParameter& parameter) {
+  for (const auto dimension : {base::Dimension::water_content, base::Dimension::inverse_length,
+                               base::Dimension::conductivity, base::Dimension::pressure_head}) {
+    if (parameter.unit == base::internal_unit(dimension)) return dimension;
   }
+  return std::nullopt;
 }
+
+std::span<const ModelParameter> model_parameters(const HydraulicModel& model) { return kParameters[model.index()]; }
 
 std::vector<std::string_view> all_parameter_keys() {
   std::vector<std::string_view> keys;
-  for (const auto table : {std::span<const ModelParameter>(kVanGenuchten), std::span<const ModelParameter>(kAirEntry),
-                           std::span<const ModelParameter>(kBrooksCorey), std::span<const ModelParameter>(kGardner)}) {
-    for (const auto& p : table)
+  for (const auto& model : all_models()) {
+    for (const auto& p : model_parameters(model))
       if (std::find(keys.begin(), keys.end(), p.key) == keys.end()) keys.push_back(p.key);
   }
   return keys;

@@ -14,9 +14,39 @@ namespace {
 
 constexpr double pi = std::numbers::pi;
 
-constexpr std::array<WellSoilCategory, 5> categories = {
-    WellSoilCategory::compacted_clay, WellSoilCategory::fine_unstructured, WellSoilCategory::structured,
-    WellSoilCategory::coarse_sand, WellSoilCategory::highly_structured};
+// Everything a soil category sets (alpha* and the shape-factor fit: Elrick, Reynolds & Tan 1989,
+// see well_permeameter.hpp), with its name and description, one row per category.
+struct CategoryRow {
+  WellSoilCategory category;
+  std::string_view name;
+  std::string_view description;
+  double sorptive_number_per_cm;  // alpha*
+  ShapeFactorSoil shape_factor_soil;
+};
+
+constexpr std::array<CategoryRow, 5> kCategoryRows = {{
+    {WellSoilCategory::compacted_clay, "compacted-clay", "compacted, structureless clay (liners, fills)", 0.01,
+     ShapeFactorSoil::unstructured_clay},
+    {WellSoilCategory::fine_unstructured, "fine-unstructured", "fine-textured soil without structure", 0.04,
+     ShapeFactorSoil::unstructured_clay},
+    {WellSoilCategory::structured, "structured", "most structured soils, clays to loams", 0.12,
+     ShapeFactorSoil::structured_loam_or_clay},
+    {WellSoilCategory::coarse_sand, "coarse-sand", "coarse and gravelly sands", 0.36, ShapeFactorSoil::sand},
+    {WellSoilCategory::highly_structured, "highly-structured", "highly structured soil with large cracks or macropores",
+     0.36, ShapeFactorSoil::structured_loam_or_clay},
+}};
+
+constexpr std::array<WellSoilCategory, kCategoryRows.size()> categories = [] {
+  std::array<WellSoilCategory, kCategoryRows.size()> list{};
+  for (std::size_t i = 0; i < kCategoryRows.size(); ++i) list[i] = kCategoryRows[i].category;
+  return list;
+}();
+
+const CategoryRow& row_of(WellSoilCategory category) {
+  for (const auto& row : kCategoryRows)
+    if (row.category == category) return row;
+  throw std::logic_error("unknown well soil category");
+}
 
 void require_positive(double value, const char* what) {
   if (!(value > 0.0) || !std::isfinite(value)) {
@@ -44,49 +74,13 @@ FlowCoefficients flow_coefficients(double water_depth_cm, double well_radius_cm,
 
 }  // namespace
 
-double sorptive_number_per_cm(WellSoilCategory category) {
-  switch (category) {
-    case WellSoilCategory::compacted_clay: return 0.01;
-    case WellSoilCategory::fine_unstructured: return 0.04;
-    case WellSoilCategory::structured: return 0.12;
-    case WellSoilCategory::coarse_sand: return 0.36;
-    case WellSoilCategory::highly_structured: return 0.36;
-  }
-  throw std::logic_error("unknown well soil category");
-}
+double sorptive_number_per_cm(WellSoilCategory category) { return row_of(category).sorptive_number_per_cm; }
 
-ShapeFactorSoil shape_factor_soil(WellSoilCategory category) {
-  switch (category) {
-    case WellSoilCategory::compacted_clay:
-    case WellSoilCategory::fine_unstructured: return ShapeFactorSoil::unstructured_clay;
-    case WellSoilCategory::structured:
-    case WellSoilCategory::highly_structured: return ShapeFactorSoil::structured_loam_or_clay;
-    case WellSoilCategory::coarse_sand: return ShapeFactorSoil::sand;
-  }
-  throw std::logic_error("unknown well soil category");
-}
+ShapeFactorSoil shape_factor_soil(WellSoilCategory category) { return row_of(category).shape_factor_soil; }
 
-std::string_view category_name(WellSoilCategory category) {
-  switch (category) {
-    case WellSoilCategory::compacted_clay: return "compacted-clay";
-    case WellSoilCategory::fine_unstructured: return "fine-unstructured";
-    case WellSoilCategory::structured: return "structured";
-    case WellSoilCategory::coarse_sand: return "coarse-sand";
-    case WellSoilCategory::highly_structured: return "highly-structured";
-  }
-  throw std::logic_error("unknown well soil category");
-}
+std::string_view category_name(WellSoilCategory category) { return row_of(category).name; }
 
-std::string_view category_description(WellSoilCategory category) {
-  switch (category) {
-    case WellSoilCategory::compacted_clay: return "compacted, structureless clay (liners, fills)";
-    case WellSoilCategory::fine_unstructured: return "fine-textured soil without structure";
-    case WellSoilCategory::structured: return "most structured soils, clays to loams";
-    case WellSoilCategory::coarse_sand: return "coarse and gravelly sands";
-    case WellSoilCategory::highly_structured: return "highly structured soil with large cracks or macropores";
-  }
-  throw std::logic_error("unknown well soil category");
-}
+std::string_view category_description(WellSoilCategory category) { return row_of(category).description; }
 
 std::span<const WellSoilCategory> all_categories() { return categories; }
 

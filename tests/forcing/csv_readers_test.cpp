@@ -5,10 +5,13 @@
 #include <fstream>
 
 #include "wetfront/forcing/csv_readers.hpp"
+#include "input_error_of.hpp"
 #include "wetfront/base/input_error.hpp"
 
 namespace wf = wetfront::forcing;
 namespace fs = std::filesystem;
+
+using wetfront::test_support::input_error_of;
 
 namespace {
 
@@ -25,18 +28,6 @@ fs::path scratch(const std::string& name, const std::string& text) {
   return p;
 }
 
-// Runs `read` and returns the InputError it throws (fails the test when it does not).
-template <class F>
-wetfront::base::InputError error_of(F read) {
-  try {
-    read();
-  } catch (const wetfront::base::InputError& e) {
-    return e;
-  }
-  ADD_FAILURE() << "expected an InputError";
-  return wetfront::base::InputError("none");
-}
-
 }  // namespace
 
 TEST(CsvReaders, DailyRainWithAMissingDay) {
@@ -48,7 +39,7 @@ TEST(CsvReaders, DailyRainWithAMissingDay) {
   EXPECT_FALSE(s.intervals[3].depth_cm);
   EXPECT_EQ(s.intervals[3].source_line, 6);
   // The blocked gauge is a gap: an error that names the file and line unless a fill is chosen.
-  const auto e = error_of([&] { wf::depth_series_to_rate(s, 5.0, wf::GapPolicy::error); });
+  const auto e = input_error_of([&] { wf::depth_series_to_rate(s, 5.0, wf::GapPolicy::error); });
   EXPECT_NE(std::string(e.what()).find("rain_daily.csv:6"), std::string::npos) << e.what();
   const auto zero = wf::depth_series_to_rate(s, 5.0, wf::GapPolicy::fill_with_zero);
   EXPECT_NEAR(zero.rate_cm_per_day.series.integral(0, 5), 1.55, 1e-12);
@@ -89,7 +80,7 @@ TEST(CsvReaders, DatedTable) {
 }
 
 TEST(CsvReaders, ErrorsNameFileLineAndColumn) {
-  auto bad_number = error_of([] {
+  auto bad_number = input_error_of([] {
     wf::read_depth_series_csv(scratch("rain_text.csv", "date,rain_mm\n2024-05-01,0\n2024-05-02,lots\n"), "rain", may1);
   });
   EXPECT_EQ(bad_number.line(), 3u);
@@ -97,52 +88,52 @@ TEST(CsvReaders, ErrorsNameFileLineAndColumn) {
   EXPECT_NE(std::string(bad_number.what()).find("rain_text.csv:3: column 'rain_mm'"), std::string::npos)
       << bad_number.what();
 
-  auto bad_date = error_of([] {
+  auto bad_date = input_error_of([] {
     wf::read_depth_series_csv(scratch("rain_date.csv", "date,rain_mm\n2024-05-01,0\n05/02/2024,1\n"), "rain", may1);
   });
   EXPECT_EQ(bad_date.line(), 3u);
   EXPECT_EQ(bad_date.column(), "date");
   EXPECT_NE(bad_date.problem().find("YYYY-MM-DD"), std::string::npos);
 
-  auto negative = error_of(
+  auto negative = input_error_of(
       [] { wf::read_depth_series_csv(scratch("rain_negative.csv", "date,rain_cm\n2024-05-01,-0.2\n"), "rain", may1); });
   EXPECT_EQ(negative.line(), 2u);
   EXPECT_EQ(negative.column(), "rain_cm");
 
-  auto no_unit =
-      error_of([] { wf::read_depth_series_csv(scratch("rain_unit.csv", "date,rain\n2024-05-01,2\n"), "rain", may1); });
+  auto no_unit = input_error_of(
+      [] { wf::read_depth_series_csv(scratch("rain_unit.csv", "date,rain\n2024-05-01,2\n"), "rain", may1); });
   EXPECT_EQ(no_unit.line(), 1u);
   EXPECT_NE(no_unit.problem().find("'rain_mm' or 'rain_cm'"), std::string::npos) << no_unit.what();
 
-  auto short_row = error_of([] {
+  auto short_row = input_error_of([] {
     wf::read_depth_series_csv(scratch("rain_short.csv", "# comment\ndate,rain_mm\n2024-05-01\n"), "rain", may1);
   });
   EXPECT_EQ(short_row.line(), 3u);
 
-  auto with_time = error_of(
+  auto with_time = input_error_of(
       [] { wf::read_depth_series_csv(scratch("rain_time.csv", "date,rain_mm\n2024-05-01T09:00,2\n"), "rain", may1); });
   EXPECT_EQ(with_time.column(), "date");
 
-  auto backwards = error_of([] {
+  auto backwards = input_error_of([] {
     wf::read_depth_series_csv(scratch("rain_order.csv", "date,rain_mm\n2024-05-02,0\n2024-05-01,1\n"), "rain", may1);
   });
   EXPECT_EQ(backwards.line(), 3u);
 
-  auto bad_event = error_of([] {
+  auto bad_event = input_error_of([] {
     wf::read_pan_readings_csv(
         scratch("pan_event.csv", "time,level_mm,rain_mm,event\n2024-05-01,200,,\n2024-05-02,195,0,topped\n"), may1);
   });
   EXPECT_EQ(bad_event.line(), 3u);
   EXPECT_EQ(bad_event.column(), "event");
 
-  auto no_rain = error_of([] {
+  auto no_rain = input_error_of([] {
     wf::read_pan_readings_csv(scratch("pan_rain.csv", "time,level_mm,rain_mm\n2024-05-01,200,\n2024-05-02,195,\n"),
                               may1);
   });
   EXPECT_EQ(no_rain.line(), 3u);
   EXPECT_EQ(no_rain.column(), "rain_mm");
 
-  auto missing_file = error_of([] { wf::read_depth_series_csv("/nonexistent/rain.csv", "rain", may1); });
+  auto missing_file = input_error_of([] { wf::read_depth_series_csv("/nonexistent/rain.csv", "rain", may1); });
   EXPECT_NE(std::string(missing_file.what()).find("/nonexistent/rain.csv"), std::string::npos);
 }
 

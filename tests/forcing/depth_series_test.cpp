@@ -1,9 +1,12 @@
 #include <gtest/gtest.h>
 
 #include "wetfront/forcing/depth_series.hpp"
+#include "input_error_of.hpp"
 #include "wetfront/base/input_error.hpp"
 
 namespace wf = wetfront::forcing;
+
+using wetfront::test_support::input_error_message;
 
 namespace {
 wf::DepthSeries daily_rain(std::vector<std::optional<double>> depths_cm) {
@@ -35,15 +38,12 @@ TEST(DepthSeries, SubDailyIntensitiesKeepTheirDepth) {
 }
 
 TEST(DepthSeries, MissingValueIsAnErrorNamingFileLineAndDate) {
-  try {
+  const std::string what = input_error_message([] {
     wf::depth_series_to_rate(daily_rain({0.1, std::nullopt, 0.2}), 3.0, wf::GapPolicy::error);
-    FAIL() << "expected an error";
-  } catch (const wetfront::base::InputError& e) {
-    const std::string what = e.what();
-    EXPECT_NE(what.find("rain.csv:3"), std::string::npos) << what;
-    EXPECT_NE(what.find("2024-05-02"), std::string::npos) << what;
-    EXPECT_NE(what.find("missing value"), std::string::npos) << what;
-  }
+  });
+  EXPECT_NE(what.find("rain.csv:3"), std::string::npos) << what;
+  EXPECT_NE(what.find("2024-05-02"), std::string::npos) << what;
+  EXPECT_NE(what.find("missing value"), std::string::npos) << what;
 }
 
 TEST(DepthSeries, GapBetweenRecordsIsAnErrorUnlessTheCallerChooses) {

@@ -2,6 +2,8 @@
 #pragma once
 
 #include <cmath>
+#include <optional>
+#include <vector>
 #include <gtest/gtest.h>
 
 #include "wetfront/profiles/run_record.hpp"
@@ -31,6 +33,31 @@ inline void expect_same_balance(const solver::CumulativeBalance& a, const solver
   EXPECT_EQ(a.ponded_depth_cm, b.ponded_depth_cm);
   EXPECT_EQ(a.soil_storage_cm, b.soil_storage_cm);
   EXPECT_EQ(a.balance_error_cm, b.balance_error_cm);
+}
+
+// Equal, with NaN (no value) equal to NaN.
+inline bool same_value(double x, double y) { return (std::isnan(x) && std::isnan(y)) || x == y; }
+
+inline bool same_values(const std::vector<double>& x, const std::vector<double>& y) {
+  if (x.size() != y.size()) return false;
+  for (std::size_t i = 0; i < x.size(); ++i)
+    if (!same_value(x[i], y[i])) return false;
+  return true;
+}
+
+// Both present and alike (`compare` checks their fields), or both absent.
+template <class T, class Compare>
+void expect_same_optional(const std::optional<T>& a, const std::optional<T>& b, Compare compare) {
+  ASSERT_EQ(a.has_value(), b.has_value());
+  if (a) compare(*a, *b);
+}
+
+// The per-interval columns every recharge estimate has.
+template <class Estimate>
+void expect_same_agreement(const Estimate& x, const Estimate& y) {
+  EXPECT_TRUE(same_values(x.amount_cm, y.amount_cm));
+  EXPECT_EQ(x.agreement, y.agreement);
+  EXPECT_EQ(x.missing, y.missing);
 }
 
 inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
@@ -102,8 +129,7 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
   EXPECT_EQ(a.visit_balance, b.visit_balance);
   ASSERT_EQ(a.sensor_comparison.has_value(), b.sensor_comparison.has_value());
   if (a.sensor_comparison) {
-    // Equal, with NaN (undefined metric, reading outside the run) equal to NaN.
-    const auto same = [](double x, double y) { return (std::isnan(x) && std::isnan(y)) || x == y; };
+    // NaN: an undefined metric or a reading outside the run.
     const auto& ca = *a.sensor_comparison;
     const auto& cb = *b.sensor_comparison;
     for (const auto* lists : {&ca.pressure_head, &ca.water_content}) {
@@ -116,7 +142,7 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
         EXPECT_EQ(x.time_days, y.time_days);
         EXPECT_EQ(x.depth_cm, y.depth_cm);
         EXPECT_EQ(x.observed, y.observed);
-        EXPECT_TRUE(same(x.simulated, y.simulated)) << x.simulated << " " << y.simulated;
+        EXPECT_TRUE(same_value(x.simulated, y.simulated)) << x.simulated << " " << y.simulated;
         EXPECT_EQ(x.used, y.used);
       }
     }
@@ -127,55 +153,35 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
       EXPECT_EQ(x.name, y.name);
       EXPECT_EQ(x.quantity, y.quantity);
       EXPECT_EQ(x.unit, y.unit);
-      EXPECT_TRUE(same(x.depth_cm, y.depth_cm));
+      EXPECT_TRUE(same_value(x.depth_cm, y.depth_cm));
       EXPECT_EQ(x.readings_used, y.readings_used);
       EXPECT_EQ(x.left_out_beyond_working_limit, y.left_out_beyond_working_limit);
       EXPECT_EQ(x.left_out_outside_run, y.left_out_outside_run);
-      EXPECT_TRUE(same(x.bias, y.bias));
-      EXPECT_TRUE(same(x.root_mean_square_error, y.root_mean_square_error));
-      EXPECT_TRUE(same(x.nash_sutcliffe, y.nash_sutcliffe));
-      EXPECT_TRUE(same(x.kling_gupta, y.kling_gupta));
+      EXPECT_TRUE(same_value(x.bias, y.bias));
+      EXPECT_TRUE(same_value(x.root_mean_square_error, y.root_mean_square_error));
+      EXPECT_TRUE(same_value(x.nash_sutcliffe, y.nash_sutcliffe));
+      EXPECT_TRUE(same_value(x.kling_gupta, y.kling_gupta));
     }
   }
   // The field checks, NaN equal to NaN.
-  const auto same_values = [](const std::vector<double>& x, const std::vector<double>& y) {
-    if (x.size() != y.size()) return false;
-    for (std::size_t i = 0; i < x.size(); ++i) {
-      if (!((std::isnan(x[i]) && std::isnan(y[i])) || x[i] == y[i])) return false;
-    }
-    return true;
-  };
-  ASSERT_EQ(a.darcy_estimate.has_value(), b.darcy_estimate.has_value());
-  if (a.darcy_estimate) {
-    const auto& x = *a.darcy_estimate;
-    const auto& y = *b.darcy_estimate;
+  expect_same_optional(a.darcy_estimate, b.darcy_estimate, [](const auto& x, const auto& y) {
     EXPECT_EQ(x.upper_sensor, y.upper_sensor);
     EXPECT_EQ(x.lower_sensor, y.lower_sensor);
     EXPECT_EQ(x.upper_depth_cm, y.upper_depth_cm);
     EXPECT_EQ(x.lower_depth_cm, y.lower_depth_cm);
     EXPECT_EQ(x.conductivity_note, y.conductivity_note);
-    EXPECT_TRUE(same_values(x.amount_cm, y.amount_cm));
-    EXPECT_EQ(x.agreement, y.agreement);
-    EXPECT_EQ(x.missing, y.missing);
-  }
-  ASSERT_EQ(a.water_table_estimate.has_value(), b.water_table_estimate.has_value());
-  if (a.water_table_estimate) {
-    const auto& x = *a.water_table_estimate;
-    const auto& y = *b.water_table_estimate;
+    expect_same_agreement(x, y);
+  });
+  expect_same_optional(a.water_table_estimate, b.water_table_estimate, [](const auto& x, const auto& y) {
     EXPECT_EQ(x.well, y.well);
     EXPECT_EQ(x.specific_yield, y.specific_yield);
     EXPECT_EQ(x.recession_cm_per_d, y.recession_cm_per_d);
     EXPECT_EQ(x.specific_yield_note, y.specific_yield_note);
     EXPECT_TRUE(same_values(x.start_depth_cm, y.start_depth_cm));
     EXPECT_TRUE(same_values(x.end_depth_cm, y.end_depth_cm));
-    EXPECT_TRUE(same_values(x.amount_cm, y.amount_cm));
-    EXPECT_EQ(x.agreement, y.agreement);
-    EXPECT_EQ(x.missing, y.missing);
-  }
-  ASSERT_EQ(a.stored_water.has_value(), b.stored_water.has_value());
-  if (a.stored_water) {
-    const auto& x = *a.stored_water;
-    const auto& y = *b.stored_water;
+    expect_same_agreement(x, y);
+  });
+  expect_same_optional(a.stored_water, b.stored_water, [](const auto& x, const auto& y) {
     EXPECT_EQ(x.depths_cm, y.depths_cm);
     EXPECT_EQ(x.sources, y.sources);
     EXPECT_EQ(x.visit_days, y.visit_days);
@@ -183,7 +189,7 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
     EXPECT_TRUE(same_values(x.simulated_cm, y.simulated_cm));
     EXPECT_TRUE(same_values(x.observed_change_cm, y.observed_change_cm));
     EXPECT_TRUE(same_values(x.simulated_change_cm, y.simulated_change_cm));
-  }
+  });
 }
 
 }  // namespace wetfront::profiles::testing

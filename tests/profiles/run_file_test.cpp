@@ -38,6 +38,15 @@ class RunFileTest : public ::testing::Test {
     return names;
   }
 
+  // Writes `record` as `name` in the test directory, reads it back and expects every field
+  // unchanged; returns what was read.
+  RunRecord round_trip(const RunRecord& record, const std::string& name) const {
+    write_run(directory_ / name, record);
+    RunRecord read = read_run(directory_ / name);
+    testing::expect_same_record(record, read);
+    return read;
+  }
+
   fs::path directory_;
 };
 
@@ -52,20 +61,13 @@ std::string message_of(const std::function<void()>& action) {
 }
 
 TEST_F(RunFileTest, CompleteRecordRoundTripsEveryField) {
-  const RunRecord written = testing::sample_record();
-  const fs::path path = directory_ / "season.h5";
-  write_run(path, written);
-  const RunRecord read = read_run(path);
-  testing::expect_same_record(written, read);
+  round_trip(testing::sample_record(), "season.h5");
   EXPECT_EQ(directory_listing(), std::vector<std::string>{"season.h5"});
 }
 
 TEST_F(RunFileTest, IncompleteRunRoundTripsItsFailure) {
-  const RunRecord written = testing::sample_failed_record();
+  const RunRecord read = round_trip(testing::sample_failed_record(), "stopped.h5");
   const fs::path path = directory_ / "stopped.h5";
-  write_run(path, written);
-  const RunRecord read = read_run(path);
-  testing::expect_same_record(written, read);
   EXPECT_FALSE(read.run.complete);
   ASSERT_TRUE(read.run.failure.has_value());
   EXPECT_EQ(read.run.failure->time_days, 12.5);
@@ -102,9 +104,7 @@ TEST_F(RunFileTest, RunWithoutPlanesSensorsOrOutputsRoundTrips) {
   written.run.complete = false;
   written.run.failure = solver::RunFailure{0.0, 0.0, "initial state inconsistent"};
   written.run_start_date = "2025-04-01T06:30";
-  const fs::path path = directory_ / "empty.h5";
-  write_run(path, written);
-  testing::expect_same_record(written, read_run(path));
+  round_trip(written, "empty.h5");
 }
 
 // Every dataset in the file has `units` and `long_name` text attributes.

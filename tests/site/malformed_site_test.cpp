@@ -202,8 +202,7 @@ TEST(MalformedSite, ProgramExitsWithOneAndLeavesNoOutput) {
     std::size_t line = 0;
     for (const auto& edit : c.edits) line = site.replace(edit.file, edit.from, edit.to);
     const auto out = site.folder() / "out.h5";
-    const ProgramResult result = testing::run_program(
-        fmt::format("run '{}' --out '{}' --quiet", site.site_file().string(), out.string()), site.folder());
+    const ProgramResult result = testing::run_site(site, out, "--quiet");
     EXPECT_EQ(result.exit_code, 1) << c.name << ": " << result.err;
     EXPECT_NE(result.err.find("error: "), std::string::npos) << c.name;
     expect_message(c, line, result.err);

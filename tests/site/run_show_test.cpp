@@ -27,8 +27,7 @@ std::size_t data_rows(const std::filesystem::path& csv) {
 TEST(RunAndShow, DemoRunWritesAFileThatShowReadsBack) {
   ScratchSite site("run");
   const auto out = site.folder() / "season.h5";
-  const auto run =
-      run_program(fmt::format("run '{}' --out '{}'", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out);
   ASSERT_EQ(run.exit_code, 0) << run.err;
   ASSERT_TRUE(std::filesystem::exists(out));
   EXPECT_EQ(data_rows(site.folder() / "season-visits.csv"), 29u);  // 28 visits split the season in 29
@@ -93,9 +92,7 @@ TEST(RunAndShow, SolverFailureExitsWithTwoAndKeepsThePartialRun) {
   ScratchSite site("failure");
   site.replace("site.toml", "max_step = \"1 d\"", "max_step = \"1e-7 d\"");
   const auto out = site.folder() / "failed.h5";
-  const auto run =
-      run_program(fmt::format("run '{}' --out '{}' --quiet --to 2025-04-03", site.site_file().string(), out.string()),
-                  site.folder());
+  const auto run = run_site(site, out, "--quiet --to 2025-04-03");
   EXPECT_EQ(run.exit_code, 2) << run.err;
   EXPECT_NE(run.err.find("solver failed"), std::string::npos) << run.err;
   ASSERT_TRUE(std::filesystem::exists(out));

@@ -43,8 +43,7 @@ std::string report_row(const std::string& report, const std::string& name) {
 TEST(SensorsAgainstModel, DemoRunReportsEverySensorTheDarcyColumnAndStoredWater) {
   ScratchSite site("sensors-demo");
   const auto out = site.folder() / "season.h5";
-  const auto run =
-      run_program(fmt::format("run '{}' --out '{}'", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out);
   ASSERT_EQ(run.exit_code, 0) << run.err;
   ASSERT_NE(run.out.find("Sensors against the model"), std::string::npos);
   // 28 readings per deep tensiometer and per probe at every visit inside the run (the demo's
@@ -167,9 +166,7 @@ TEST(SensorsAgainstModel, ReadingsAtTheWorkingLimitAreLeftOutAndCounted) {
   // are beyond the limit. Summer readings beyond it fall after the run's end and count as
   // outside the run, not here.
   const int beyond = 2;
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-05-20", site.site_file().string(), (site.folder() / "s.h5").string()),
-      site.folder());
+  const auto run = run_site(site, site.folder() / "s.h5", "--to 2025-05-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(run.out.find(fmt::format("Left out: {} tensiometer reading(s) beyond the working limit", beyond)),
             std::string::npos)
@@ -287,8 +284,7 @@ TEST_P(BadReadingsFile, NamesFileAndLineAndExitsWithOne) {
   const BadReadings& bad = GetParam();
   ScratchSite site("sensors-bad");
   const std::size_t line = site.replace(bad.file, bad.from, bad.to);
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}'", site.site_file().string(), (site.folder() / "s.h5").string()), site.folder());
+  const auto run = run_site(site, site.folder() / "s.h5");
   EXPECT_EQ(run.exit_code, 1);
   EXPECT_NE(run.err.find(fmt::format("{}:{}", bad.file, line)), std::string::npos) << run.err;
   EXPECT_NE(run.err.find(bad.says), std::string::npos) << run.err;

@@ -24,6 +24,15 @@ std::string loam_study() {
   return text.str();
 }
 
+// A calibration of at most `max_runs` model runs, `band_runs` more for the sampled band.
+CalibrationSettings calibration(int max_runs, std::size_t band_runs, unsigned threads = 2) {
+  CalibrationSettings settings;
+  settings.options.max_runs = max_runs;
+  settings.threads = threads;
+  settings.band_runs = band_runs;
+  return settings;
+}
+
 // About three and a half months keeps each run near a third of a second.
 const std::string kEnd = "2025-07-15";
 
@@ -35,11 +44,7 @@ TEST(TwinExperiment, CalibrationRecoversTheTrueLoamValuesWithinTwoStandardErrors
   const studies::ParameterSet truth{12.0, 1.4};
   ASSERT_GT(testing::write_twin_readings(site, kEnd, truth, 5.0, 11), 30u);
   const SeasonModel model = testing::load_model(site, kEnd);
-  CalibrationSettings settings;
-  settings.options.max_runs = 60;
-  settings.threads = 2;
-  settings.band_runs = 8;
-  const CalibrationStudy study = run_calibration(model, settings);
+  const CalibrationStudy study = run_calibration(model, calibration(60, 8));
   const auto& fit = study.fit;
   ASSERT_TRUE(fit.converged) << fit.stop_reason;
   ASSERT_EQ(fit.covariance.rows(), 2) << fit.covariance_note;
@@ -120,13 +125,8 @@ TEST(CalibrationThreads, OneAndTwoThreadsGiveTheSameFitAndBand) {
   testing::add_study(site, loam_study());
   testing::write_twin_readings(site, "2025-05-15", {12.0, 1.4}, 5.0, 11);
   const SeasonModel model = testing::load_model(site, "2025-05-15");
-  CalibrationSettings settings;
-  settings.options.max_runs = 20;
-  settings.band_runs = 4;
-  settings.threads = 1;
-  const CalibrationStudy one = run_calibration(model, settings);
-  settings.threads = 2;
-  const CalibrationStudy two = run_calibration(model, settings);
+  const CalibrationStudy one = run_calibration(model, calibration(20, 4, 1));
+  const CalibrationStudy two = run_calibration(model, calibration(20, 4, 2));
   EXPECT_EQ(one.fit.runs, two.fit.runs);
   EXPECT_EQ(one.fit.best, two.fit.best);  // bit for bit
   EXPECT_EQ(one.after.objective, two.after.objective);
@@ -147,11 +147,7 @@ TEST(Unresolvable, AParameterThatActsOnlyAfterTheLastReadingIsReported) {
   testing::add_study(site, toml);
   testing::write_twin_readings(site, kEnd, {12.0, 0.5}, 5.0, 3);
   const SeasonModel model = testing::load_model(site, kEnd);
-  CalibrationSettings settings;
-  settings.options.max_runs = 40;
-  settings.threads = 2;
-  settings.band_runs = 0;
-  const CalibrationStudy study = run_calibration(model, settings);
+  const CalibrationStudy study = run_calibration(model, calibration(40, 0));
   bool reported = false;
   for (const auto& w : study.fit.warnings)
     reported = reported || (w.find("kc_end") != std::string::npos && w.find("cannot resolve") != std::string::npos);

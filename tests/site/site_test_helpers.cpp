@@ -13,6 +13,9 @@
 #include <fmt/format.h>
 #include <gtest/gtest.h>
 
+#include "wetfront/site/site_file.hpp"
+#include "wetfront/solver/column_run.hpp"
+
 namespace wetfront::site::testing {
 
 std::filesystem::path demo_folder() { return std::filesystem::path(WETFRONT_SOURCE_DIR) / "examples" / "demo"; }
@@ -59,6 +62,12 @@ std::size_t ScratchSite::replace(const std::string& name, const std::string& fro
   return 1 + static_cast<std::size_t>(std::count(text.begin(), text.begin() + static_cast<long>(at), '\n'));
 }
 
+SimulatedSeason simulate_until(const ScratchSite& site, const std::string& to) {
+  Season season = prepare_season(load_site_file(site.site_file(), {"", to}));
+  profiles::RunRecord record = make_record(season, solver::simulate(season.problem), "test");
+  return {std::move(season), std::move(record)};
+}
+
 ProgramResult run_program(const std::string& arguments, const std::filesystem::path& scratch) {
   const auto out_file = scratch / "program.stdout";
   const auto err_file = scratch / "program.stderr";
@@ -99,6 +108,12 @@ double at_depth(const std::vector<double>& centres, const std::vector<double>& v
   }
   ADD_FAILURE() << "depth outside the cell centres";
   return 0;
+}
+
+ProgramResult run_site(const ScratchSite& site, const std::filesystem::path& out, const std::string& options) {
+  return run_program(fmt::format("run '{}' --out '{}'{}{}", site.site_file().string(), out.string(),
+                                 options.empty() ? "" : " ", options),
+                     site.folder());
 }
 
 }  // namespace wetfront::site::testing

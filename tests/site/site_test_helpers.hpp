@@ -5,6 +5,9 @@
 #include <string>
 #include <vector>
 
+#include "wetfront/profiles/run_record.hpp"
+#include "wetfront/site/season_setup.hpp"
+
 namespace wetfront::site::testing {
 
 std::filesystem::path demo_folder();
@@ -34,6 +37,14 @@ class ScratchSite {
 // probe) from the scratch site file, leaving tensiometers and probes only.
 void keep_tensiometers_and_probes(const ScratchSite& site);
 
+// The scratch site's season from its start to `to` (YYYY-MM-DD), simulated and recorded (the
+// record's run may be incomplete; tests that need it whole say so).
+struct SimulatedSeason {
+  Season season;
+  profiles::RunRecord record;
+};
+SimulatedSeason simulate_until(const ScratchSite& site, const std::string& to);
+
 struct ProgramResult {
   int exit_code = -1;
   std::string out;
@@ -46,5 +57,9 @@ double at_depth(const std::vector<double>& centres, const std::vector<double>& v
 
 // Runs the wetfront program with `arguments` (already quoted as needed).
 ProgramResult run_program(const std::string& arguments, const std::filesystem::path& scratch);
+
+// `wetfront run` on the scratch site's site file, writing `out`, with further `options` (e.g.
+// "--to 2025-04-20").
+ProgramResult run_site(const ScratchSite& site, const std::filesystem::path& out, const std::string& options = "");
 
 }  // namespace wetfront::site::testing

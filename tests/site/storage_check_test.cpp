@@ -45,10 +45,9 @@ TEST(StoredWater, TrapezoidOverThreeProbesByHand) {
   site.write("probe-20cm.csv", probe_file(p20));
   site.write("probe-50cm.csv", probe_file(p50, 4));  // no reading at the fifth visit (2025-05-06)
   site.write("probe-80cm.csv", probe_file(p80));
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-05-28"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
+  const auto [season, record] = simulate_until(site, "2025-05-28");
+  const solver::ColumnRun& run = record.run;
   ASSERT_TRUE(run.complete);
-  const profiles::RunRecord record = make_record(season, run, "test");
   const StorageCheck check = check_storage(season.sensor_readings, record);
   ASSERT_EQ(check.depths_cm, (std::vector<double>{20, 50, 80}));
   ASSERT_EQ(check.visits.size(), record.visit_balance.size() + 1);
@@ -87,9 +86,7 @@ TEST(StoredWater, TrapezoidOverThreeProbesByHand) {
   // The run end (midnight after the last visit) takes the last reading, 0.625 d before it.
   EXPECT_NEAR(*check.intervals[8].observed_change_cm, 0.0, 1e-12);
 
-  const auto printed = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-05-28", site.site_file().string(), (site.folder() / "s.h5").string()),
-      site.folder());
+  const auto printed = run_site(site, site.folder() / "s.h5", "--to 2025-05-28");
   ASSERT_EQ(printed.exit_code, 0) << printed.err;
   EXPECT_NE(printed.out.find("Visits (with the run start and end) with a reading at every depth: 8 of 10."),
             std::string::npos)
@@ -111,9 +108,7 @@ TEST(StoredWater, FewerThanTwoProbeDepthsGiveANote) {
                "depth = \"20 cm\"\nreadings = \"probe-50cm.csv\"");
   site.replace("site.toml", "depth = \"80 cm\"\nreadings = \"probe-80cm.csv\"",
                "depth = \"20 cm\"\nreadings = \"probe-80cm.csv\"");
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-04-20", site.site_file().string(), (site.folder() / "s.h5").string()),
-      site.folder());
+  const auto run = run_site(site, site.folder() / "s.h5", "--to 2025-04-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(
       run.out.find("Stored water over the probe depths\n  The comparison needs water-content probes at two or more "
@@ -140,8 +135,7 @@ TEST(StoredWater, RunAndShowTakeTheDepthsByOneRule) {
                "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\nreadings = \"cores.csv\"\n\n[recharge]");
   site.write("cores.csv", "time,depth [cm],water content [%]\n2025-04-08T10:00,50,25\n2025-04-15T10:00,50,24\n");
   const auto out = site.folder() / "s.h5";
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-04-20", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out, "--to 2025-04-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   const std::string note = "this site has them at one depth only (20 cm).";
   EXPECT_NE(run.out.find(note), std::string::npos) << run.out;
@@ -175,9 +169,7 @@ TEST(StoredWater, NoProbesGiveANote) {
                              depth),
                  "");
   }
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-04-20", site.site_file().string(), (site.folder() / "s.h5").string()),
-      site.folder());
+  const auto run = run_site(site, site.folder() / "s.h5", "--to 2025-04-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(run.out.find("needs water-content probes at two or more depths; this site has none."), std::string::npos)
       << run.out;

@@ -17,6 +17,7 @@
 #include "wetfront/site/sensor_check.hpp"
 #include "wetfront/site/sensor_readings.hpp"
 #include "wetfront/site/site_file.hpp"
+#include "input_error_of.hpp"
 #include "site_test_helpers.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/profiles/visit_balance.hpp"
@@ -24,6 +25,7 @@
 namespace wetfront::site {
 namespace {
 
+using test_support::input_error_message;
 using testing::run_program;
 using testing::ScratchSite;
 
@@ -46,6 +48,20 @@ std::string well_file(const std::vector<double>& depths_m) {
   std::string text = "# invented well levels for a test\ntime,depth to water [m]\n";
   for (std::size_t k = 0; k < depths_m.size(); ++k) text += fmt::format("{}T09:00,{}\n", kVisits[k], depths_m[k]);
   return text;
+}
+
+// The demo's probes with P80 moved up to 20 cm (both read 0.30 at two visits), the 50 cm probe
+// missing its second reading (0.22 at the first), and core samples "C" from cores.csv.
+void add_cores_beside_probes(const ScratchSite& site) {
+  testing::keep_tensiometers_and_probes(site);
+  site.replace("site.toml", "[[sensors]]\nname = \"P80\"",
+               "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
+               "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
+  site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"",
+               "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
+  site.write("probe-20cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
+  site.write("probe-80cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
+  site.write("probe-50cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.22\n");
 }
 
 std::string line_with(const std::string& text, const std::string& start) {
@@ -72,8 +88,7 @@ TEST(WaterTableEstimate, ReportCsvAndRunFileCarryTheHandWorkedAmounts) {
   add_sensor(site, well_block("specific_yield_source = \"invented for the test\"\n"));
   site.write("well.csv", well_file({3.00, 2.90, 2.95, 2.80, 2.80}));
   const auto out = site.folder() / "w.h5";
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-05-06", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out, "--to 2025-05-06");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(run.out.find("Recharge from the water table"), std::string::npos) << run.out;
   EXPECT_NE(run.out.find("with specific yield 0.1;"), std::string::npos) << run.out;
@@ -135,9 +150,7 @@ TEST(WaterTableEstimate, RecessionRateCountsARiseAgainstTheFall) {
   ScratchSite site("well-recession");
   add_sensor(site, well_block("recession_rate = \"0.5 cm/d\"\n"));
   site.write("well.csv", well_file({3.00, 3.02}));
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-16"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
+  const auto [season, record] = simulate_until(site, "2025-04-16");
   const auto check = check_water_table(season, season.sensor_readings, record);
   ASSERT_TRUE(check.has_value());
   ASSERT_GE(check->intervals.size(), 2u);
@@ -151,9 +164,7 @@ TEST(WaterTableEstimate, MissingReadingsNameTheVisitsWithout) {
   ScratchSite site("well-missing");
   add_sensor(site, well_block());
   site.write("well.csv", well_file({3.00}));
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-23"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
+  const auto [season, record] = simulate_until(site, "2025-04-23");
   const auto check = check_water_table(season, season.sensor_readings, record);
   ASSERT_TRUE(check.has_value());
   ASSERT_GE(check->intervals.size(), 3u);
@@ -173,8 +184,7 @@ TEST(WaterTableEstimate, PerVisitRowsSumToTheSeasonTotals) {
   add_sensor(site, well_block());
   site.write("well.csv", well_file({3.00, 2.90, 2.95, 2.80, 2.78}));
   const auto out = site.folder() / "w.h5";
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-05-20", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out, "--to 2025-05-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   const profiles::RunRecord record = profiles::read_run(out);
   const auto total = profiles::season_total(record.run.balances);
@@ -236,8 +246,7 @@ TEST(CoreSamples, EnterTheComparisonPerDepthAndPooledWithTheProbes) {
              "2025-04-15T10:00,20,160.0,135.0,100\n"
              "2025-04-15T10:00,50,168.0,140.0,100\n");
   const auto out = site.folder() / "c.h5";
-  const auto run = run_program(
-      fmt::format("run '{}' --out '{}' --to 2025-04-20", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out, "--to 2025-04-20");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   EXPECT_NE(line_with(run.out, "  C at 20 cm ").find(" 2 "), std::string::npos) << run.out;
   EXPECT_NE(line_with(run.out, "  C at 50 cm ").find(" 2 "), std::string::npos) << run.out;
@@ -261,19 +270,9 @@ TEST(CoreSamples, EnterTheComparisonPerDepthAndPooledWithTheProbes) {
 // taken there at 50 cm stands in. By hand: (0.30 + 0.20) / 2 x 30 cm = 7.5 cm.
 TEST(CoreSamples, StandInForAMissingProbeReadingInTheStoredWater) {
   ScratchSite site("cores-storage");
-  testing::keep_tensiometers_and_probes(site);
-  site.replace("site.toml", "[[sensors]]\nname = \"P80\"",
-               "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
-               "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
-  site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"",
-               "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
-  site.write("probe-20cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-80cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-50cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.22\n");
+  add_cores_beside_probes(site);
   site.write("cores.csv", "time,depth [cm],water content [%]\n2025-04-15T10:00,50,20\n");
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-20"}));
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
+  const auto [season, record] = simulate_until(site, "2025-04-20");
   const StorageCheck check = check_storage(season.sensor_readings, record);
   ASSERT_EQ(check.depths_cm, (std::vector<double>{20, 50}));
   EXPECT_EQ(check.probe_names.back(), "C");
@@ -289,19 +288,11 @@ TEST(CoreSamples, StandInForAMissingProbeReadingInTheStoredWater) {
 // / 2 x 35 cm = 8.75 cm between 20 and 55 cm.
 TEST(CoreSamples, DepthInMetresMatchesAProbeDepthInCentimetres) {
   ScratchSite site("cores-metres");
-  testing::keep_tensiometers_and_probes(site);
-  site.replace("site.toml", "[[sensors]]\nname = \"P80\"",
-               "[[sensors]]\nname = \"C\"\nkind = \"core samples\"\n"
-               "readings = \"cores.csv\"\n\n[[sensors]]\nname = \"P80\"");
-  site.replace("site.toml", "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"80 cm\"",
-               "name = \"P80\"\nkind = \"water content probe\"\ndepth = \"20 cm\"");
+  add_cores_beside_probes(site);
   site.replace("site.toml", "name = \"P50\"\nkind = \"water content probe\"\ndepth = \"50 cm\"",
                "name = \"P50\"\nkind = \"water content probe\"\ndepth = \"55 cm\"");
-  site.write("probe-20cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-80cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.30\n2025-04-15T09:00,0.30\n");
-  site.write("probe-50cm.csv", "time,water content [cm3/cm3]\n2025-04-08T09:00,0.22\n");
   site.write("cores.csv", "time,depth [m],water content [%]\n2025-04-15T10:00,0.55,20\n");
-  const Season season = prepare_season(load_site_file(site.site_file(), {"", "2025-04-20"}));
+  const auto [season, record] = simulate_until(site, "2025-04-20");
   const SensorRecord* cores = nullptr;
   for (const auto& r : season.sensor_readings) {
     if (r.name == "C") cores = &r;
@@ -309,8 +300,6 @@ TEST(CoreSamples, DepthInMetresMatchesAProbeDepthInCentimetres) {
   ASSERT_NE(cores, nullptr);
   ASSERT_EQ(cores->series.observations.size(), 1u);
   EXPECT_EQ(cores->series.observations[0].depth_cm, 55.0);
-  const solver::ColumnRun run = solver::simulate(season.problem);
-  const profiles::RunRecord record = make_record(season, run, "test");
   const StorageCheck check = check_storage(season.sensor_readings, record);
   ASSERT_EQ(check.depths_cm.size(), 2u);
   EXPECT_EQ(check.depths_cm[0], 20.0);
@@ -342,8 +331,7 @@ TEST_P(BadWellOrCoreFile, NamesFileAndLineAndExitsWithOne) {
   add_sensor(site, c.sensor);
   site.write(c.file, c.text);
   const auto out = site.folder() / "bad.h5";
-  const auto run =
-      run_program(fmt::format("run '{}' --out '{}'", site.site_file().string(), out.string()), site.folder());
+  const auto run = run_site(site, out);
   EXPECT_EQ(run.exit_code, 1) << run.out;
   EXPECT_NE(run.err.find(c.expected), std::string::npos) << run.err;
   EXPECT_FALSE(std::filesystem::exists(out));
@@ -398,31 +386,19 @@ TEST(WellSiteKeys, DepthAndMissingSpecificYieldAreErrorsWithTheLine) {
              "[[sensors]]\nname = \"W1\"\nkind = \"observation well\"\ndepth = \"300 cm\"\nreadings = \"well.csv\"\n"
              "specific_yield = 0.1\n");
   site.write("well.csv", well_file({3.0}));
-  try {
-    (void)load_site_file(site.site_file());
-    ADD_FAILURE() << "accepted a well with a depth";
-  } catch (const base::InputError& error) {
-    const std::string text = site.read("site.toml");
-    const auto line =
-        1 + std::count(text.begin(), text.begin() + static_cast<long>(text.find("depth = \"300 cm\"\nreadings")), '\n');
-    EXPECT_NE(std::string(error.what()).find(fmt::format("site.toml:{}: key 'sensors[8].depth'", line)),
-              std::string::npos)
-        << error.what();
-    EXPECT_NE(std::string(error.what()).find("its readings give the depth to water"), std::string::npos)
-        << error.what();
-  }
+  const std::string message = input_error_message([&] { (void)load_site_file(site.site_file()); });
+  const std::string text = site.read("site.toml");
+  const auto line =
+      1 + std::count(text.begin(), text.begin() + static_cast<long>(text.find("depth = \"300 cm\"\nreadings")), '\n');
+  EXPECT_NE(message.find(fmt::format("site.toml:{}: key 'sensors[8].depth'", line)), std::string::npos) << message;
+  EXPECT_NE(message.find("its readings give the depth to water"), std::string::npos) << message;
   ScratchSite second("well-keys-yield");
   add_sensor(
       second,
       "[[sensors]]\nname = \"W1\"\nkind = \"observation well\"\nreadings = \"well.csv\"\nspecific_yield = 1.2\n");
   second.write("well.csv", well_file({3.0}));
-  try {
-    (void)load_site_file(second.site_file());
-    ADD_FAILURE() << "accepted a specific yield of 1.2";
-  } catch (const base::InputError& error) {
-    EXPECT_NE(std::string(error.what()).find("1.2 is not a fraction between 0 and 1"), std::string::npos)
-        << error.what();
-  }
+  const std::string message_12 = input_error_message([&] { (void)load_site_file(second.site_file()); });
+  EXPECT_NE(message_12.find("1.2 is not a fraction between 0 and 1"), std::string::npos) << message_12;
 }
 
 }  // namespace

@@ -1,6 +1,7 @@
 // Laboratory cores: water content, bulk density, porosity and retention from suction steps.
 #include <gtest/gtest.h>
 
+#include "input_error_of.hpp"
 #include "wetfront/base/input_error.hpp"
 
 #include <stdexcept>
@@ -11,18 +12,14 @@
 
 namespace ws = wetfront::soils;
 
+using wetfront::test_support::input_error_message;
+
 namespace {
 // An invented 100 cm3 ring: tare 80 g, moist 250 g, oven-dry 220 g.
 ws::CoreSample ring() { return {"ring A3", 100.0, 80.0, 250.0, 220.0}; }
 
 std::string error_of(const ws::CoreSample& c) {
-  try {
-    ws::core_properties(c);
-  } catch (const wetfront::base::InputError& e) {
-    return e.what();
-  }
-  ADD_FAILURE() << "no wetfront::base::InputError thrown";
-  return {};
+  return input_error_message([&] { ws::core_properties(c); });
 }
 }  // namespace
 

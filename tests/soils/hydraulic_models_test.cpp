@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <initializer_list>
 #include <limits>
 #include <string>
 #include <vector>
@@ -113,21 +114,31 @@ INSTANTIATE_TEST_SUITE_P(
                       ClassValue{"clay", -1000.0, 0.32464893989789563, 0.00028642147735630821},
                       ClassValue{"clay", -15000.0, 0.27069105653902371, 7.6923233125163076e-7}));
 
-// Air-entry model on the Carsel & Parrish (1988) loam with h_e = -2 cm. Expected values:
-// Ippisch, Vogel & Bastian (2006) eq. 9-11 evaluated independently (mpmath, same script).
-TEST(AirEntryModel, LoamMatchesIndependentEvaluation) {
-  const ws::HydraulicModel model = ws::VanGenuchtenAirEntry{ws::texture_class_parameters("loam"), -2.0};
-  const struct {
-    double h, theta, k;
-  } expected[] = {{-2.5, 0.42914996042373197, 23.049179879821761},
-                  {-10.0, 0.40932950713784908, 9.0446169777204067},
-                  {-100.0, 0.24309875432088381, 0.057056467478447256},
-                  {-1000.0, 0.12553169780339191, 2.7495973027233018e-5},
-                  {-15000.0, 0.0884458730927902, 2.7734026125532715e-9}};
+namespace {
+
+// Water content (to 1e-12, relative) and conductivity (to 1e-10, relative) at each head, against
+// independently evaluated values.
+struct ValueAtHead {
+  double h, theta, k;
+};
+void expect_values(const ws::HydraulicModel& model, std::initializer_list<ValueAtHead> expected) {
   for (const auto& e : expected) {
     EXPECT_NEAR(ws::water_content(model, e.h), e.theta, 1e-12 * e.theta) << "h = " << e.h;
     EXPECT_NEAR(ws::conductivity(model, e.h), e.k, 1e-10 * e.k) << "h = " << e.h;
   }
+}
+
+}  // namespace
+
+// Air-entry model on the Carsel & Parrish (1988) loam with h_e = -2 cm. Expected values:
+// Ippisch, Vogel & Bastian (2006) eq. 9-11 evaluated independently (mpmath, same script).
+TEST(AirEntryModel, LoamMatchesIndependentEvaluation) {
+  const ws::HydraulicModel model = ws::VanGenuchtenAirEntry{ws::texture_class_parameters("loam"), -2.0};
+  expect_values(model, {{-2.5, 0.42914996042373197, 23.049179879821761},
+                        {-10.0, 0.40932950713784908, 9.0446169777204067},
+                        {-100.0, 0.24309875432088381, 0.057056467478447256},
+                        {-1000.0, 0.12553169780339191, 2.7495973027233018e-5},
+                        {-15000.0, 0.0884458730927902, 2.7734026125532715e-9}});
 }
 
 // Brooks & Corey (1964) retention with Burdine conductivity; a parameter set chosen for the
@@ -135,16 +146,10 @@ TEST(AirEntryModel, LoamMatchesIndependentEvaluation) {
 // independently with mpmath (tests/soils/hydraulic_reference_values.py).
 TEST(BrooksCoreyModel, MatchesIndependentEvaluation) {
   const ws::HydraulicModel model = ws::BrooksCorey{0.05, 0.40, -20.0, 0.4, 50.0};
-  const struct {
-    double h, theta, k;
-  } expected[] = {{-25.0, 0.37011353634912844, 24.482623994624947},
-                  {-100.0, 0.23385694630826371, 0.28991186547107821},
-                  {-1000.0, 0.12319476868138913, 0.00018292202077093054},
-                  {-15000.0, 0.074776704371881805, 3.1533629561623368e-8}};
-  for (const auto& e : expected) {
-    EXPECT_NEAR(ws::water_content(model, e.h), e.theta, 1e-12 * e.theta) << "h = " << e.h;
-    EXPECT_NEAR(ws::conductivity(model, e.h), e.k, 1e-10 * e.k) << "h = " << e.h;
-  }
+  expect_values(model, {{-25.0, 0.37011353634912844, 24.482623994624947},
+                        {-100.0, 0.23385694630826371, 0.28991186547107821},
+                        {-1000.0, 0.12319476868138913, 0.00018292202077093054},
+                        {-15000.0, 0.074776704371881805, 3.1533629561623368e-8}});
   EXPECT_DOUBLE_EQ(ws::water_content(model, -19.0), 0.40);  // wetter than the bubbling head
   EXPECT_DOUBLE_EQ(ws::conductivity(model, -19.0), 50.0);
 }
@@ -153,16 +158,10 @@ TEST(BrooksCoreyModel, MatchesIndependentEvaluation) {
 // theta_s 0.38, a 0.05 1/cm, Ks 30 cm/d), evaluated independently with mpmath.
 TEST(GardnerModel, MatchesIndependentEvaluation) {
   const ws::HydraulicModel model = ws::GardnerExponential{0.02, 0.38, 0.05, 30.0};
-  const struct {
-    double h, theta, k;
-  } expected[] = {{-1.0, 0.36244259282025704, 28.53688273502142},
-                  {-10.0, 0.23835103749654803, 18.195919791379003},
-                  {-100.0, 0.022425660919670768, 0.20213840997256401},
-                  {-500.0, 0.02000000000499966, 4.1663831594892062e-10}};
-  for (const auto& e : expected) {
-    EXPECT_NEAR(ws::water_content(model, e.h), e.theta, 1e-12 * e.theta) << "h = " << e.h;
-    EXPECT_NEAR(ws::conductivity(model, e.h), e.k, 1e-10 * e.k) << "h = " << e.h;
-  }
+  expect_values(model, {{-1.0, 0.36244259282025704, 28.53688273502142},
+                        {-10.0, 0.23835103749654803, 18.195919791379003},
+                        {-100.0, 0.022425660919670768, 0.20213840997256401},
+                        {-500.0, 0.02000000000499966, 4.1663831594892062e-10}});
 }
 
 // ---- Derivatives against central differences ---------------------------------------------

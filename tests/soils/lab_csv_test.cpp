@@ -1,6 +1,7 @@
 // CSV readers for laboratory data: columns, units, and errors with file, line and column.
 #include <gtest/gtest.h>
 
+#include "input_error_of.hpp"
 #include "wetfront/base/input_error.hpp"
 
 #include <sstream>
@@ -10,17 +11,9 @@
 
 namespace ws = wetfront::soils;
 
+using wetfront::test_support::input_error_of;
+
 namespace {
-template <class F>
-wetfront::base::InputError error_of(F f) {
-  try {
-    f();
-  } catch (const wetfront::base::InputError& e) {
-    return e;
-  }
-  ADD_FAILURE() << "no InputError thrown";
-  return wetfront::base::InputError("");
-}
 
 std::vector<ws::RetentionSeries> retention(const std::string& text) {
   std::istringstream in(text);
@@ -53,7 +46,7 @@ TEST(LabCsv, RetentionColumnsInAnyOrderWithSamplesAndKilopascals) {
 }
 
 TEST(LabCsv, RetentionErrorsNameFileLineAndColumn) {
-  auto e = error_of([] { retention("suction_cm,water_content\n0,0.4\n100,abc\n"); });
+  auto e = input_error_of([] { retention("suction_cm,water_content\n0,0.4\n100,abc\n"); });
   EXPECT_EQ(e.file(), "points.csv");
   EXPECT_EQ(e.line(), 3u);
   EXPECT_EQ(e.column(), "water_content");
@@ -61,40 +54,40 @@ TEST(LabCsv, RetentionErrorsNameFileLineAndColumn) {
             std::string::npos)
       << e.what();
 
-  e = error_of([] { retention("suction_cm,water_content\n0,40\n"); });
+  e = input_error_of([] { retention("suction_cm,water_content\n0,40\n"); });
   EXPECT_NE(std::string(e.what()).find("not percent"), std::string::npos) << e.what();
 
-  e = error_of([] { retention("suction_cm,water_content\n-5,0.4\n"); });
+  e = input_error_of([] { retention("suction_cm,water_content\n-5,0.4\n"); });
   EXPECT_EQ(e.column(), "suction_cm");
 
-  e = error_of([] { retention("suction_cm,theta\n0,0.4\n"); });
+  e = input_error_of([] { retention("suction_cm,theta\n0,0.4\n"); });
   EXPECT_EQ(e.line(), 1u);
   EXPECT_EQ(e.column(), "theta");
   EXPECT_NE(std::string(e.what()).find("accepted columns are: suction_cm, suction_kPa, water_content"),
             std::string::npos)
       << e.what();
 
-  e = error_of([] { retention("suction_cm\n0\n"); });
+  e = input_error_of([] { retention("suction_cm\n0\n"); });
   EXPECT_EQ(e.column(), "water_content");
 
-  e = error_of([] { retention("water_content\n0.4\n"); });
+  e = input_error_of([] { retention("water_content\n0.4\n"); });
   EXPECT_EQ(e.column(), "suction_cm");
 
-  e = error_of([] { retention("suction_cm,suction_kPa,water_content\n0,0,0.4\n"); });
+  e = input_error_of([] { retention("suction_cm,suction_kPa,water_content\n0,0,0.4\n"); });
   EXPECT_EQ(e.column(), "suction_kPa");
 
-  e = error_of([] { retention("suction_cm,water_content\n0,0.4,7\n"); });
+  e = input_error_of([] { retention("suction_cm,water_content\n0,0.4,7\n"); });
   EXPECT_EQ(e.line(), 2u);
   EXPECT_NE(std::string(e.what()).find("expected 2 comma-separated fields as in the header (line 1), found 3"),
             std::string::npos);
 
-  e = error_of([] { retention("# only a comment\n"); });
+  e = input_error_of([] { retention("# only a comment\n"); });
   EXPECT_NE(std::string(e.what()).find("no header"), std::string::npos);
 
-  e = error_of([] { retention("suction_cm,water_content\n"); });
+  e = input_error_of([] { retention("suction_cm,water_content\n"); });
   EXPECT_NE(std::string(e.what()).find("not followed by any data"), std::string::npos);
 
-  e = error_of([] { retention("suction_cm,water_content,suction_cm\n0,0.4,0\n"); });
+  e = input_error_of([] { retention("suction_cm,water_content,suction_cm\n0,0.4,0\n"); });
   EXPECT_NE(std::string(e.what()).find("more than once"), std::string::npos);
 }
 
@@ -120,15 +113,15 @@ TEST(LabCsv, CoreErrors) {
     return ws::parse_core_samples_csv(in, "cores.csv");
   };
   const std::string header = "sample,ring_volume_cm3,tare_mass_g,wet_mass_g,oven_dry_mass_g\n";
-  auto e = error_of([&] { parse(header + "A,100,80,250,260\n"); });  // dry above wet
+  auto e = input_error_of([&] { parse(header + "A,100,80,250,260\n"); });  // dry above wet
   EXPECT_EQ(e.line(), 2u);
   EXPECT_NE(std::string(e.what()).find("'A'"), std::string::npos) << e.what();
-  e = error_of([&] { parse(header + "A,100,80,250,220\nA,100,80,250,220\n"); });
+  e = input_error_of([&] { parse(header + "A,100,80,250,220\nA,100,80,250,220\n"); });
   EXPECT_EQ(e.line(), 3u);
   EXPECT_NE(std::string(e.what()).find("already appears on line 2"), std::string::npos) << e.what();
-  e = error_of([&] { parse(header + "A,100 cm3,80,250,220\n"); });
+  e = input_error_of([&] { parse(header + "A,100 cm3,80,250,220\n"); });
   EXPECT_EQ(e.column(), "ring_volume_cm3");
-  e = error_of([&] { parse("sample,ring_volume_cm3,wet_mass_g,oven_dry_mass_g\nA,100,250,220\n"); });
+  e = input_error_of([&] { parse("sample,ring_volume_cm3,wet_mass_g,oven_dry_mass_g\nA,100,250,220\n"); });
   EXPECT_EQ(e.column(), "tare_mass_g");
 
   std::istringstream steps_in("sample,suction_cm,wet_mass_g\nB,0,250\n");

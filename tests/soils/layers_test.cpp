@@ -1,6 +1,7 @@
 // LayeredProfile: contiguity validation and depth lookup.
 #include <gtest/gtest.h>
 
+#include "input_error_of.hpp"
 #include "wetfront/base/input_error.hpp"
 
 #include <cmath>
@@ -12,22 +13,13 @@
 
 namespace ws = wetfront::soils;
 
+using wetfront::test_support::input_error_message;
+
 namespace {
 ws::SoilLayer layer(std::string name, double top, double bottom, const char* texture = "loam") {
   return ws::SoilLayer{std::move(name), top, bottom, ws::texture_class_parameters(texture)};
 }
 
-// Runs f, expects wetfront::base::InputError, returns its message.
-template <class F>
-std::string error_of(F f) {
-  try {
-    f();
-  } catch (const wetfront::base::InputError& e) {
-    return e.what();
-  }
-  ADD_FAILURE() << "no wetfront::base::InputError thrown";
-  return {};
-}
 }  // namespace
 
 TEST(LayeredProfile, AcceptsContiguousLayers) {
@@ -37,39 +29,43 @@ TEST(LayeredProfile, AcceptsContiguousLayers) {
 }
 
 TEST(LayeredProfile, RejectsEmptyProfile) {
-  EXPECT_NE(error_of([] { ws::LayeredProfile p({}); }).find("at least one layer"), std::string::npos);
+  EXPECT_NE(input_error_message([] { ws::LayeredProfile p({}); }).find("at least one layer"), std::string::npos);
 }
 
 TEST(LayeredProfile, RejectsFirstLayerBelowSurface) {
-  const auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 5, 30)}); });
+  const auto msg = input_error_message([] { ws::LayeredProfile p({layer("topsoil", 5, 30)}); });
   EXPECT_NE(msg.find("'topsoil'"), std::string::npos) << msg;
   EXPECT_NE(msg.find("starts at 5"), std::string::npos) << msg;
 }
 
 TEST(LayeredProfile, RejectsGapNamingTheLayer) {
-  const auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 35, 80)}); });
+  const auto msg = input_error_message([] {
+    ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 35, 80)});
+  });
   EXPECT_NE(msg.find("'subsoil'"), std::string::npos) << msg;
   EXPECT_NE(msg.find("35"), std::string::npos) << msg;
   EXPECT_NE(msg.find("30"), std::string::npos) << msg;
 }
 
 TEST(LayeredProfile, RejectsOverlapNamingTheLayer) {
-  const auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 25, 80)}); });
+  const auto msg = input_error_message([] {
+    ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 25, 80)});
+  });
   EXPECT_NE(msg.find("'subsoil'"), std::string::npos) << msg;
   EXPECT_NE(msg.find("25"), std::string::npos) << msg;
 }
 
 TEST(LayeredProfile, RejectsZeroAndNegativeThickness) {
-  auto msg = error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("thin", 30, 30)}); });
+  auto msg = input_error_message([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("thin", 30, 30)}); });
   EXPECT_NE(msg.find("'thin'"), std::string::npos) << msg;
-  msg = error_of([] { ws::LayeredProfile p({layer("upside down", 0, -10)}); });
+  msg = input_error_message([] { ws::LayeredProfile p({layer("upside down", 0, -10)}); });
   EXPECT_NE(msg.find("'upside down'"), std::string::npos) << msg;
 }
 
 TEST(LayeredProfile, RejectsNonFiniteDepths) {
-  error_of([] { ws::LayeredProfile p({layer("topsoil", 0, std::nan(""))}); });
-  error_of([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", std::nan(""), 80)}); });
-  error_of([] { ws::LayeredProfile p({layer("topsoil", 0, INFINITY)}); });
+  input_error_message([] { ws::LayeredProfile p({layer("topsoil", 0, std::nan(""))}); });
+  input_error_message([] { ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", std::nan(""), 80)}); });
+  input_error_message([] { ws::LayeredProfile p({layer("topsoil", 0, INFINITY)}); });
 }
 
 TEST(LayeredProfile, InterfaceDepthBelongsToTheLayerBelow) {

@@ -1,6 +1,7 @@
 // Texture-class defaults against the Carsel & Parrish (1988) table.
 #include <gtest/gtest.h>
 
+#include "input_error_of.hpp"
 #include "wetfront/base/input_error.hpp"
 
 #include <stdexcept>
@@ -46,6 +47,8 @@ INSTANTIATE_TEST_SUITE_P(FromMemory, CarselParrishTable,
                                            Expected{"silty clay", 0.070, 0.36, 0.005, 1.09, 0.48},
                                            Expected{"clay", 0.068, 0.38, 0.008, 1.09, 4.8}));
 
+using wetfront::test_support::input_error_message;
+
 TEST(TextureClasses, TwelveClassesEachPhysicallyValid) {
   ASSERT_EQ(ws::texture_classes().size(), 12u);
   for (const auto& c : ws::texture_classes()) {
@@ -65,22 +68,14 @@ TEST(TextureClasses, LookupIgnoresCaseAndSeparators) {
 }
 
 TEST(TextureClasses, UnknownNameListsValidNamesAndSuggests) {
-  try {
-    ws::texture_class_parameters("sandy lome");
-    FAIL() << "expected wetfront::base::InputError";
-  } catch (const wetfront::base::InputError& e) {
-    const std::string msg = e.what();
-    EXPECT_NE(msg.find("'sandy lome'"), std::string::npos) << msg;
-    EXPECT_NE(msg.find("did you mean 'sandy loam'?"), std::string::npos) << msg;
-    EXPECT_NE(msg.find("sand, loamy sand, sandy loam"), std::string::npos) << msg;
-    EXPECT_NE(msg.find("silty clay, clay"), std::string::npos) << msg;
-  }
-  try {
-    ws::texture_class_parameters("granite");
-    FAIL() << "expected wetfront::base::InputError";
-  } catch (const wetfront::base::InputError& e) {
-    EXPECT_EQ(std::string(e.what()).find("did you mean"), std::string::npos) << e.what();
-  }
+  const std::string msg = input_error_message([] { ws::texture_class_parameters("sandy lome"); });
+  EXPECT_NE(msg.find("'sandy lome'"), std::string::npos) << msg;
+  EXPECT_NE(msg.find("did you mean 'sandy loam'?"), std::string::npos) << msg;
+  EXPECT_NE(msg.find("sand, loamy sand, sandy loam"), std::string::npos) << msg;
+  EXPECT_NE(msg.find("silty clay, clay"), std::string::npos) << msg;
+  const std::string far = input_error_message([] { ws::texture_class_parameters("granite"); });
+  EXPECT_FALSE(far.empty());
+  EXPECT_EQ(far.find("did you mean"), std::string::npos) << far;
   EXPECT_EQ(ws::closest_texture_class_name("clay lome"), "clay loam");
   EXPECT_EQ(ws::closest_texture_class_name("slit"), "silt");
 }

@@ -8,7 +8,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 #include <fmt/format.h>
 
 #include "solver_test_soils.hpp"
@@ -46,19 +45,17 @@ double steady_interface_error(std::size_t cells, solver::FaceConductivity face) 
 
 TEST(FaceConductivityAtALayerInterface, EveryMeanConvergesToTheLayeredSteadyProfile) {
   const std::size_t cells[] = {20, 40, 80, 160};
-  for (const auto face :
-       {solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic}) {
-    const char* name = face == solver::FaceConductivity::arithmetic ? "arithmetic"
-                       : face == solver::FaceConductivity::geometric ? "geometric"
-                                                                      : "harmonic";
+  for (const auto face : kFaceConductivities) {
+    const char* name = face_name(face);
     double errors[4];
     for (int k = 0; k < 4; ++k) {
       errors[k] = steady_interface_error(cells[k], face);
       RecordProperty(fmt::format("{}_error_cm_{}_cells", name, cells[k]), fmt::format("{:.3e}", errors[k]));
     }
-    std::printf("%-10s max |h - h_exact| (cm) on 20/40/80/160 cells: %.3e %.3e %.3e %.3e; orders %.2f %.2f %.2f\n", name,
-                errors[0], errors[1], errors[2], errors[3], std::log2(errors[0] / errors[1]),
-                std::log2(errors[1] / errors[2]), std::log2(errors[2] / errors[3]));
+    SCOPED_TRACE(fmt::format(
+        "{:<10} max |h - h_exact| (cm) on 20/40/80/160 cells: {:.3e} {:.3e} {:.3e} {:.3e}; orders {:.2f} {:.2f} {:.2f}",
+        name, errors[0], errors[1], errors[2], errors[3], std::log2(errors[0] / errors[1]),
+        std::log2(errors[1] / errors[2]), std::log2(errors[2] / errors[3])));
     for (int k = 1; k < 4; ++k) EXPECT_LT(errors[k], errors[k - 1]) << name << ", " << cells[k] << " cells";
     EXPECT_LT(errors[3], 1.0) << name;
     // Expected rates (the design note, after Belfort & Lehmann 2005, VZJ): the harmonic mean
@@ -110,14 +107,11 @@ TEST(FaceConductivityInDrySoil, WettingFrontPositionOnCoarseGrids) {
   const solver::ColumnRun fine_harmonic = dry_loam_infiltration(480, solver::FaceConductivity::harmonic);
   ASSERT_TRUE(fine_harmonic.complete);
   EXPECT_NEAR(front_depth_cm(fine_harmonic, initial_theta), reference_front, 0.125);
-  std::printf("front at %.3f cm after 2 d (480 cells; harmonic on 480 cells: %.3f cm)\n", reference_front,
-              front_depth_cm(fine_harmonic, initial_theta));
+  SCOPED_TRACE(fmt::format("front at {:.3f} cm after 2 d (480 cells; harmonic on 480 cells: {:.3f} cm)",
+                           reference_front, front_depth_cm(fine_harmonic, initial_theta)));
   double arithmetic_coarse_lag = 0.0;
-  for (const auto face :
-       {solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic}) {
-    const char* name = face == solver::FaceConductivity::arithmetic ? "arithmetic"
-                       : face == solver::FaceConductivity::geometric ? "geometric"
-                                                                      : "harmonic";
+  for (const auto face : kFaceConductivities) {
+    const char* name = face_name(face);
     double lags[3];
     const std::size_t cells[] = {15, 30, 60};
     for (int k = 0; k < 3; ++k) {
@@ -126,8 +120,8 @@ TEST(FaceConductivityInDrySoil, WettingFrontPositionOnCoarseGrids) {
       lags[k] = reference_front - front_depth_cm(run, initial_theta);
       RecordProperty(fmt::format("{}_front_lag_cm_{}_cells", name, cells[k]), fmt::format("{:.3f}", lags[k]));
     }
-    std::printf("%-10s front behind the reference by %.3f / %.3f / %.3f cm on 4 / 2 / 1 cm cells\n", name, lags[0],
-                lags[1], lags[2]);
+    SCOPED_TRACE(fmt::format("{:<10} front behind the reference by {:.3f} / {:.3f} / {:.3f} cm on 4 / 2 / 1 cm cells",
+                             name, lags[0], lags[1], lags[2]));
     EXPECT_LT(std::abs(lags[2]), std::abs(lags[0])) << name;  // converging
     if (face == solver::FaceConductivity::harmonic) {
       // The harmonic mean takes the dry side's conductivity at the front and holds it back

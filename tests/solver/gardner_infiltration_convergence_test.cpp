@@ -6,7 +6,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 #include <fmt/format.h>
 
 #include "gardner_water_table_infiltration.hpp"
@@ -80,8 +79,8 @@ TEST(GardnerInfiltrationToWaterTable, HeadsConvergeAtSecondOrderInSpace) {
   for (int k = 1; k < 4; ++k) {
     const double order = std::log2(errors[k - 1] / errors[k]);
     RecordProperty(fmt::format("observed_order_{}_to_{}", cells[k - 1], cells[k]), fmt::format("{:.3f}", order));
-    std::printf("%zu -> %zu cells: max error %.3e -> %.3e cm, observed order %.3f\n", cells[k - 1], cells[k],
-                errors[k - 1], errors[k], order);
+    SCOPED_TRACE(fmt::format("{} -> {} cells: max error {:.3e} -> {:.3e} cm, observed order {:.3f}", cells[k - 1],
+                             cells[k], errors[k - 1], errors[k], order));
     if (k >= 2) {
       EXPECT_GE(order, 1.8) << cells[k - 1] << " -> " << cells[k] << " cells";
     }
@@ -96,7 +95,8 @@ TEST(GardnerInfiltrationToWaterTable, DefaultTolerancesStayCloseToTheExactSoluti
   const solver::ColumnRun run = solver::simulate(problem);
   ASSERT_TRUE(run.complete) << (run.failure ? run.failure->reason : "");
   const double error = max_head_error(run);
-  std::printf("default tolerances, 100 cells: max head error %.3e cm, %ld steps\n", error, run.statistics.steps);
+  SCOPED_TRACE(
+      fmt::format("default tolerances, 100 cells: max head error {:.3e} cm, {} steps", error, run.statistics.steps));
   EXPECT_LT(error, 0.1);
   // The flux at the surface is the prescribed qB = 0.9 cm/d.
   for (const auto& profile : run.profiles) EXPECT_NEAR(profile.face_flux_cm_per_d.front(), 0.9, 1e-9);
@@ -124,7 +124,7 @@ TEST(GardnerInfiltrationToWaterTable, FluxChangeAtABreakpointMidRun) {
       worst = std::max(worst, std::abs(profile.head_cm[i] - reference));
     }
   }
-  std::printf("flux step at day 5, 100 cells: max head error %.3e cm\n", worst);
+  SCOPED_TRACE(fmt::format("flux step at day 5, 100 cells: max head error {:.3e} cm", worst));
   EXPECT_LT(worst, 0.05);  // the same size as the error of the run that starts with the step
   // Surface flux as prescribed on either side of the step (at day 5 itself either value is
   // defensible: the output closes the qA period and the series gives qB from day 5 on).
@@ -135,15 +135,12 @@ TEST(GardnerInfiltrationToWaterTable, FluxChangeAtABreakpointMidRun) {
 TEST(GardnerInfiltrationToWaterTable, FaceConductivityChoicesOnACoarseGrid) {
   // The three face means on 20 and 40 cells (5 and 2.5 cm): all converge on this smooth
   // problem; the errors are recorded to inform the default.
-  for (const auto face :
-       {solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic}) {
+  for (const auto face : kFaceConductivities) {
     const double coarse = run_error(20, face, 1e-8);
     const double finer = run_error(40, face, 1e-8);
-    const char* name = face == solver::FaceConductivity::arithmetic ? "arithmetic"
-                       : face == solver::FaceConductivity::geometric ? "geometric"
-                                                                      : "harmonic";
-    std::printf("%s mean: max head error %.3e cm (20 cells), %.3e cm (40 cells), order %.2f\n", name, coarse, finer,
-                std::log2(coarse / finer));
+    const char* name = face_name(face);
+    SCOPED_TRACE(fmt::format("{} mean: max head error {:.3e} cm (20 cells), {:.3e} cm (40 cells), order {:.2f}", name,
+                             coarse, finer, std::log2(coarse / finer)));
     RecordProperty(fmt::format("{}_error_cm_20_cells", name), fmt::format("{:.3e}", coarse));
     RecordProperty(fmt::format("{}_error_cm_40_cells", name), fmt::format("{:.3e}", finer));
     EXPECT_LT(finer, coarse) << name;

@@ -2,10 +2,10 @@
 // sand, a fine clay (n close to 1) dried at its surface to the wilting-point head, and rain
 // heavier than Ks on loam, where the surface ponds and later stops ponding. Each run's water
 // balance must also close.
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <cmath>
-#include <cstdio>
 
 #include "solver_test_soils.hpp"
 #include "steady_flux_profile.hpp"
@@ -20,20 +20,17 @@ void expect_complete_and_balanced(const solver::ColumnRun& run) {
   const auto& last = run.balances.back();
   const double turnover = last.water_input_cm + last.actual_evaporation_cm + std::abs(last.infiltration_cm) +
                           std::abs(last.bottom_flux_cm);
+  SCOPED_TRACE(
+      fmt::format("{} steps, {} nonlinear failures, {} error-test failures, {} surface switches, "
+                  "balance error {:.2e} cm",
+                  run.statistics.steps, run.statistics.nonlinear_failures, run.statistics.error_test_failures,
+                  run.statistics.surface_switches, last.balance_error_cm));
   EXPECT_LT(std::abs(last.balance_error_cm), 1e-5 * turnover + 1e-12);
-  std::printf("  %ld steps, %ld nonlinear failures, %ld error-test failures, %ld surface switches, "
-              "balance error %.2e cm\n",
-              run.statistics.steps, run.statistics.nonlinear_failures, run.statistics.error_test_failures,
-              run.statistics.surface_switches, last.balance_error_cm);
 }
 
 TEST(HardCases, HeavyRainOnDrySand) {
   // 10 cm/d on sand at -1000 cm: the front is a few millimetres wide.
-  solver::GridRequest request;
-  request.depth_cm = 100.0;
-  request.surface_cell_cm = 0.2;
-  request.max_cell_cm = 1.0;
-  solver::ColumnProblem problem = make_column(single_layer(100.0, sand()), solver::graded_grid(request));
+  solver::ColumnProblem problem = graded_column(sand(), {100.0, {}, 0.2, 1.1, 1.0});
   problem.top = solver::PrescribedFlux{solver::StepSeries::constant(10.0)};
   problem.bottom = solver::FreeDrainage{};
   problem.initial = solver::UniformHead{-1000.0};
@@ -48,11 +45,7 @@ TEST(HardCases, HeavyRainOnDrySand) {
 
 TEST(HardCases, FineClayDriedAtTheSurface) {
   // Clay with n = 1.09 under a surface head of -15000 cm for 30 days, water table 100 cm down.
-  solver::GridRequest request;
-  request.depth_cm = 100.0;
-  request.surface_cell_cm = 0.1;
-  request.max_cell_cm = 2.0;
-  solver::ColumnProblem problem = make_column(single_layer(100.0, clay()), solver::graded_grid(request));
+  solver::ColumnProblem problem = graded_column(clay(), {100.0, {}, 0.1, 1.1, 2.0});
   problem.top = solver::PrescribedHead{solver::StepSeries::constant(-15000.0)};
   problem.bottom = solver::FixedHead{0.0};
   problem.initial = solver::Hydrostatic{100.0};
@@ -69,9 +62,7 @@ TEST(HardCases, FineClayDriedAtTheSurface) {
 TEST(HardCases, RainAboveKsOnLoamPondsAndRecovers) {
   // 60 cm/d for half a day on loam (Ks about 25 cm/d) at -300 cm, then evaporation at
   // 0.5 cm/d: flux-limited surface -> ponded (excess runs off) -> flux-limited again.
-  solver::GridRequest request;
-  request.depth_cm = 100.0;
-  solver::ColumnProblem problem = make_column(single_layer(100.0, loam()), solver::graded_grid(request));
+  solver::ColumnProblem problem = graded_column(loam(), {100.0, {}, 0.5, 1.1, 2.0});
   const solver::StepSeries rain{{0.0, 0.5}, {60.0, 0.0}};
   const solver::StepSeries evaporation{{0.0, 0.5}, {0.0, 0.5}};
   problem.top = solver::LimitedFlux{rain, evaporation, -15000.0, 0.0};

@@ -3,12 +3,12 @@
 // fluxes are integrated by the same BDF formula, so storage change and cumulative net inflow
 // agree to the accuracy of the nonlinear solve (common practice: a linear multistep method
 // preserves linear invariants).
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <algorithm>
 #include <cmath>
 #include <variant>
-#include <cstdio>
 
 #include "solver_test_soils.hpp"
 #include "wetfront/solver/column_run.hpp"
@@ -92,11 +92,13 @@ void expect_balanced(const solver::ColumnRun& run, const solver::ColumnProblem& 
   }
   EXPECT_LT(worst_relative, 1e-6) << "|storage change - net inflow| / turnover, worst on day " << worst_day;
   const auto& last = run.balances.back();
-  std::printf("60 days: rain %.3f, evaporation %.3f (potential %.3f), runoff %.3f, bottom %.3f, storage change %.4f cm; "
-              "worst |dS - net in| / turnover = %.2e; %ld steps, %ld surface switches\n",
-              last.water_input_cm, last.actual_evaporation_cm, last.potential_evaporation_cm, last.runoff_cm,
-              last.bottom_flux_cm, last.soil_storage_cm - initial_storage, worst_relative, run.statistics.steps,
-              run.statistics.surface_switches);
+  SCOPED_TRACE(
+      fmt::format("60 days: rain {:.3f}, evaporation {:.3f} (potential {:.3f}), runoff {:.3f}, bottom {:.3f}, storage "
+                  "change {:.4f} cm; "
+                  "worst |dS - net in| / turnover = {:.2e}; {} steps, {} surface switches",
+                  last.water_input_cm, last.actual_evaporation_cm, last.potential_evaporation_cm, last.runoff_cm,
+                  last.bottom_flux_cm, last.soil_storage_cm - initial_storage, worst_relative, run.statistics.steps,
+                  run.statistics.surface_switches));
   // Something happened: the column took in water and lost some of it again.
   if (water_enters) {
     EXPECT_GT(last.infiltration_cm, 10.0);

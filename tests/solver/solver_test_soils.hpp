@@ -1,11 +1,13 @@
 // Soils and small helpers shared by the solver verification tests.
 #pragma once
 
+#include <array>
 #include <string>
 #include <vector>
 
 #include "wetfront/soils/layers.hpp"
 #include "wetfront/solver/column_problem.hpp"
+#include "wetfront/solver/grid.hpp"
 
 namespace wetfront::solver_tests {
 
@@ -47,6 +49,21 @@ inline solver::ColumnProblem make_column(soils::LayeredProfile soil, solver::Gri
                                1.0,
                                {},
                                solver::SolverSettings{}};
+}
+
+// The three face conductivities, and their names in messages and test properties.
+inline constexpr std::array<solver::FaceConductivity, 3> kFaceConductivities = {
+    solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic};
+inline const char* face_name(solver::FaceConductivity face) {
+  return face == solver::FaceConductivity::arithmetic ? "arithmetic"
+         : face == solver::FaceConductivity::geometric ? "geometric"
+                                                        : "harmonic";
+}
+
+// One soil down to request.depth_cm on the graded grid `request` asks for: {depth, faces to
+// keep, surface cell, growth factor, largest cell}, lengths in cm.
+inline solver::ColumnProblem graded_column(soils::HydraulicModel model, const solver::GridRequest& request) {
+  return make_column(single_layer(request.depth_cm, std::move(model)), solver::graded_grid(request));
 }
 
 }  // namespace wetfront::solver_tests

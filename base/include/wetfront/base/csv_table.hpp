@@ -23,6 +23,7 @@
 
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/base/quantity.hpp"
+#include "wetfront/base/time_point.hpp"
 
 namespace wetfront::base {
 
@@ -66,6 +67,8 @@ class CsvTable {
   std::optional<double> optional_number(std::size_t row, std::size_t column) const;
   // A yes/no flag (yes, y, true, 1 / no, n, false, 0; case-insensitive).
   bool flag(std::size_t row, std::size_t column) const;
+  // An ISO 8601 date or date-time (time_point.hpp, parse_timestamp).
+  TimePoint timestamp(std::size_t row, std::size_t column) const;
 
   // An InputError at a row and column of this file (column name as in the header cell).
   InputError error_at(std::size_t row, std::size_t column, const std::string& message) const;

@@ -5,7 +5,6 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
-#include <cstdio>
 
 #include <fmt/format.h>
 
@@ -17,8 +16,7 @@ namespace {
 constexpr double potential_rate = 0.5;  // cm/d
 
 solver::ColumnProblem drying_sand(double dry_limit_head_cm) {
-  solver::GridRequest request{50.0, {}, 0.25, 1.1, 1.0};
-  auto problem = make_column(single_layer(50.0, sand()), solver::graded_grid(request));
+  auto problem = graded_column(sand(), {50.0, {}, 0.25, 1.1, 1.0});
   problem.top = solver::LimitedFlux{solver::StepSeries::constant(0.0), solver::StepSeries::constant(potential_rate),
                                     dry_limit_head_cm, 0.0};
   problem.bottom = solver::ZeroFlux{};
@@ -68,10 +66,11 @@ double check_drying(double dry_limit_head_cm) {
   }
   const auto& last = run.balances.back();
   const double last_rate = (last.actual_evaporation_cm - run.balances[run.balances.size() - 101].actual_evaporation_cm);
-  std::printf("dry limit %.0f cm: potential rate until %.2f d; 20 d: potential %.3f, actual %.4f cm, last-day rate "
-              "%.4f cm/d; %ld surface switches, %ld steps\n",
-              dry_limit_head_cm, limited_from, last.potential_evaporation_cm, last.actual_evaporation_cm, last_rate,
-              run.statistics.surface_switches, run.statistics.steps);
+  SCOPED_TRACE(fmt::format(
+      "dry limit {:.0f} cm: potential rate until {:.2f} d; 20 d: potential {:.3f}, actual {:.4f} cm, last-day rate "
+      "{:.4f} cm/d; {} surface switches, {} steps",
+      dry_limit_head_cm, limited_from, last.potential_evaporation_cm, last.actual_evaporation_cm, last_rate,
+      run.statistics.surface_switches, run.statistics.steps));
   EXPECT_LT(last_rate, 0.2 * potential_rate);
   // One switch to the dry limit; allow one more pair for a brief return, no chattering.
   EXPECT_GE(run.statistics.surface_switches, 1);

@@ -1,11 +1,11 @@
 // Root uptake in a column run: while every rooted cell is wetter than the dry optimum the
 // column loses exactly the potential transpiration (the weights sum to one and alpha = 1);
 // once the root zone dries past it, actual transpiration falls below potential.
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 #include <memory>
 
 #include "surface_test_columns.hpp"
@@ -23,8 +23,7 @@ double driest_rooted_head(const solver::ColumnRun& run, const solver::ProfileSna
 }
 
 solver::ColumnProblem loam_with_roots(solver::RootUptakeSettings roots, double end_day) {
-  solver::GridRequest request{100.0, {}, 0.5, 1.1, 2.0};
-  auto problem = make_column(single_layer(100.0, loam()), solver::graded_grid(request));
+  auto problem = graded_column(loam(), {100.0, {}, 0.5, 1.1, 2.0});
   problem.top = solver::PrescribedFlux{solver::StepSeries::constant(0.0)};
   problem.bottom = solver::ZeroFlux{};
   problem.initial = solver::UniformHead{-60.0};
@@ -100,8 +99,8 @@ TEST(RootUptakeColumn, ActualFallsBelowPotentialAsTheRootZoneDries) {
   ASSERT_TRUE(stressed_seen);
   const auto& last = run.balances.back();
   const double last_day = last.transpiration_cm - run.balances[run.balances.size() - 5].transpiration_cm;
-  std::printf("40 days at Tp 0.5 cm/d: actual transpiration %.4f cm, last day %.4f cm/d\n", last.transpiration_cm,
-              last_day);
+  SCOPED_TRACE(fmt::format("40 days at Tp 0.5 cm/d: actual transpiration {:.4f} cm, last day {:.4f} cm/d",
+                           last.transpiration_cm, last_day));
   EXPECT_LT(last.transpiration_cm, 0.9 * 0.5 * 40.0);
   EXPECT_LT(last_day, 0.5 * 0.5);
 }

@@ -7,7 +7,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 
 #include <fmt/format.h>
 
@@ -24,8 +23,8 @@ double rain_rate() { return 3.0 * loam().saturated_conductivity_cm_per_d; }
 // The test grid has 0.25 cm surface cells growing by 5 percent to at most 1 cm; the reference
 // divides every cell length by 4 (refinement 4) and solves at tighter tolerances.
 solver::ColumnProblem rain_on_moist_loam(double max_ponded_depth_cm, double refinement) {
-  solver::GridRequest request{100.0, {}, 0.25 / refinement, std::pow(1.05, 1.0 / refinement), 1.0 / refinement};
-  auto problem = make_column(single_layer(100.0, loam()), solver::graded_grid(request));
+  auto problem =
+      graded_column(loam(), {100.0, {}, 0.25 / refinement, std::pow(1.05, 1.0 / refinement), 1.0 / refinement});
   problem.top = solver::LimitedFlux{{{0.0, rain_end_day}, {rain_rate(), 0.0}},
                                     solver::StepSeries::constant(0.0), -15000.0, max_ponded_depth_cm};
   problem.bottom = solver::FreeDrainage{};
@@ -88,11 +87,12 @@ void check_ponded_run(double max_ponded_depth_cm) {
   }
   const auto& last = run.balances.back();
   const auto& fine_last = fine.balances.back();
-  std::printf("max pond %.2f cm: ponding at %.4f d (fine %.4f d); rain %.4f, infiltration %.4f (fine %.4f), runoff "
-              "%.4f (fine %.4f), pond %.2e cm; %ld surface switches; soil balance %.2e cm\n",
-              max_ponded_depth_cm, ponding, fine_ponding, last.water_input_cm, last.infiltration_cm,
-              fine_last.infiltration_cm, last.runoff_cm, fine_last.runoff_cm, last.ponded_depth_cm,
-              run.statistics.surface_switches, soil_balance_error(run, last));
+  SCOPED_TRACE(fmt::format(
+      "max pond {:.2f} cm: ponding at {:.4f} d (fine {:.4f} d); rain {:.4f}, infiltration {:.4f} (fine {:.4f}), runoff "
+      "{:.4f} (fine {:.4f}), pond {:.2e} cm; {} surface switches; soil balance {:.2e} cm",
+      max_ponded_depth_cm, ponding, fine_ponding, last.water_input_cm, last.infiltration_cm, fine_last.infiltration_cm,
+      last.runoff_cm, fine_last.runoff_cm, last.ponded_depth_cm, run.statistics.surface_switches,
+      soil_balance_error(run, last)));
   EXPECT_GT(last.runoff_cm, 0.1 * last.water_input_cm);
   EXPECT_NEAR(last.runoff_cm, fine_last.runoff_cm, 0.01 * fine_last.runoff_cm);
   // After the rain the pond, if any, soaks in.

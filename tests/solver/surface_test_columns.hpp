@@ -13,6 +13,7 @@ namespace wetfront::surface_tests {
 
 // The Carsel & Parrish (1988) test soils, the single-layer profile and the fully named column
 // are shared with the solver verification tests (tests/solver/solver_test_soils.hpp).
+using solver_tests::graded_column;
 using solver_tests::loam;
 using solver_tests::make_column;
 using solver_tests::sand;

@@ -3,11 +3,11 @@
 // surface storage and drainage at the bottom. The stored water of each cell and the boundary
 // amounts are integrated by the same BDF formula, so the balance closes to the accuracy of the
 // nonlinear solve (common practice: a linear multistep method preserves linear invariants).
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 #include <memory>
 
 #include "surface_test_columns.hpp"
@@ -78,13 +78,16 @@ TEST(SeasonBalance, EveryTermPresentAndTheBalanceCloses) {
     EXPECT_NEAR(b.water_input_cm, season_rain().integral(0.0, b.time_days), 1e-9 * (1.0 + b.water_input_cm));
   }
   const auto& last = run.balances.back();
-  std::printf("90 days: rain %.3f, evaporation %.3f (potential %.3f), transpiration %.3f (potential %.3f), runoff %.3f, "
-              "drainage %.3f, at 100 cm %.3f, deepest pond %.3f cm, storage change %.3f cm; worst |error| / throughflow "
-              "%.2e; %ld steps, %ld surface switches\n",
-              last.water_input_cm, last.actual_evaporation_cm, last.potential_evaporation_cm, last.transpiration_cm,
-              season_transpiration().integral(0.0, 90.0), last.runoff_cm, last.bottom_flux_cm, last.plane_flux_cm[0],
-              deepest_pond, last.soil_storage_cm - run.balances.front().soil_storage_cm, worst,
-              run.statistics.steps, run.statistics.surface_switches);
+  SCOPED_TRACE(
+      fmt::format("90 days: rain {:.3f}, evaporation {:.3f} (potential {:.3f}), transpiration {:.3f} (potential "
+                  "{:.3f}), runoff {:.3f}, "
+                  "drainage {:.3f}, at 100 cm {:.3f}, deepest pond {:.3f} cm, storage change {:.3f} cm; worst |error| "
+                  "/ throughflow "
+                  "{:.2e}; {} steps, {} surface switches",
+                  last.water_input_cm, last.actual_evaporation_cm, last.potential_evaporation_cm, last.transpiration_cm,
+                  season_transpiration().integral(0.0, 90.0), last.runoff_cm, last.bottom_flux_cm,
+                  last.plane_flux_cm[0], deepest_pond, last.soil_storage_cm - run.balances.front().soil_storage_cm,
+                  worst, run.statistics.steps, run.statistics.surface_switches));
   // Every term is present.
   EXPECT_GT(last.water_input_cm, 10.0);
   EXPECT_GT(last.actual_evaporation_cm, 1.0);
