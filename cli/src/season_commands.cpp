@@ -11,6 +11,7 @@
 
 #include "wetfront/site/adjustable_parameters.hpp"
 #include "exit_codes.hpp"
+#include "run_file_probe.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
 #include "wetfront/site/report_table.hpp"
@@ -337,6 +338,7 @@ void add_show_command(CLI::App& app) {
         {.outputs = {options->csv, options->sensors_csv}, .inputs = {options->run_file}, .force = options->force});
     profiles::RunRecord record;
     try {
+      probe_run_file(options->run_file);
       record = profiles::read_run(options->run_file);
     } catch (const profiles::RunFileError& error) {
       throw base::InputError(error.what());
