@@ -51,9 +51,9 @@ def load(path):
             "failure": None,
             "time": run["time"][...],
             "cell_depth": run["cell_depth"][...],
-            "head": run["profiles/pressure_head"][...],
-            "water_content": run["profiles/water_content"][...],
-            "sensor_names": [text(n) for n in run["sensors/name"][...]],
+            "head": run["pressure_head"][...],
+            "water_content": run["water_content"][...],
+            "sensor_names": [text(n) for n in run["sensors/sensor"][...]],
             "sensor_depths": run["sensors/depth"][...],
             "balance": {name: run[f"balance/{name}"][...] for name in (
                 "water_input", "actual_evaporation", "transpiration", "runoff", "infiltration",

@@ -5,6 +5,8 @@
 
 #include <fmt/format.h>
 
+#include "cf_variables.hpp"
+
 namespace wetfront::profiles {
 
 namespace {
@@ -53,23 +55,30 @@ void check_stored_water(const StoredWaterRecord& s, std::size_t intervals) {
   if (s.depths_cm.size() < 2) throw std::invalid_argument("stored water needs two or more depths");
 }
 
-h5::Dataset open_dataset(hid_t file, const char* path) {
-  return h5::Dataset(H5Dopen2(file, path, H5P_DEFAULT), fmt::format("opening {}", path));
-}
-
-// A per-interval dataset along /visits/interval_end.
+// A per-interval dataset along the root's interval_end.
 void along_intervals(const h5::Dataset& dataset, const h5::Dataset& interval_end) {
   h5::attach_dimension_scale(dataset, interval_end, 0);
 }
 
 void write_one_text(hid_t parent, std::string_view name, const std::string& text, std::string_view long_name) {
-  h5::write_texts(parent, name, {text}, {"none", long_name});
+  h5::write_text_scalar(parent, name, text, long_name);
 }
 
 void write_one_number(hid_t parent, std::string_view name, double value, std::string_view units,
                       std::string_view long_name) {
-  const double values[1] = {value};
-  h5::write_vector(parent, name, values, {units, long_name});
+  h5::write_double_scalar(parent, name, value, {units, long_name});
+}
+
+using cf::set_depth_attributes;
+
+// The visit intervals as a group's own coordinate.
+struct Intervals {
+  const std::vector<double>& ends;
+  const std::string& time_units;
+};
+
+h5::Dataset write_interval_ends(hid_t group, const Intervals& intervals) {
+  return cf::write_time_axis(group, "interval_end", intervals.ends, intervals.time_units, "end of the visit interval");
 }
 
 void write_agreement(hid_t group, const h5::Dataset& interval_end, const std::vector<double>& amount,
@@ -77,22 +86,26 @@ void write_agreement(hid_t group, const h5::Dataset& interval_end, const std::ve
                      std::string_view amount_long_name) {
   along_intervals(h5::write_vector(group, "amount", amount, {"cm", amount_long_name}), interval_end);
   along_intervals(h5::write_texts(group, "agreement", agreement,
-                                  {"none",
+                                  {"",
                                    "against the model's drainage at the recharge plane: agree, differ (signs differ "
                                    "or one exceeds the other by more than a factor of 2) or no estimate"}),
                   interval_end);
   along_intervals(
-      h5::write_texts(group, "missing", missing, {"none", "why the interval has no estimate (empty when it has one)"}),
+      h5::write_texts(group, "missing", missing, {"", "why the interval has no estimate (empty when it has one)"}),
       interval_end);
 }
 
-void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const h5::Dataset& interval_end) {
+void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const Intervals& intervals) {
   h5::Group group = h5::create_group(parent, "darcy");
-  h5::write_texts(group.id(), "sensor", {d.upper_sensor, d.lower_sensor},
-                  {"none", "tensiometer pair, the upper first"});
+  const h5::Dataset interval_end = write_interval_ends(group.id(), intervals);
+  // The pair as dimension `sensor` (names as its coordinate), their depths along it.
+  h5::Dataset sensor = h5::write_texts(group.id(), "sensor", {d.upper_sensor, d.lower_sensor},
+                                       {"", "tensiometer pair, the upper first"});
+  h5::make_coordinate(sensor);
   const double depths[2] = {d.upper_depth_cm, d.lower_depth_cm};
   h5::Dataset depth = h5::write_vector(group.id(), "sensor_depth", depths, {"cm", "depth of each tensiometer cup"});
-  h5::set_text_attribute(depth.id(), ".", "positive", "down");
+  set_depth_attributes(depth);
+  h5::attach_dimension_scale(depth, sensor, 0);
   write_one_text(
       group.id(), "conductivity_note", d.conductivity_note,
       "which layer's hydraulic model gives the conductivity, at which head, and how an interval's estimate is formed");
@@ -100,8 +113,9 @@ void write_darcy(hid_t parent, const DarcyEstimateRecord& d, const h5::Dataset& 
                   "Darcy estimate of the flow below the pair in the interval (positive downward; NaN: no estimate)");
 }
 
-void write_water_table(hid_t parent, const WaterTableEstimateRecord& w, const h5::Dataset& interval_end) {
+void write_water_table(hid_t parent, const WaterTableEstimateRecord& w, const Intervals& intervals) {
   h5::Group group = h5::create_group(parent, "water_table");
+  const h5::Dataset interval_end = write_interval_ends(group.id(), intervals);
   write_one_text(group.id(), "well", w.well, "observation well read for the water-table level");
   write_one_number(group.id(), "specific_yield", w.specific_yield, "1",
                    "specific yield of the aquifer at the water table");
@@ -120,17 +134,15 @@ void write_water_table(hid_t parent, const WaterTableEstimateRecord& w, const h5
                   "water-table-fluctuation recharge in the interval: specific yield x rise (NaN: no estimate)");
 }
 
-void write_stored_water(hid_t file, const StoredWaterRecord& s, const std::string& time_units,
-                        const h5::Dataset& interval_end) {
+void write_stored_water(hid_t file, const StoredWaterRecord& s, const Intervals& intervals) {
   h5::Group group = h5::create_group(file, "stored_water");
-  h5::Dataset depth =
-      h5::write_vector(group.id(), "depth", s.depths_cm, {"cm", "water-content depths the storage spans"});
-  h5::set_text_attribute(depth.id(), ".", "positive", "down");
-  h5::write_texts(group.id(), "source", s.sources, {"none", "probes and core samples that give the readings"});
-  h5::Dataset time = h5::write_vector(group.id(), "time", s.visit_days,
-                                      {time_units, "the run start and the end of every visit interval"});
-  h5::set_text_attribute(group.id(), "time", "calendar", "standard");
-  h5::make_dimension_scale(time, "stored_water_time");
+  const h5::Dataset interval_end = write_interval_ends(group.id(), intervals);
+  const h5::Dataset depth =
+      cf::write_depth_axis(group.id(), "depth", s.depths_cm, "water-content depths the storage spans");
+  h5::make_coordinate(
+      h5::write_texts(group.id(), "source", s.sources, {"", "probes and core samples that give the readings"}));
+  const h5::Dataset time = cf::write_time_axis(group.id(), "storage_time", s.visit_days, intervals.time_units,
+                                               "the run start and the end of every visit interval");
   h5::attach_dimension_scale(
       h5::write_vector(
           group.id(), "observed", s.observed_cm,
@@ -166,7 +178,7 @@ DarcyEstimateRecord read_darcy(hid_t parent, std::size_t intervals) {
   d.lower_sensor = sensors[1];
   d.upper_depth_cm = depths[0];
   d.lower_depth_cm = depths[1];
-  d.conductivity_note = h5::read_texts_of_length(group.id(), "conductivity_note", 1).front();
+  d.conductivity_note = h5::read_text_scalar(group.id(), "conductivity_note");
   read_agreement(group.id(), intervals, d);
   return d;
 }
@@ -174,10 +186,10 @@ DarcyEstimateRecord read_darcy(hid_t parent, std::size_t intervals) {
 WaterTableEstimateRecord read_water_table(hid_t parent, std::size_t intervals) {
   h5::Group group = h5::open_group(parent, "water_table");
   WaterTableEstimateRecord w;
-  w.well = h5::read_texts_of_length(group.id(), "well", 1).front();
-  w.specific_yield = h5::read_doubles_of_length(group.id(), "specific_yield", 1).front();
-  w.specific_yield_note = h5::read_texts_of_length(group.id(), "specific_yield_note", 1).front();
-  w.recession_cm_per_d = h5::read_doubles_of_length(group.id(), "recession_rate", 1).front();
+  w.well = h5::read_text_scalar(group.id(), "well");
+  w.specific_yield = h5::read_double_scalar(group.id(), "specific_yield");
+  w.specific_yield_note = h5::read_text_scalar(group.id(), "specific_yield_note");
+  w.recession_cm_per_d = h5::read_double_scalar(group.id(), "recession_rate");
   w.start_depth_cm = h5::read_doubles_of_length(group.id(), "start_depth", intervals);
   w.end_depth_cm = h5::read_doubles_of_length(group.id(), "end_depth", intervals);
   read_agreement(group.id(), intervals, w);
@@ -190,7 +202,7 @@ StoredWaterRecord read_stored_water(hid_t file, std::size_t intervals) {
   std::vector<std::size_t> dims;
   s.depths_cm = h5::read_doubles(group.id(), "depth", 1, dims);
   s.sources = h5::read_texts(group.id(), "source");
-  s.visit_days = h5::read_doubles_of_length(group.id(), "time", intervals + 1);
+  s.visit_days = h5::read_doubles_of_length(group.id(), "storage_time", intervals + 1);
   s.observed_cm = h5::read_doubles_of_length(group.id(), "observed", intervals + 1);
   s.simulated_cm = h5::read_doubles_of_length(group.id(), "simulated", intervals + 1);
   s.observed_change_cm = h5::read_doubles_of_length(group.id(), "observed_change", intervals);
@@ -207,15 +219,15 @@ void check_field_checks(const RunRecord& record) {
   if (record.stored_water) check_stored_water(*record.stored_water, intervals);
 }
 
-void write_field_checks(hid_t file, const RunRecord& record, const std::string& time_units) {
-  if (!record.darcy_estimate && !record.water_table_estimate && !record.stored_water) return;
-  h5::Dataset interval_end = open_dataset(file, "visits/interval_end");
+void write_field_checks(hid_t file, const RunRecord& record, const std::string& time_units,
+                        const std::vector<double>& interval_ends) {
+  const Intervals intervals{interval_ends, time_units};
   if (record.darcy_estimate || record.water_table_estimate) {
     h5::Group group = h5::create_group(file, "recharge_estimates");
-    if (record.darcy_estimate) write_darcy(group.id(), *record.darcy_estimate, interval_end);
-    if (record.water_table_estimate) write_water_table(group.id(), *record.water_table_estimate, interval_end);
+    if (record.darcy_estimate) write_darcy(group.id(), *record.darcy_estimate, intervals);
+    if (record.water_table_estimate) write_water_table(group.id(), *record.water_table_estimate, intervals);
   }
-  if (record.stored_water) write_stored_water(file, *record.stored_water, time_units, interval_end);
+  if (record.stored_water) write_stored_water(file, *record.stored_water, intervals);
 }
 
 void read_field_checks(hid_t file, RunRecord& record) {

@@ -3,6 +3,7 @@
 #pragma once
 
 #include <string>
+#include <vector>
 
 #include "hdf5_io.hpp"
 #include "wetfront/profiles/run_record.hpp"
@@ -13,8 +14,10 @@ namespace wetfront::profiles {
 // the field that disagrees.
 void check_field_checks(const RunRecord& record);
 
-// Needs /visits/interval_end written already (the per-interval datasets attach to it).
-void write_field_checks(hid_t file, const RunRecord& record, const std::string& time_units);
+// `interval_ends`: end of each visit interval (days); every group with per-interval variables
+// holds them as its own coordinate `interval_end`.
+void write_field_checks(hid_t file, const RunRecord& record, const std::string& time_units,
+                        const std::vector<double>& interval_ends);
 
 // Fills the three optionals of the record from the file; groups that are absent leave them empty.
 void read_field_checks(hid_t file, RunRecord& record);

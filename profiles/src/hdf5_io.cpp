@@ -14,12 +14,6 @@ namespace wetfront::profiles::hdf5 {
 
 namespace {
 
-std::string child_path(hid_t parent, std::string_view name) {
-  std::string base = object_path(parent);
-  if (base.empty() || base.back() != '/') base += '/';
-  return base + std::string(name);
-}
-
 std::string attribute_path(hid_t location, std::string_view object_name, std::string_view name) {
   const std::string object = object_name == "." ? object_path(location) : child_path(location, object_name);
   return fmt::format("attribute '{}' of {}", name, object);
@@ -49,7 +43,7 @@ Dataset create_dataset(hid_t parent, std::string_view name, hid_t file_type, con
 }
 
 void describe(hid_t parent, std::string_view name, Description about) {
-  set_text_attribute(parent, name, "units", about.units);
+  if (!about.units.empty()) set_text_attribute(parent, name, "units", about.units);
   set_text_attribute(parent, name, "long_name", about.long_name);
 }
 
@@ -105,6 +99,12 @@ void require_single_value(const Attribute& attribute, const std::string& what) {
 }
 
 }  // namespace
+
+std::string child_path(hid_t parent, std::string_view name) {
+  std::string base = object_path(parent);
+  if (base.empty() || base.back() != '/') base += '/';
+  return base + std::string(name);
+}
 
 std::string object_path(hid_t object) {
   const ssize_t length = H5Iget_name(object, nullptr, 0);
@@ -279,15 +279,113 @@ Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::
   return dataset;
 }
 
-void make_dimension_scale(const Dataset& scale, std::string_view axis_name) {
-  check(H5DSset_scale(scale.id(), std::string(axis_name).c_str()),
-        fmt::format("making {} a dimension scale", object_path(scale.id())));
+Dataset write_double_scalar(hid_t parent, std::string_view name, double value, Description about) {
+  Dataspace space = simple_space({});
+  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space, ordered_dataset_properties());
+  check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, &value),
+        fmt::format("writing dataset {}", child_path(parent, name)));
+  describe(parent, name, about);
+  return dataset;
+}
+
+Dataset write_text_scalar(hid_t parent, std::string_view name, const std::string& value, std::string_view long_name) {
+  Dataspace space = simple_space({});
+  Datatype type = variable_length_text_type();
+  Dataset dataset = create_dataset(parent, name, type.id(), space, ordered_dataset_properties());
+  const char* pointer = value.c_str();
+  check(H5Dwrite(dataset.id(), type.id(), H5S_ALL, H5S_ALL, H5P_DEFAULT, &pointer),
+        fmt::format("writing dataset {}", child_path(parent, name)));
+  describe(parent, name, {"", long_name});
+  return dataset;
+}
+
+namespace {
+
+// The last component of an HDF5 path.
+std::string base_name(const std::string& path) {
+  const std::size_t slash = path.rfind('/');
+  return slash == std::string::npos ? path : path.substr(slash + 1);
+}
+
+// The group part of an HDF5 path, ending in '/'.
+std::string group_part(const std::string& path) {
+  const std::size_t slash = path.rfind('/');
+  return slash == std::string::npos ? "/" : path.substr(0, slash + 1);
+}
+
+// netCDF-C's name for a dimension that is not a variable (nc4internal.h, DIM_WITHOUT_VARIABLE),
+// followed by the length in ten places, as the library writes it.
+constexpr std::string_view kDimensionWithoutVariable = "This is a netCDF dimension but not a netCDF variable.";
+
+}  // namespace
+
+void make_coordinate(const Dataset& scale) {
+  const std::string path = object_path(scale.id());
+  check(H5DSset_scale(scale.id(), base_name(path).c_str()), fmt::format("making {} a dimension scale", path));
+}
+
+Dataset make_named_dimension(hid_t parent, std::string_view name, std::size_t length) {
+  const hsize_t dims[1] = {length};
+  Dataspace space = simple_space(dims);
+  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F32BE, space, ordered_dataset_properties());
+  const std::string scale_name = fmt::format("{}{:>10}", kDimensionWithoutVariable, length);
+  check(H5DSset_scale(dataset.id(), scale_name.c_str()),
+        fmt::format("making {} a dimension", child_path(parent, name)));
+  return dataset;
 }
 
 void attach_dimension_scale(const Dataset& dataset, const Dataset& scale, unsigned dimension) {
+  const std::string dataset_path = object_path(dataset.id());
+  const std::string scale_group = group_part(object_path(scale.id()));
+  if (dataset_path.compare(0, scale_group.size(), scale_group) != 0)
+    throw Error(
+        fmt::format("dimension {} is not visible from {} (netCDF-4 allows only scales in the same or an "
+                    "ancestor group)",
+                    object_path(scale.id()), dataset_path));
   check(H5DSattach_scale(dataset.id(), scale.id(), dimension),
         fmt::format("attaching dimension scale {} to dimension {} of {}", object_path(scale.id()), dimension,
                     object_path(dataset.id())));
+}
+
+namespace {
+
+// A group's members in creation order, datasets and groups apart.
+struct Members {
+  std::vector<std::string> datasets, groups;
+};
+
+herr_t sort_member(hid_t group, const char* name, const H5L_info_t*, void* data) {
+  auto* members = static_cast<Members*>(data);
+  H5O_info_t info;
+  if (H5Oget_info_by_name2(group, name, &info, H5O_INFO_BASIC, H5P_DEFAULT) < 0) return -1;
+  if (info.type == H5O_TYPE_GROUP) members->groups.emplace_back(name);
+  if (info.type == H5O_TYPE_DATASET) members->datasets.emplace_back(name);
+  return 0;
+}
+
+// A group's own datasets first, then its groups: the order in which netCDF-C reads them
+// (libhdf5/hdf5open.c, rec_read_metadata).
+void number_in_group(hid_t group, int& next) {
+  Members members;
+  check(H5Literate(group, H5_INDEX_CRT_ORDER, H5_ITER_INC, nullptr, sort_member, &members),
+        fmt::format("listing {}", object_path(group)));
+  for (const std::string& name : members.datasets) {
+    Dataset dataset(H5Dopen2(group, name.c_str(), H5P_DEFAULT), fmt::format("opening {}", child_path(group, name)));
+    const htri_t scale = H5DSis_scale(dataset.id());
+    check(scale, fmt::format("checking {}", object_path(dataset.id())));
+    if (scale > 0) set_int_attribute(dataset.id(), ".", "_Netcdf4Dimid", next++);
+  }
+  for (const std::string& name : members.groups) {
+    Group child(H5Gopen2(group, name.c_str(), H5P_DEFAULT), fmt::format("opening {}", child_path(group, name)));
+    number_in_group(child.id(), next);
+  }
+}
+
+}  // namespace
+
+void number_dimensions(hid_t file) {
+  int next = 0;
+  number_in_group(file, next);
 }
 
 void set_text_attribute(hid_t location, std::string_view object_name, std::string_view name, std::string_view value) {
@@ -388,12 +486,16 @@ std::vector<std::int64_t> read_integers(hid_t parent, std::string_view name, int
   return values;
 }
 
-std::vector<std::string> read_texts(hid_t parent, std::string_view name) {
+namespace {
+
+// Text of a dataset of rank 1, or of rank 0 (one value).
+std::vector<std::string> read_texts_of_rank(hid_t parent, std::string_view name, int rank) {
   Dataset dataset = open_dataset(parent, name);
   const std::string path = object_path(dataset.id());
   Datatype file_type(H5Dget_type(dataset.id()), fmt::format("reading the type of {}", path));
   if (H5Tget_class(file_type.id()) != H5T_STRING) throw Error(fmt::format("dataset {} is not text", path));
-  const std::size_t count = checked_shape(dataset, 1)[0];
+  const std::vector<std::size_t> shape = checked_shape(dataset, rank);
+  const std::size_t count = shape.empty() ? 1 : shape[0];
   std::vector<std::string> values;
   if (count == 0) return values;
   values.reserve(count);
@@ -423,11 +525,24 @@ std::vector<std::string> read_texts(hid_t parent, std::string_view name) {
   return values;
 }
 
+}  // namespace
+
+std::vector<std::string> read_texts(hid_t parent, std::string_view name) { return read_texts_of_rank(parent, name, 1); }
+
+std::string read_text_scalar(hid_t parent, std::string_view name) {
+  return read_texts_of_rank(parent, name, 0).front();
+}
+
+double read_double_scalar(hid_t parent, std::string_view name) {
+  std::vector<std::size_t> dims;
+  return read_doubles(parent, name, 0, dims).front();
+}
+
 namespace {
 
 void require_entries(hid_t parent, std::string_view name, std::size_t entries, std::size_t length) {
   if (entries != length)
-    throw Error(fmt::format("dataset {}/{} has {} entries, expected {}", object_path(parent), name, entries, length));
+    throw Error(fmt::format("dataset {} has {} entries, expected {}", child_path(parent, name), entries, length));
 }
 
 }  // namespace

@@ -36,7 +36,8 @@ Group create_group(hid_t parent, std::string_view name);
 Group open_group(hid_t parent, std::string_view name);
 bool has_link(hid_t parent, std::string_view name);
 
-// Every dataset is written with its `units` and `long_name` attributes.
+// Every dataset is written with its `long_name` attribute and, unless `units` is empty (text),
+// its `units` attribute (UDUNITS-2 text; "1" for a dimensionless number).
 struct Description {
   std::string_view units;
   std::string_view long_name;
@@ -50,9 +51,25 @@ Dataset write_integers(hid_t parent, std::string_view name, std::span<const std:
 Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about);
 Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values, Description about);
 
-// H5DSset_scale on `scale`, then H5DSattach_scale to dimension `dimension` of `dataset`.
-void make_dimension_scale(const Dataset& scale, std::string_view axis_name);
+Dataset write_double_scalar(hid_t parent, std::string_view name, double value, Description about);
+Dataset write_text_scalar(hid_t parent, std::string_view name, const std::string& value, std::string_view long_name);
+
+// The netCDF-4 data model on HDF5 (docs/hdf5-layout.md, "netCDF-4 and CF"): a dimension is a
+// dimension scale; a coordinate variable is a one-dimensional scale whose NAME is its own dataset
+// name; a dimension without values is a scale named by netCDF's fixed phrase and its length.
+// A dataset may only attach to a scale in its own group or an ancestor group.
+// make_coordinate: `scale` (one-dimensional) becomes the coordinate variable of the dimension
+// that carries its dataset name.
+void make_coordinate(const Dataset& scale);
+// A dimension `name` of `length` without values (netCDF's "dimension but not a variable").
+Dataset make_named_dimension(hid_t parent, std::string_view name, std::size_t length);
+// H5DSattach_scale to dimension `dimension` of `dataset`; throws unless the scale is in the
+// dataset's group or an ancestor group.
 void attach_dimension_scale(const Dataset& dataset, const Dataset& scale, unsigned dimension);
+// Gives every dimension scale of the file its `_Netcdf4Dimid`, counting in the order the
+// netCDF-C library meets them (a group's own datasets in creation order, then its groups).
+// Called once, after everything is written.
+void number_dimensions(hid_t file);
 
 // Attributes on the object `object_name` relative to `location` ("." for the location itself).
 void set_text_attribute(hid_t location, std::string_view object_name, std::string_view name, std::string_view value);
@@ -71,6 +88,9 @@ std::vector<double> read_doubles(hid_t parent, std::string_view name, int expect
 std::vector<std::int64_t> read_integers(hid_t parent, std::string_view name, int expected_rank,
                                         std::vector<std::size_t>& dims);
 std::vector<std::string> read_texts(hid_t parent, std::string_view name);
+// A dataset of rank 0 (one value).
+std::string read_text_scalar(hid_t parent, std::string_view name);
+double read_double_scalar(hid_t parent, std::string_view name);
 
 // A one-dimensional dataset that must hold exactly `length` entries; throws Error otherwise.
 std::vector<double> read_doubles_of_length(hid_t parent, std::string_view name, std::size_t length);
@@ -89,5 +109,7 @@ void set_identity_attributes(hid_t file, const FileIdentity& identity);
 
 // Full HDF5 path of an object, for messages.
 std::string object_path(hid_t object);
+// Full HDF5 path of `name` in the group `parent`.
+std::string child_path(hid_t parent, std::string_view name);
 
 }  // namespace wetfront::profiles::hdf5

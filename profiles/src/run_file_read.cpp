@@ -19,8 +19,8 @@ std::vector<double> read_shaped(hid_t parent, std::string_view name, std::vector
   std::vector<std::size_t> dims;
   std::vector<double> values = h5::read_doubles(parent, name, static_cast<int>(expected.size()), dims);
   if (dims != expected)
-    throw h5::Error(fmt::format("dataset {}/{} has shape {}, expected {}", h5::object_path(parent), name,
-                                shape_text(dims), shape_text(expected)));
+    throw h5::Error(fmt::format("dataset {} has shape {}, expected {}", h5::child_path(parent, name), shape_text(dims),
+                                shape_text(expected)));
   return values;
 }
 
@@ -49,16 +49,15 @@ void read_profiles(hid_t file, solver::ColumnRun& run, const std::vector<double>
   run.cell_depths_cm = read_vector(file, "cell_depth");
   run.face_depths_cm = read_shaped(file, "face_depth", {run.cell_depths_cm.size() + 1});
   const std::size_t cells = run.cell_depths_cm.size();
-  h5::Group group = h5::open_group(file, "profiles");
   run.profiles.assign(times.size(), {});
   for (std::size_t t = 0; t < times.size(); ++t) run.profiles[t].time_days = times[t];
   for (const layout::ProfileField& field : layout::kCellFields) {
-    const std::vector<double> matrix = read_shaped(group.id(), field.name, {times.size(), cells});
+    const std::vector<double> matrix = read_shaped(file, field.name, {times.size(), cells});
     for (std::size_t t = 0; t < times.size(); ++t)
       (run.profiles[t].*field.member).assign(matrix.begin() + t * cells, matrix.begin() + (t + 1) * cells);
   }
-  const std::vector<double> flux = read_shaped(group.id(), "face_flux", {times.size(), cells + 1});
-  const std::vector<double> ponded = read_shaped(group.id(), "ponded_depth", {times.size()});
+  const std::vector<double> flux = read_shaped(file, "face_flux", {times.size(), cells + 1});
+  const std::vector<double> ponded = read_shaped(file, "ponded_depth", {times.size()});
   for (std::size_t t = 0; t < times.size(); ++t) {
     run.profiles[t].face_flux_cm_per_d.assign(flux.begin() + t * (cells + 1), flux.begin() + (t + 1) * (cells + 1));
     run.profiles[t].ponded_depth_cm = ponded[t];
@@ -141,7 +140,7 @@ void read_forcing(hid_t inputs, std::vector<ForcingInterval>& forcing) {
 void read_sensors(hid_t file, std::vector<Sensor>& sensors) {
   h5::Group group = h5::open_group(file, "sensors");
   const std::vector<double> depths = read_vector(group.id(), "depth");
-  const std::vector<std::string> names = h5::read_texts_of_length(group.id(), "name", depths.size());
+  const std::vector<std::string> names = h5::read_texts_of_length(group.id(), "sensor", depths.size());
   sensors.assign(depths.size(), {});
   for (std::size_t i = 0; i < depths.size(); ++i) sensors[i] = {names[i], depths[i]};
 }
@@ -151,7 +150,7 @@ std::vector<std::int64_t> read_integer_vector(hid_t parent, std::string_view nam
   std::vector<std::int64_t> values = h5::read_integers(parent, name, 1, dims);
   if (values.size() != length)
     throw h5::Error(
-        fmt::format("dataset {}/{} has {} entries, expected {}", h5::object_path(parent), name, values.size(), length));
+        fmt::format("dataset {} has {} entries, expected {}", h5::child_path(parent, name), values.size(), length));
   return values;
 }
 
@@ -222,9 +221,14 @@ void require_run_record(hid_t file) {
     throw h5::Error(fmt::format("an HDF5 file, but not a wetfront run record (record_format is '{}', expected '{}')",
                                 format, kRecordFormat));
   const int version = h5::get_int_attribute(file, ".", "record_format_version");
-  if (version < 1 || version > kRecordFormatVersion)
-    throw h5::Error(fmt::format("record format version {} is not supported (this program reads 1 to {})", version,
-                                kRecordFormatVersion));
+  // Version 1 kept the profiles in /profiles and attached datasets to scales in other groups,
+  // which netCDF readers refuse; it is not read (run the site again to write the current layout).
+  if (version != kRecordFormatVersion)
+    throw h5::Error(
+        fmt::format("the file has run record layout version {}; this program reads only version {} ({}). "
+                    "Run the site again with this program to write it in the current layout",
+                    version, kRecordFormatVersion,
+                    version < kRecordFormatVersion ? "the netCDF/CF layout" : "a newer program wrote it"));
 }
 
 }  // namespace

@@ -1,7 +1,9 @@
-// Writes a RunRecord as HDF5: root attributes, the time and depth axes as dimension scales,
-// then one group per part of the record (layout in docs/hdf5-layout.md).
+// Writes a RunRecord as a netCDF-4 file (HDF5 with netCDF-4's rules) following the CF
+// conventions: root attributes and the profiles with their coordinates at the root, then one
+// group per part of the record, each with its own coordinates (layout in docs/hdf5-layout.md).
 #include <fmt/format.h>
 
+#include "cf_variables.hpp"
 #include "field_checks_io.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
@@ -14,13 +16,13 @@ namespace {
 
 namespace h5 = hdf5;
 
-// Axes shared by the groups below, kept open so datasets can attach to them.
+// The run's time and depth axes. Each group holds its own copy of the coordinates its
+// variables use, so that a reader opening one group (xarray.open_dataset(path, group=...))
+// finds them there; the root holds those of the profiles.
 struct Axes {
   std::string time_units;
-  h5::Dataset time;
-  h5::Dataset cell_depth;
-  h5::Dataset face_depth;
-  h5::Dataset plane_depth;
+  std::vector<double> times;
+  std::vector<double> interval_ends;  // end of each visit interval
 };
 
 template <typename Row, typename Value>
@@ -31,11 +33,15 @@ std::vector<double> column(const std::vector<Row>& rows, Value Row::*member) {
   return values;
 }
 
-void set_positive_down(const h5::Dataset& depth_axis) {
-  h5::set_text_attribute(depth_axis.id(), ".", "positive", "down");
-}
+using cf::set_depth_attributes;
+using cf::write_depth_axis;
+using cf::write_time_axis;
+using cf::write_times;
 
 void write_root_attributes(hid_t file, const RunRecord& record) {
+  h5::set_text_attribute(file, ".", "Conventions", kConventions);
+  h5::set_text_attribute(file, ".", "title", fmt::format("wetfront run record of {}", record.site_name));
+  h5::set_text_attribute(file, ".", "source", fmt::format("wetfront {}", record.program_version));
   h5::set_identity_attributes(file, {kRecordFormat, kRecordFormatVersion, record.program_version, record.site_name,
                                      record.run_start_date, record.input_hash, record.run_id});
   h5::set_int_attribute(file, ".", "complete", record.run.complete ? 1 : 0);
@@ -47,33 +53,29 @@ void write_root_attributes(hid_t file, const RunRecord& record) {
   h5::set_text_attribute(file, ".", "sign_convention", layout::kSignConvention);
 }
 
-h5::Dataset write_time_axis(hid_t parent, std::string_view name, const std::vector<double>& days,
-                            const std::string& units, std::string_view long_name) {
-  h5::Dataset axis = h5::write_vector(parent, name, days, {units, long_name});
-  h5::set_text_attribute(parent, name, "calendar", "standard");
-  h5::make_dimension_scale(axis, name);
-  return axis;
+Axes axes_of(const RunRecord& record) {
+  return {days_since_units(record.run_start_date), column(record.run.profiles, &solver::ProfileSnapshot::time_days),
+          column(record.visit_balance, &IntervalBalance::end_day)};
 }
 
-Axes write_axes(hid_t file, const RunRecord& record) {
-  const solver::ColumnRun& run = record.run;
-  Axes axes;
-  axes.time_units = days_since_units(record.run_start_date);
-  axes.time = write_time_axis(file, "time", column(run.profiles, &solver::ProfileSnapshot::time_days), axes.time_units,
-                              "output time");
-  axes.cell_depth = h5::write_vector(file, "cell_depth", run.cell_depths_cm,
-                                     {"cm", "depth of the cell centre below the soil surface"});
-  set_positive_down(axes.cell_depth);
-  h5::make_dimension_scale(axes.cell_depth, "cell_depth");
-  axes.face_depth = h5::write_vector(file, "face_depth", run.face_depths_cm,
-                                     {"cm", "depth of the cell face below the soil surface (surface first)"});
-  set_positive_down(axes.face_depth);
-  h5::make_dimension_scale(axes.face_depth, "face_depth");
-  return axes;
+h5::Dataset write_output_times(hid_t parent, const Axes& axes) {
+  return write_time_axis(parent, "time", axes.times, axes.time_units, "output time");
 }
 
+h5::Dataset write_interval_ends(hid_t parent, const Axes& axes) {
+  return write_time_axis(parent, "interval_end", axes.interval_ends, axes.time_units, "end of the visit interval");
+}
+
+h5::Dataset write_plane_depths(hid_t parent, const RunRecord& record) {
+  return write_depth_axis(parent, "plane_depth", record.flux_plane_depths_cm, "depth of the flux plane");
+}
+
+// The state per output time, at the root so that a reader opening the file sees it first.
 void write_profiles(hid_t file, const solver::ColumnRun& run, const Axes& axes) {
-  h5::Group group = h5::create_group(file, "profiles");
+  const h5::Dataset time = write_output_times(file, axes);
+  const h5::Dataset cell_depth = write_depth_axis(file, "cell_depth", run.cell_depths_cm, "depth of the cell centre");
+  const h5::Dataset face_depth =
+      write_depth_axis(file, "face_depth", run.face_depths_cm, "depth of the cell face (surface first)");
   const std::size_t times = run.profiles.size();
   const std::size_t cells = run.cell_depths_cm.size();
   for (const layout::ProfileField& field : layout::kCellFields) {
@@ -81,37 +83,34 @@ void write_profiles(hid_t file, const solver::ColumnRun& run, const Axes& axes) 
     matrix.reserve(times * cells);
     for (const solver::ProfileSnapshot& snapshot : run.profiles)
       matrix.insert(matrix.end(), (snapshot.*field.member).begin(), (snapshot.*field.member).end());
-    h5::Dataset dataset =
-        h5::write_matrix(group.id(), field.name, times, cells, matrix, {field.units, field.long_name});
-    h5::attach_dimension_scale(dataset, axes.time, 0);
-    h5::attach_dimension_scale(dataset, axes.cell_depth, 1);
+    h5::Dataset dataset = h5::write_matrix(file, field.name, times, cells, matrix, {field.units, field.long_name});
+    h5::attach_dimension_scale(dataset, time, 0);
+    h5::attach_dimension_scale(dataset, cell_depth, 1);
   }
   std::vector<double> flux;
   flux.reserve(times * (cells + 1));
   for (const solver::ProfileSnapshot& snapshot : run.profiles)
     flux.insert(flux.end(), snapshot.face_flux_cm_per_d.begin(), snapshot.face_flux_cm_per_d.end());
-  h5::Dataset face_flux = h5::write_matrix(group.id(), "face_flux", times, cells + 1, flux,
+  h5::Dataset face_flux = h5::write_matrix(file, "face_flux", times, cells + 1, flux,
                                            {"cm/d", "Darcy flux across the cell face (positive downward)"});
-  h5::attach_dimension_scale(face_flux, axes.time, 0);
-  h5::attach_dimension_scale(face_flux, axes.face_depth, 1);
+  h5::attach_dimension_scale(face_flux, time, 0);
+  h5::attach_dimension_scale(face_flux, face_depth, 1);
   h5::Dataset ponded =
-      h5::write_vector(group.id(), "ponded_depth", column(run.profiles, &solver::ProfileSnapshot::ponded_depth_cm),
+      h5::write_vector(file, "ponded_depth", column(run.profiles, &solver::ProfileSnapshot::ponded_depth_cm),
                        {"cm", "water held on the soil surface"});
-  h5::attach_dimension_scale(ponded, axes.time, 0);
+  h5::attach_dimension_scale(ponded, time, 0);
 }
 
-void write_balance(hid_t file, const RunRecord& record, Axes& axes) {
+void write_balance(hid_t file, const RunRecord& record, const Axes& axes) {
   const solver::ColumnRun& run = record.run;
   h5::Group group = h5::create_group(file, "balance");
+  const h5::Dataset time = write_output_times(group.id(), axes);
+  const h5::Dataset plane_depth = write_plane_depths(group.id(), record);
   for (const layout::CumulativeTerm& term : layout::kCumulativeTerms) {
     h5::Dataset dataset =
         h5::write_vector(group.id(), term.name, column(run.balances, term.member), {"cm", term.long_name});
-    h5::attach_dimension_scale(dataset, axes.time, 0);
+    h5::attach_dimension_scale(dataset, time, 0);
   }
-  axes.plane_depth = h5::write_vector(group.id(), "plane_depth", record.flux_plane_depths_cm,
-                                      {"cm", "depth of the flux plane below the soil surface"});
-  set_positive_down(axes.plane_depth);
-  h5::make_dimension_scale(axes.plane_depth, "plane_depth");
   const std::size_t planes = record.flux_plane_depths_cm.size();
   std::vector<double> matrix;
   for (const solver::CumulativeBalance& row : run.balances)
@@ -119,18 +118,18 @@ void write_balance(hid_t file, const RunRecord& record, Axes& axes) {
   h5::Dataset plane_flux =
       h5::write_matrix(group.id(), "plane_flux", run.balances.size(), planes, matrix,
                        {"cm", "flow across the flux plane since the run start (positive downward)"});
-  h5::attach_dimension_scale(plane_flux, axes.time, 0);
-  h5::attach_dimension_scale(plane_flux, axes.plane_depth, 1);
+  h5::attach_dimension_scale(plane_flux, time, 0);
+  h5::attach_dimension_scale(plane_flux, plane_depth, 1);
 }
 
 void write_visits(hid_t file, const RunRecord& record, const Axes& axes) {
   h5::Group group = h5::create_group(file, "visits");
   write_time_axis(group.id(), "visit_time", record.visit_days, axes.time_units, "field visit");
+  const h5::Dataset interval_end = write_interval_ends(group.id(), axes);
+  const h5::Dataset plane_depth = write_plane_depths(group.id(), record);
   const std::vector<IntervalBalance>& rows = record.visit_balance;
-  h5::Dataset interval_end = write_time_axis(group.id(), "interval_end", column(rows, &IntervalBalance::end_day),
-                                             axes.time_units, "end of the balance interval");
-  h5::Dataset interval_start = h5::write_vector(group.id(), "interval_start", column(rows, &IntervalBalance::start_day),
-                                                {axes.time_units, "start of the balance interval"});
+  h5::Dataset interval_start = write_times(group.id(), "interval_start", column(rows, &IntervalBalance::start_day),
+                                           axes.time_units, "start of the visit interval");
   h5::attach_dimension_scale(interval_start, interval_end, 0);
   for (const layout::IntervalTerm& term : layout::kIntervalTerms) {
     h5::Dataset dataset = h5::write_vector(group.id(), term.name, column(rows, term.member), {"cm", term.long_name});
@@ -143,18 +142,21 @@ void write_visits(hid_t file, const RunRecord& record, const Axes& axes) {
   h5::Dataset plane_flux = h5::write_matrix(group.id(), "plane_flux", rows.size(), planes, matrix,
                                             {"cm", "flow across the flux plane in the interval (positive downward)"});
   h5::attach_dimension_scale(plane_flux, interval_end, 0);
-  h5::attach_dimension_scale(plane_flux, axes.plane_depth, 1);
+  h5::attach_dimension_scale(plane_flux, plane_depth, 1);
 }
 
 void write_layers(hid_t inputs, const std::vector<LayerDescription>& layers) {
   h5::Group group = h5::create_group(inputs, "layers");
+  const h5::Dataset layer = h5::make_named_dimension(group.id(), "layer", layers.size());
+  const auto along_layers = [&](const h5::Dataset& dataset) { h5::attach_dimension_scale(dataset, layer, 0); };
   h5::Dataset top = h5::write_vector(group.id(), "top_depth", column(layers, &LayerDescription::top_depth_cm),
                                      {"cm", "depth of the top of the layer"});
-  set_positive_down(top);
-  h5::make_dimension_scale(top, "layer_top_depth");
-  const auto attach_to_layer_axis = [&](const h5::Dataset& dataset) { h5::attach_dimension_scale(dataset, top, 0); };
-  attach_to_layer_axis(h5::write_vector(group.id(), "bottom_depth", column(layers, &LayerDescription::bottom_depth_cm),
-                                        {"cm", "depth of the bottom of the layer"}));
+  set_depth_attributes(top);
+  along_layers(top);
+  h5::Dataset bottom = h5::write_vector(group.id(), "bottom_depth", column(layers, &LayerDescription::bottom_depth_cm),
+                                        {"cm", "depth of the bottom of the layer"});
+  set_depth_attributes(bottom);
+  along_layers(bottom);
   std::vector<std::string> names;
   std::vector<std::string> models;
   std::vector<std::int64_t> parameter_layer;
@@ -171,22 +173,26 @@ void write_layers(hid_t inputs, const std::vector<LayerDescription>& layers) {
       parameter_units.push_back(parameter.unit);
     }
   }
-  attach_to_layer_axis(h5::write_texts(group.id(), "name", names, {"none", "layer name"}));
-  attach_to_layer_axis(h5::write_texts(group.id(), "model", models, {"none", "hydraulic property model"}));
-  h5::write_integers(group.id(), "parameter_layer", parameter_layer,
-                     {"1", "index (from 0) of the layer the parameter belongs to"});
-  h5::write_texts(group.id(), "parameter_name", parameter_names, {"none", "hydraulic parameter name"});
-  h5::write_vector(group.id(), "parameter_value", parameter_values,
-                   {"see parameter_unit", "hydraulic parameter value, in the unit given by parameter_unit"});
-  h5::write_texts(group.id(), "parameter_unit", parameter_units, {"none", "unit of the hydraulic parameter"});
+  along_layers(h5::write_texts(group.id(), "name", names, {"", "layer name"}));
+  along_layers(h5::write_texts(group.id(), "model", models, {"", "hydraulic property model"}));
+  const h5::Dataset parameter = h5::make_named_dimension(group.id(), "parameter", parameter_names.size());
+  const auto along_parameters = [&](const h5::Dataset& dataset) { h5::attach_dimension_scale(dataset, parameter, 0); };
+  along_parameters(h5::write_integers(group.id(), "parameter_layer", parameter_layer,
+                                      {"1", "index (from 0) of the layer the parameter belongs to"}));
+  along_parameters(h5::write_texts(group.id(), "parameter_name", parameter_names, {"", "hydraulic parameter name"}));
+  // One variable holds values of several units, so it has no `units`; parameter_unit gives each.
+  along_parameters(h5::write_vector(group.id(), "parameter_value", parameter_values,
+                                    {"", "hydraulic parameter value, in the unit given by parameter_unit"}));
+  along_parameters(
+      h5::write_texts(group.id(), "parameter_unit", parameter_units, {"", "unit of the hydraulic parameter"}));
 }
 
 void write_forcing(hid_t inputs, const std::vector<ForcingInterval>& forcing, const std::string& time_units) {
   h5::Group group = h5::create_group(inputs, "forcing");
   h5::Dataset start = write_time_axis(group.id(), "interval_start", column(forcing, &ForcingInterval::start_day),
                                       time_units, "start of the forcing interval");
-  h5::attach_dimension_scale(h5::write_vector(group.id(), "interval_end", column(forcing, &ForcingInterval::end_day),
-                                              {time_units, "end of the forcing interval"}),
+  h5::attach_dimension_scale(write_times(group.id(), "interval_end", column(forcing, &ForcingInterval::end_day),
+                                         time_units, "end of the forcing interval"),
                              start, 0);
   h5::attach_dimension_scale(
       h5::write_vector(group.id(), "water_input", column(forcing, &ForcingInterval::water_input_cm_per_d),
@@ -202,41 +208,54 @@ void write_forcing(hid_t inputs, const std::vector<ForcingInterval>& forcing, co
                              start, 0);
 }
 
+// Dimension `sensor` with the names as its coordinate; depth is an auxiliary coordinate (two
+// sensors may share a depth, and wells and cores have none of their own).
 void write_sensors(hid_t file, const std::vector<Sensor>& sensors) {
   h5::Group group = h5::create_group(file, "sensors");
   std::vector<std::string> names;
   for (const Sensor& sensor : sensors) names.push_back(sensor.name);
+  h5::Dataset sensor = h5::write_texts(group.id(), "sensor", names, {"", "sensor name"});
+  h5::make_coordinate(sensor);
   h5::Dataset depth = h5::write_vector(group.id(), "depth", column(sensors, &Sensor::depth_cm),
                                        {"cm",
                                         "depth of the sensor below the soil surface (0 for an observation well or core "
                                         "samples, whose readings carry their own depths)"});
-  set_positive_down(depth);
-  h5::make_dimension_scale(depth, "sensor_depth");
-  h5::attach_dimension_scale(h5::write_texts(group.id(), "name", names, {"none", "sensor name"}), depth, 0);
+  set_depth_attributes(depth);
+  h5::attach_dimension_scale(depth, sensor, 0);
 }
 
 void write_compared(hid_t parent, std::string_view name, const std::vector<ComparedReading>& readings,
                     std::string_view unit, std::string_view quantity, const std::string& time_units) {
   if (readings.empty()) return;
   h5::Group group = h5::create_group(parent, name);
+  const h5::Dataset reading = h5::make_named_dimension(group.id(), "reading", readings.size());
+  const auto along_readings = [&](const h5::Dataset& dataset) { h5::attach_dimension_scale(dataset, reading, 0); };
   std::vector<std::string> sensors;
   std::vector<std::int64_t> used;
   for (const auto& r : readings) {
     sensors.push_back(r.sensor);
     used.push_back(r.used ? 1 : 0);
   }
-  h5::write_texts(group.id(), "sensor", sensors, {"none", "name of the sensor that took the reading"});
-  h5::write_vector(group.id(), "time", column(readings, &ComparedReading::time_days),
-                   {time_units, "time of the reading"});
-  set_positive_down(h5::write_vector(group.id(), "depth", column(readings, &ComparedReading::depth_cm),
-                                     {"cm", "depth of the sensor below the soil surface"}));
-  h5::write_vector(group.id(), "observed", column(readings, &ComparedReading::observed),
-                   {unit, fmt::format("{} from the reading", quantity)});
-  h5::write_vector(group.id(), "simulated", column(readings, &ComparedReading::simulated),
-                   {unit, fmt::format("simulated {} at the reading's time and depth (NaN outside the run)", quantity)});
-  h5::write_integers(
+  along_readings(h5::write_texts(group.id(), "sensor", sensors, {"", "name of the sensor that took the reading"}));
+  along_readings(write_times(group.id(), "time", column(readings, &ComparedReading::time_days), time_units,
+                             "time of the reading"));
+  h5::Dataset depth = h5::write_vector(group.id(), "depth", column(readings, &ComparedReading::depth_cm),
+                                       {"cm", "depth of the sensor below the soil surface"});
+  set_depth_attributes(depth);
+  along_readings(depth);
+  h5::Dataset observed = h5::write_vector(group.id(), "observed", column(readings, &ComparedReading::observed),
+                                          {unit, fmt::format("{} from the reading", quantity)});
+  h5::Dataset simulated = h5::write_vector(
+      group.id(), "simulated", column(readings, &ComparedReading::simulated),
+      {unit, fmt::format("simulated {} at the reading's time and depth (NaN outside the run)", quantity)});
+  for (const h5::Dataset* values : {&observed, &simulated}) {
+    along_readings(*values);
+    h5::set_text_attribute(values->id(), ".", "coordinates", "time depth sensor");
+  }
+  along_readings(h5::write_integers(
       group.id(), "used", used,
-      {"1", "1 when the reading is in the fit metrics, 0 when left out (beyond the working limit or outside the run)"});
+      {"1",
+       "1 when the reading is in the fit metrics, 0 when left out (beyond the working limit or outside the run)"}));
 }
 
 void write_sensor_comparison(hid_t file, const SensorComparisonRecord& comparison, const std::string& time_units) {
@@ -245,6 +264,8 @@ void write_sensor_comparison(hid_t file, const SensorComparisonRecord& compariso
   write_compared(group.id(), "water_content", comparison.water_content, "cm3/cm3", "water content", time_units);
   h5::Group metrics = h5::create_group(group.id(), "metrics");
   const auto& rows = comparison.metrics;
+  const h5::Dataset row = h5::make_named_dimension(metrics.id(), "row", rows.size());
+  const auto along_rows = [&](const h5::Dataset& dataset) { h5::attach_dimension_scale(dataset, row, 0); };
   std::vector<std::string> names, quantities, units;
   std::vector<std::int64_t> used, beyond, outside;
   for (const auto& r : rows) {
@@ -255,24 +276,30 @@ void write_sensor_comparison(hid_t file, const SensorComparisonRecord& compariso
     beyond.push_back(r.left_out_beyond_working_limit);
     outside.push_back(r.left_out_outside_run);
   }
-  h5::write_texts(metrics.id(), "name", names, {"none", "sensor name, or all sensors of one kind pooled"});
-  h5::write_texts(metrics.id(), "quantity", quantities, {"none", "quantity compared"});
-  h5::write_texts(metrics.id(), "unit", units, {"none", "unit of the quantity, of bias and of root_mean_square_error"});
-  set_positive_down(h5::write_vector(metrics.id(), "depth", column(rows, &SensorMetrics::depth_cm),
-                                     {"cm", "depth of the sensor below the soil surface (NaN for pooled rows)"}));
-  h5::write_integers(metrics.id(), "readings_used", used, {"1", "readings paired with simulated values"});
-  h5::write_integers(metrics.id(), "left_out_beyond_working_limit", beyond,
-                     {"1", "tensiometer readings beyond the working limit, left out"});
-  h5::write_integers(metrics.id(), "left_out_outside_run", outside,
-                     {"1", "readings outside the time the run covers, left out"});
-  h5::write_vector(metrics.id(), "bias", column(rows, &SensorMetrics::bias),
-                   {"see unit", "mean of simulated minus observed, in the unit given by unit"});
-  h5::write_vector(metrics.id(), "root_mean_square_error", column(rows, &SensorMetrics::root_mean_square_error),
-                   {"see unit", "root mean square of simulated minus observed, in the unit given by unit"});
-  h5::write_vector(metrics.id(), "nash_sutcliffe", column(rows, &SensorMetrics::nash_sutcliffe),
-                   {"1", "Nash-Sutcliffe efficiency (NaN when undefined)"});
-  h5::write_vector(metrics.id(), "kling_gupta", column(rows, &SensorMetrics::kling_gupta),
-                   {"1", "Kling-Gupta efficiency (NaN when undefined)"});
+  along_rows(h5::write_texts(metrics.id(), "name", names, {"", "sensor name, or all sensors of one kind pooled"}));
+  along_rows(h5::write_texts(metrics.id(), "quantity", quantities, {"", "quantity compared"}));
+  along_rows(h5::write_texts(metrics.id(), "unit", units,
+                             {"", "unit of the quantity, of bias and of root_mean_square_error"}));
+  h5::Dataset depth = h5::write_vector(metrics.id(), "depth", column(rows, &SensorMetrics::depth_cm),
+                                       {"cm", "depth of the sensor below the soil surface (NaN for pooled rows)"});
+  set_depth_attributes(depth);
+  along_rows(depth);
+  along_rows(h5::write_integers(metrics.id(), "readings_used", used, {"1", "readings paired with simulated values"}));
+  along_rows(h5::write_integers(metrics.id(), "left_out_beyond_working_limit", beyond,
+                                {"1", "tensiometer readings beyond the working limit, left out"}));
+  along_rows(h5::write_integers(metrics.id(), "left_out_outside_run", outside,
+                                {"1", "readings outside the time the run covers, left out"}));
+  // Rows of heads and of water contents share these columns, so they carry no `units`; `unit`
+  // names each row's.
+  along_rows(h5::write_vector(metrics.id(), "bias", column(rows, &SensorMetrics::bias),
+                              {"", "mean of simulated minus observed, in the unit given by unit"}));
+  along_rows(h5::write_vector(metrics.id(), "root_mean_square_error",
+                              column(rows, &SensorMetrics::root_mean_square_error),
+                              {"", "root mean square of simulated minus observed, in the unit given by unit"}));
+  along_rows(h5::write_vector(metrics.id(), "nash_sutcliffe", column(rows, &SensorMetrics::nash_sutcliffe),
+                              {"1", "Nash-Sutcliffe efficiency (NaN when undefined)"}));
+  along_rows(h5::write_vector(metrics.id(), "kling_gupta", column(rows, &SensorMetrics::kling_gupta),
+                              {"1", "Kling-Gupta efficiency (NaN when undefined)"}));
 }
 
 void write_statistics(hid_t file, const solver::RunStatistics& statistics) {
@@ -293,7 +320,7 @@ void write_statistics(hid_t file, const solver::RunStatistics& statistics) {
 
 void write_contents(hid_t file, const RunRecord& record) {
   write_root_attributes(file, record);
-  Axes axes = write_axes(file, record);
+  const Axes axes = axes_of(record);
   write_profiles(file, record.run, axes);
   write_balance(file, record, axes);
   write_visits(file, record, axes);
@@ -304,8 +331,9 @@ void write_contents(hid_t file, const RunRecord& record) {
   }
   write_sensors(file, record.sensors);
   if (record.sensor_comparison) write_sensor_comparison(file, *record.sensor_comparison, axes.time_units);
-  write_field_checks(file, record, axes.time_units);
+  write_field_checks(file, record, axes.time_units, axes.interval_ends);
   write_statistics(file, record.run.statistics);
+  h5::number_dimensions(file);
 }
 
 }  // namespace

@@ -14,9 +14,17 @@ namespace {
 
 namespace h5 = hdf5;
 
+// CF standard name and calendar on a column of times (units "days since ...").
+void set_time_attributes(hid_t group, const StudyColumn& column) {
+  if (column.units.rfind("days since ", 0) != 0) return;
+  h5::set_text_attribute(group, column.name, "standard_name", "time");
+  h5::set_text_attribute(group, column.name, "calendar", "standard");
+}
+
 h5::Dataset write_axis(hid_t group, const StudyColumn& axis) {
   h5::Dataset dataset = h5::write_vector(group, axis.name, axis.values, {axis.units, axis.long_name});
-  h5::make_dimension_scale(dataset, axis.name);
+  set_time_attributes(group, axis);
+  h5::make_coordinate(dataset);
   return dataset;
 }
 
@@ -64,12 +72,16 @@ void write_study_run(hid_t runs, const StudyRun& study_run, const std::string& t
   std::vector<double> times;
   for (const auto& snapshot : run.profiles) times.push_back(snapshot.time_days);
   const h5::Dataset time = h5::write_vector(group.id(), "time", times, {time_units, "output time"});
+  h5::set_text_attribute(group.id(), "time", "standard_name", "time");
   h5::set_text_attribute(group.id(), "time", "calendar", "standard");
-  h5::make_dimension_scale(time, "time");
+  h5::set_text_attribute(group.id(), "time", "axis", "T");
+  h5::make_coordinate(time);
   const h5::Dataset depth = h5::write_vector(group.id(), "cell_depth", run.cell_depths_cm,
                                              {"cm", "depth of the cell centre below the soil surface"});
+  h5::set_text_attribute(group.id(), "cell_depth", "standard_name", "depth");
   h5::set_text_attribute(group.id(), "cell_depth", "positive", "down");
-  h5::make_dimension_scale(depth, "cell_depth");
+  h5::set_text_attribute(group.id(), "cell_depth", "axis", "Z");
+  h5::make_coordinate(depth);
   const auto matrix_of = [&](auto member) {
     std::vector<double> values;
     for (const auto& snapshot : run.profiles)
@@ -89,6 +101,9 @@ void write_study_run(hid_t runs, const StudyRun& study_run, const std::string& t
 }
 
 void write_contents(hid_t file, const StudyRecord& record) {
+  h5::set_text_attribute(file, ".", "Conventions", kConventions);
+  h5::set_text_attribute(file, ".", "title", fmt::format("wetfront {} of {}", record.study_kind, record.site_name));
+  h5::set_text_attribute(file, ".", "source", fmt::format("wetfront {}", record.program_version));
   h5::set_identity_attributes(file, {kStudyFormat, kStudyFormatVersion, record.program_version, record.site_name,
                                      record.run_start_date, record.input_hash, record.run_id});
   h5::set_text_attribute(file, ".", "study_kind", record.study_kind);
@@ -100,6 +115,7 @@ void write_contents(hid_t file, const StudyRecord& record) {
     h5::Group runs = h5::create_group(file, "runs");
     for (const StudyRun& run : record.runs) write_study_run(runs.id(), run, time_units);
   }
+  h5::number_dimensions(file);
 }
 
 }  // namespace

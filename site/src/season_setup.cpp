@@ -124,7 +124,12 @@ forcing::CoveredSeries pan_rate(const SiteSetup& site, std::vector<std::string>&
 // readings are compared with the integrator's dense output rather than a time interpolation.
 std::vector<double> output_days(const SiteSetup& site, double end_day, const std::vector<SensorRecord>& sensors) {
   std::vector<double> days;
-  for (double t = 0; t < end_day - 1e-9; t += site.output_interval_days) days.push_back(t);
+  // start + index x interval: repeated addition would store 0.30000000000000004 for 0.1 x 3.
+  for (std::size_t i = 0;; ++i) {
+    const double t = static_cast<double>(i) * site.output_interval_days;
+    if (!(t < end_day - 1e-9)) break;
+    days.push_back(t);
+  }
   days.push_back(end_day);
   for (const double visit : site.visit_days) {
     if (visit <= end_day + 1e-9) days.push_back(std::min(visit, end_day));

@@ -48,9 +48,9 @@ profiles::StudyTable parameter_table(const SeasonModel& model) {
   profiles::StudyTextColumn names{"name", "layer and key, or site key", {}};
   profiles::StudyTextColumn units{"unit", "unit of the values of this parameter", {}};
   profiles::StudyTextColumn scales{"scale", "search scale: linear, or log (log10 of the value)", {}};
-  StudyColumn lower{"lower", "see unit", "lower end of the range", {}};
-  StudyColumn upper{"upper", "see unit", "upper end of the range", {}};
-  StudyColumn site_value{"site_value", "see unit", "value in the site file", {}};
+  StudyColumn lower{"lower", "", "lower end of the range, in the unit given by unit", {}};
+  StudyColumn upper{"upper", "", "upper end of the range, in the unit given by unit", {}};
+  StudyColumn site_value{"site_value", "", "value in the site file, in the unit given by unit", {}};
   for (std::size_t k = 0; k < parameters.size(); ++k) {
     const auto& r = parameters[k].range;
     table.axis.values.push_back(static_cast<double>(k + 1));
@@ -113,7 +113,8 @@ void write_sweep_file(const std::filesystem::path& path, const SeasonModel& mode
   const auto& parameters = model.study().parameters;
   StudyColumn parameter_axis{"parameter_number", "1", "number of the adjustable parameter", {}};
   for (std::size_t k = 0; k < parameters.size(); ++k) parameter_axis.values.push_back(static_cast<double>(k + 1));
-  profiles::StudyMatrix values{"values", "see /parameters/unit", "parameter values of the set", parameter_axis, {}};
+  profiles::StudyMatrix values{
+      "values", "", "parameter values of the set, in the units given by /parameters/unit", parameter_axis, {}};
   profiles::StudyMatrix recharge{"interval_recharge",
                                  "cm",
                                  "water across the recharge plane per visit interval (positive downward)",
@@ -169,10 +170,10 @@ void write_calibration_file(const std::filesystem::path& path, const SeasonModel
 
   profiles::StudyTable parameters = parameter_table(model);
   const auto n = fit.parameters.size();
-  StudyColumn start{"start", "see unit", "value the calibration started from", fit.start};
-  StudyColumn best{"calibrated", "see unit", "calibrated value", fit.best};
-  StudyColumn best_search{"calibrated_search_value", "see search_unit", "calibrated value on the search scale", {}};
-  StudyColumn se{"standard_error", "see search_unit", "standard error on the search scale (NaN when unavailable)", {}};
+  StudyColumn start{"start", "", "value the calibration started from, in the unit given by unit", fit.start};
+  StudyColumn best{"calibrated", "", "calibrated value, in the unit given by unit", fit.best};
+  StudyColumn best_search{"calibrated_search_value", "", "calibrated value on the search scale, in search_unit", {}};
+  StudyColumn se{"standard_error", "", "standard error on the search scale, in search_unit (NaN when unavailable)", {}};
   profiles::StudyTextColumn search_unit{
       "search_unit", "unit on the search scale: the parameter's unit, or log10 of it", {}};
   for (std::size_t k = 0; k < n; ++k) {
@@ -190,8 +191,10 @@ void write_calibration_file(const std::filesystem::path& path, const SeasonModel
     std::vector<double> covariance(fit.covariance.data(), fit.covariance.data() + fit.covariance.size());
     std::vector<double> correlation(fit.correlation.data(), fit.correlation.data() + fit.correlation.size());
     // Both are symmetric, so column-major storage reads the same row-major.
-    parameters.matrices.push_back({"covariance", "product of the two parameters' search_unit",
-                                   "covariance of the calibrated values on the search scale", axis, covariance});
+    parameters.matrices.push_back({"covariance", "",
+                                   "covariance of the calibrated values on the search scale, in the product of the two "
+                                   "parameters' search_unit",
+                                   axis, covariance});
     parameters.matrices.push_back({"correlation", "1", "correlation of the calibrated values", axis, correlation});
   }
   record.tables.push_back(std::move(parameters));

@@ -101,6 +101,7 @@ ColumnModel::ColumnModel(const ColumnProblem& problem)
 
 void ColumnModel::begin_period(double t) {
   period_start_ = t;
+  switch_margin_ = kSwitchMargin;
   if (const auto* lf = std::get_if<LimitedFlux>(&top_)) {
     water_input_ = lf->water_input_cm_per_d.at(t);
     potential_evaporation_ = lf->potential_evaporation_cm_per_d.at(t);
@@ -368,8 +369,15 @@ void ColumnModel::error_weights(std::span<const double> y, std::span<double> wei
     const double stored = cell_storage(i, y);
     double tol = settings_.absolute_tolerance_storage_cm + settings_.relative_tolerance * std::abs(stored);
     const auto p = cell_table_[i]->at(stored * inverse_thickness_[i]);
-    if (p.conductivity >= 0.01 * saturated_conductivity_[i] && p.head_per_storage > 0)
-      tol = std::min(tol, settings_.head_tolerance_cm * grid_.cell_thickness_cm(i) / p.head_per_storage);
+    if (p.head_per_storage > 0) {
+      // Any cell: its head may err by a fraction of itself (binds in dry cells, where dh/dS is
+      // so large that a storage tolerance alone let thin surface cells reach -1e7 cm).
+      const double head_error = settings_.head_relative_tolerance * (std::abs(p.head_cm) + 1.0);
+      const double per_storage = p.head_per_storage * inverse_thickness_[i];
+      tol = std::min(tol, head_error / per_storage);
+      if (p.conductivity >= 0.01 * saturated_conductivity_[i])
+        tol = std::min(tol, settings_.head_tolerance_cm / per_storage);
+    }
     return tol;
   };
   double above = tolerance(0);
@@ -390,13 +398,14 @@ void ColumnModel::events(double t, std::span<const double> y, std::span<double> 
   if (atmospheric_ && surface_ != SurfaceMode::head) {
     const auto top = cell_point(0, y);
     const double net = net_input();
-    const double flux_margin = 1e-10 * (1.0 + std::abs(net));
+    const double flux_margin = switch_margin_ * (1.0 + std::abs(net));
     const double depth_margin = 1e-12;
+    const double widened = switch_margin_ > kSwitchMargin ? flux_margin : 0.0;  // flux mode: no margin unless widened
     double& limit = g[surface_limit_event];
     switch (surface_) {
       case SurfaceMode::flux:
-        if (net > 0) limit = head_limited_flux(0.0, top).flux - net;              // capacity falls below supply
-        if (net < 0) limit = net - head_limited_flux(dry_limit_head_, top).flux;  // demand exceeds what soil gives
+        if (net > 0) limit = head_limited_flux(0.0, top).flux - net + widened;              // capacity below supply
+        if (net < 0) limit = net - head_limited_flux(dry_limit_head_, top).flux + widened;  // demand above what soil gives
         break;
       case SurfaceMode::ponded: {
         const double pond = surface_accounts(t, y).ponded_depth;

@@ -90,8 +90,10 @@ class ColumnModel {
   // relative tolerance of it plus the absolute tolerance; where the cell conducts (K at least
   // 1 % of Ks, so its head drives real flow) also by no more than the head tolerance's worth of
   // storage, dS = dh / (dh/dS). Near saturation dh/dS is 1 / (Ss dz), so without that cap a
-  // storage tolerance lets heads err by metres when Ss is small. A face or sink amount takes
-  // the tighter tolerance of the cells it changes.
+  // storage tolerance lets heads err by metres when Ss is small. Every cell's head may also err
+  // by no more than the relative head tolerance of |h| + 1 cm: in dry cells dh/dS is so large
+  // that a storage tolerance alone lets heads err by orders of magnitude. A face or sink amount
+  // takes the tighter tolerance of the cells it changes.
   void error_weights(std::span<const double> y, std::span<double> weights) const;
 
   // Events: needs only the surface cell (and the bottom cell for a seepage face).
@@ -101,6 +103,11 @@ class ColumnModel {
   // At a period start: choose the modes that fit the state (new forcing may change them).
   void choose_modes(double t, std::span<const double> y);
   SurfaceMode surface_mode() const { return surface_; }
+  // After a surface switch undone at once (the limit only touched its threshold, or the soil
+  // holds the surface right at it), the switch thresholds widen from 1e-10 to 1e-4 of the flux
+  // scale until the next forcing period: the surface keeps its mode until the flux has clearly
+  // crossed, instead of switching back and forth without end.
+  void widen_switch_margins() { switch_margin_ = 1e-4; }
 
   // Diagnostics at a state.
   double cell_storage(std::size_t cell, std::span<const double> y) const {
@@ -159,6 +166,8 @@ class ColumnModel {
   // Forcing held over the current period.
   double water_input_ = 0, potential_evaporation_ = 0, prescribed_flux_ = 0, prescribed_head_ = 0;
   double period_start_ = 0;
+  static constexpr double kSwitchMargin = 1e-10;  // of the flux scale 1 + |net input| (cm/d)
+  double switch_margin_ = kSwitchMargin;
   SurfaceMode surface_ = SurfaceMode::flux;
   BottomMode bottom_ = BottomMode::normal;
 

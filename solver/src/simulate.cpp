@@ -118,8 +118,10 @@ class Integrator {
     detail::check_flag(IDARootInit(mem, detail::event_count, event_fn), "IDARootInit");
     const int directions[detail::event_count] = {-1, -1, -1};
     detail::check_flag(IDASetRootDirection(mem, const_cast<int*>(directions)), "IDASetRootDirection");
+    // Short runs of hard cases (ponding on dry clay) may need many steps in their first hours:
+    // the limit never falls below ten days' worth.
     step_budget_ = static_cast<long>(
-        std::max(1.0, problem.end_day - problem.start_day) * static_cast<double>(s.max_steps_per_day));
+        std::max(10.0, problem.end_day - problem.start_day) * static_cast<double>(s.max_steps_per_day));
   }
 
   ColumnRun run() {
@@ -190,10 +192,12 @@ class Integrator {
       const auto before = model_.surface_mode();
       model_.rebase(t, view(y_.get()));  // the surface accounts close under the old mode
       if (model_.switch_mode(slot, t, view(y_.get()))) {
-        const bool undone = std::abs(t - last_switch_time_) <= 1e-9 && model_.surface_mode() == mode_before_last_switch_;
+        const bool reversed = model_.surface_mode() == mode_before_last_switch_ && t - last_switch_time_ <= 1e-6;
+        const bool undone = reversed && t - last_switch_time_ <= 1e-9;
         stats_.surface_switches += undone ? -1 : 1;
+        if (reversed) model_.widen_switch_margins();  // back within 0.1 s: the surface sits at the threshold
         mode_before_last_switch_ = before;
-        last_switch_time_ = undone ? -1.0 : t;
+        last_switch_time_ = undone ? kNever : t;
       } else {
         ++stats_.bottom_switches;
       }
@@ -308,7 +312,8 @@ class Integrator {
   double initial_storage_ = 0;
   std::size_t next_output_ = 0;
   long steps_ = 0, step_budget_ = 0;
-  double last_switch_time_ = -1.0;
+  static constexpr double kNever = -1e300;
+  double last_switch_time_ = kNever;
   detail::SurfaceMode mode_before_last_switch_ = detail::SurfaceMode::flux;
   RunStatistics stats_, counted_;
 };

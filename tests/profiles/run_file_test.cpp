@@ -10,6 +10,7 @@
 
 #include <filesystem>
 #include <fstream>
+#include <set>
 
 #include "record_comparison.hpp"
 #include "sample_record.hpp"
@@ -107,7 +108,7 @@ TEST_F(RunFileTest, RunWithoutPlanesSensorsOrOutputsRoundTrips) {
   round_trip(written, "empty.h5");
 }
 
-// Every dataset in the file has `units` and `long_name` text attributes.
+// Every dataset in the file, by path.
 herr_t collect_dataset(hid_t group, const char* name, const H5L_info_t*, void* data) {
   const hid_t object = H5Oopen(group, name, H5P_DEFAULT);
   if (object < 0) return -1;
@@ -116,7 +117,27 @@ herr_t collect_dataset(hid_t group, const char* name, const H5L_info_t*, void* d
   return 0;
 }
 
-TEST_F(RunFileTest, EveryDatasetCarriesUnitsAndLongName) {
+// A dimension without values: a scale whose NAME is netCDF-C's fixed phrase
+// (nc4internal.h, DIM_WITHOUT_VARIABLE).
+bool is_named_dimension(hid_t file, const std::string& name) {
+  char text[128] = {};
+  if (H5Aexists_by_name(file, name.c_str(), "NAME", H5P_DEFAULT) <= 0) return false;
+  if (H5LTget_attribute_string(file, name.c_str(), "NAME", text) < 0) return false;
+  return std::string(text).rfind("This is a netCDF dimension but not a netCDF variable.", 0) == 0;
+}
+
+bool is_text(hid_t file, const std::string& name) {
+  const hid_t dataset = H5Dopen2(file, name.c_str(), H5P_DEFAULT);
+  const hid_t type = H5Dget_type(dataset);
+  const bool text = H5Tget_class(type) == H5T_STRING;
+  H5Tclose(type);
+  H5Dclose(dataset);
+  return text;
+}
+
+// CF: every variable has a long_name; numbers have UDUNITS-2 units, text has none (CF-1.10
+// section 3.1: units are not required for text). The named dimensions are not variables.
+TEST_F(RunFileTest, EveryVariableCarriesLongNameAndNumbersCarryUnits) {
   const fs::path path = directory_ / "season.h5";
   write_run(path, testing::sample_record());
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
@@ -124,15 +145,25 @@ TEST_F(RunFileTest, EveryDatasetCarriesUnitsAndLongName) {
   std::vector<std::string> datasets;
   ASSERT_GE(H5Lvisit(file, H5_INDEX_NAME, H5_ITER_INC, collect_dataset, &datasets), 0);
   EXPECT_GE(datasets.size(), 40u);
+  const std::set<std::string> without_units = {"inputs/layers/parameter_value", "sensor_comparison/metrics/bias",
+                                               "sensor_comparison/metrics/root_mean_square_error"};
   for (const std::string& name : datasets) {
-    EXPECT_GT(H5Aexists_by_name(file, name.c_str(), "units", H5P_DEFAULT), 0) << name;
+    if (is_named_dimension(file, name)) {
+      EXPECT_EQ(H5Aexists_by_name(file, name.c_str(), "long_name", H5P_DEFAULT), 0) << name;
+      continue;
+    }
     EXPECT_GT(H5Aexists_by_name(file, name.c_str(), "long_name", H5P_DEFAULT), 0) << name;
+    const bool needs_units = !is_text(file, name) && without_units.count(name) == 0;
+    EXPECT_EQ(H5Aexists_by_name(file, name.c_str(), "units", H5P_DEFAULT) > 0, needs_units) << name;
   }
+  char conventions[32] = {};
+  ASSERT_GE(H5LTget_attribute_string(file, ".", "Conventions", conventions), 0);
+  EXPECT_STREQ(conventions, "CF-1.10");
   char units[64] = {};
   ASSERT_GE(H5LTget_attribute_string(file, "time", "units", units), 0);
   EXPECT_STREQ(units, "days since 2025-04-01");
   // The profile datasets are attached to the time and cell-depth scales.
-  const hid_t head = H5Dopen2(file, "profiles/pressure_head", H5P_DEFAULT);
+  const hid_t head = H5Dopen2(file, "pressure_head", H5P_DEFAULT);
   const hid_t time = H5Dopen2(file, "time", H5P_DEFAULT);
   const hid_t depth = H5Dopen2(file, "cell_depth", H5P_DEFAULT);
   EXPECT_GT(H5DSis_attached(head, time, 0), 0);
@@ -267,20 +298,25 @@ TEST_F(RunFileTest, RecordChecksNameTheField) {
   EXPECT_NE(check_message(short_storage).find("stored water has 4 visit times, expected 5"), std::string::npos);
 }
 
-TEST_F(RunFileTest, FieldChecksAttachToTheVisitIntervalAxis) {
+// netCDF-4 lets a variable use only dimensions of its own or an ancestor group; each group with
+// per-interval variables holds the visit intervals as its own coordinate.
+TEST_F(RunFileTest, FieldChecksUseTheirGroupsVisitIntervalAxis) {
   const fs::path path = directory_ / "season.h5";
   write_run(path, testing::sample_record());
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
   ASSERT_GE(file, 0);
-  const hid_t interval_end = H5Dopen2(file, "visits/interval_end", H5P_DEFAULT);
-  for (const char* name : {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
-                           "recharge_estimates/water_table/end_depth", "stored_water/observed_change"}) {
+  for (const char* name :
+       {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
+        "recharge_estimates/water_table/end_depth", "stored_water/observed_change", "visits/water_input"}) {
+    const std::string group = fs::path(name).parent_path().string();
+    const hid_t interval_end = H5Dopen2(file, (group + "/interval_end").c_str(), H5P_DEFAULT);
+    ASSERT_GE(interval_end, 0) << group;
     const hid_t dataset = H5Dopen2(file, name, H5P_DEFAULT);
     ASSERT_GE(dataset, 0) << name;
     EXPECT_GT(H5DSis_attached(dataset, interval_end, 0), 0) << name;
     H5Dclose(dataset);
+    H5Dclose(interval_end);
   }
-  H5Dclose(interval_end);
   H5Fclose(file);
   const RunRecord back = read_run(path);
   ASSERT_TRUE(back.water_table_estimate.has_value());
@@ -318,17 +354,32 @@ TEST_F(RunFileTest, ReadingAForeignHdf5FileSaysItIsNotARunRecord) {
 TEST_F(RunFileTest, ReadingAMisshapedDatasetNamesIt) {
   const fs::path path = directory_ / "season.h5";
   write_run(path, testing::sample_record());
-  // Replace /profiles/water_content with one of the wrong shape.
+  // Replace /water_content with one of the wrong shape.
   const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDWR, H5P_DEFAULT);
   ASSERT_GE(file, 0);
-  ASSERT_GE(H5Ldelete(file, "profiles/water_content", H5P_DEFAULT), 0);
+  ASSERT_GE(H5Ldelete(file, "water_content", H5P_DEFAULT), 0);
   const hsize_t dims[2] = {31, 19};
   std::vector<double> values(31 * 19, 0.3);
-  ASSERT_GE(H5LTmake_dataset_double(file, "profiles/water_content", 2, dims, values.data()), 0);
+  ASSERT_GE(H5LTmake_dataset_double(file, "water_content", 2, dims, values.data()), 0);
   H5Fclose(file);
   const std::string message = message_of([&] { read_run(path); });
-  EXPECT_NE(message.find("dataset /profiles/water_content has shape 31 x 19, expected 31 x 20"), std::string::npos)
-      << message;
+  EXPECT_NE(message.find("dataset /water_content has shape 31 x 19, expected 31 x 20"), std::string::npos) << message;
+}
+
+// A file of the first layout (profiles in /profiles, scales shared across groups) is refused
+// with its layout version named, not half read.
+TEST_F(RunFileTest, ReadingAnEarlierLayoutNamesItsVersion) {
+  const fs::path path = directory_ / "season.h5";
+  write_run(path, testing::sample_record());
+  const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDWR, H5P_DEFAULT);
+  ASSERT_GE(file, 0);
+  const int old_version = 1;
+  ASSERT_GE(H5LTset_attribute_int(file, ".", "record_format_version", &old_version, 1), 0);
+  H5Fclose(file);
+  const std::string message = message_of([&] { read_run(path); });
+  EXPECT_NE(message.find("run record layout version 1"), std::string::npos) << message;
+  EXPECT_NE(message.find("reads only version 2"), std::string::npos) << message;
+  EXPECT_NE(message.find(path.string()), std::string::npos) << message;
 }
 
 }  // namespace

@@ -1,5 +1,5 @@
 """The HDF5 files of `wetfront sweep` and `wetfront calibrate`, read by h5py: every dataset has
-units and long_name, tables hang on dimension scales, and the numbers agree with the CSV.
+a long_name and every number its units, tables hang on dimension scales, and the numbers agree with the CSV.
 
 Usage: h5py_reads_study_files.py WETFRONT DEMO_FOLDER
 """
@@ -20,9 +20,15 @@ def every_dataset(group):
 
 
 def check_described(f):
+    """long_name everywhere; units on numbers, except columns of mixed units whose long_name
+    names the column that gives each row's unit; no units on text (CF-1.10)."""
     for dataset in every_dataset(f):
-        assert "units" in dataset.attrs, f"{dataset.name} has no units"
         assert "long_name" in dataset.attrs, f"{dataset.name} has no long_name"
+        if dataset.dtype.kind in "OSU":
+            assert "units" not in dataset.attrs, f"text {dataset.name} has units"
+        elif "units" not in dataset.attrs:
+            long_name = text(dataset.attrs["long_name"])
+            assert "unit" in long_name, f"{dataset.name} has no units and its long_name names none"
 
 
 def scale_name(dataset, dimension):

@@ -17,7 +17,10 @@ class RunFileError : public std::runtime_error {
 
 // Root attribute `record_format` carries this text; `record_format_version` the version.
 inline constexpr const char* kRecordFormat = "wetfront run record";
-inline constexpr int kRecordFormatVersion = 1;
+// Version 2: netCDF-4 with the CF conventions (docs/hdf5-layout.md); version 1 files are refused.
+inline constexpr int kRecordFormatVersion = 2;
+// Root attribute `Conventions` of run and study files.
+inline constexpr const char* kConventions = "CF-1.10";
 
 // Throws std::invalid_argument naming the first inconsistent field (shapes that disagree
 // with the grid, times out of order, an unreadable run start date, ...).

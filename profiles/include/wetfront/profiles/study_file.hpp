@@ -18,7 +18,7 @@ inline constexpr int kStudyFormatVersion = 1;
 
 struct StudyColumn {
   std::string name;
-  std::string units;  // "1" for a plain number
+  std::string units;  // UDUNITS-2 text, "1" for a plain number; empty: no units (values of mixed units)
   std::string long_name;
   std::vector<double> values;  // one per row of the table
 };
