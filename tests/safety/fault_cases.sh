@@ -210,8 +210,8 @@ case_run_file_size_limit() {
 # --- damaged or misplaced inputs ----------------------------------------------------------
 case_show_damaged_run_file() { first_run; head -c 3000 site.h5 > cut.h5; refused 1 "cut\.h5" show cut.h5; }
 case_show_run_file_is_a_folder() { mkdir r.h5; refused 1 "r\.h5.*is a folder" show r.h5; }
-# Found by fuzz/fuzz_run_file: a run file whose heap of variable-length strings is corrupt crashes
-# Debian's libhdf5 (H5HG_read); `show` reads it first in a child process and says it is damaged.
+# Found by fuzzing the run-file reader: a damaged run file (bytes changed at random) crashes
+# Debian's libhdf5 with signal 11; `show` reads it first in a child process and says it is damaged.
 case_show_file_that_crashes_hdf5() {
   cp "$DATA"/run-file-corrupt-text-heap.h5 damaged.h5
   refused 1 "damaged\.h5: the run file is damaged: the HDF5 library failed while reading it" show damaged.h5
