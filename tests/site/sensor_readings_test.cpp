@@ -295,7 +295,7 @@ INSTANTIATE_TEST_SUITE_P(
     Cases, BadReadingsFile,
     ::testing::Values(
         BadReadings{"tensiometer-60cm.csv", "2025-04-15T09:00,", "2025-04-15 nine,", "ISO 8601"},
-        BadReadings{"tensiometer-60cm.csv", "2025-04-15T09:00,7.1", "2025-04-15T09:00,dry", "expected a number"},
+        BadReadings{"tensiometer-60cm.csv", "2025-04-15T09:00,7.0", "2025-04-15T09:00,dry", "expected a number"},
         BadReadings{"tensiometer-90cm.csv", "2025-04-15T09:00,", "2025-04-01T09:00,", "times must increase"},
         BadReadings{"tensiometer-90cm.csv", "time,tension_kPa", "time,tension", "unit"},
         BadReadings{"tensiometer-120cm.csv", "time,tension_kPa", "time,suction_kPa", "tension"},
