@@ -6,12 +6,14 @@
 
 #include <fmt/format.h>
 
+#include "command_output.hpp"
 #include "exit_codes.hpp"
 #include "season_report.hpp"
 #include "sensor_report.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/site/network.hpp"
+#include "wetfront/site/output_files.hpp"
 #include "wetfront/site/report_table.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
 
@@ -86,21 +88,34 @@ ReportTable intervals_table(const std::vector<NetworkSite>& sites) {
 
 // The site's own files, as `wetfront run` writes them: SITE.h5 beside the site file, with
 // SITE-visits.csv and, with sensors, SITE-sensors.csv.
-void write_site_files(const SeasonResult& result) {
+OutputPlan site_outputs(const SiteSetup& setup, bool force) {
+  std::filesystem::path out = setup.site_file;
+  out.replace_extension(".h5");
+  const std::filesystem::path stem = out.parent_path() / out.stem();
+  return {.outputs = {out, with_suffix(stem, "-visits.csv"), with_suffix(stem, "-sensors.csv")},
+          .inputs = site_input_files(setup),
+          .force = force};
+}
+
+void write_site_files(const SeasonResult& result, bool force) {
+  const OutputPlan plan = site_outputs(result.season.site, force);
+  const OutputGuard guard(plan);
   // The HDF5 library is not built thread-safe: one site's files at a time.
   static std::mutex hdf5_lock;
   const std::lock_guard lock(hdf5_lock);
-  std::filesystem::path out = result.season.site.site_file;
-  out.replace_extension(".h5");
-  const std::filesystem::path visits = with_suffix(out.parent_path() / out.stem(), "-visits.csv");
-  const std::filesystem::path sensors_csv = with_suffix(out.parent_path() / out.stem(), "-sensors.csv");
+  const std::filesystem::path& out = plan.outputs[0];
+  const std::filesystem::path& visits = plan.outputs[1];
+  const std::filesystem::path& sensors_csv = plan.outputs[2];
+  profiles::RunRecord record = result.record;
+  record.run_id = new_run_id();
   const bool metrics = !result.sensors.sensors.empty() || !result.sensors.pooled.empty();
   std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
-      {visits, visit_balance_table(result.record, &result.sensors)}};
+      {visits, visit_balance_table(record, &result.sensors)}};
   if (metrics) tables.push_back({sensors_csv, sensor_metrics_table(result.sensors)});
+  for (auto& table : tables) table.second.run_id = record.run_id;
   write_files_together(tables, [&] {
     try {
-      profiles::write_run(out, result.record);
+      profiles::write_run(out, record);
     } catch (const profiles::RunFileError& error) {
       throw base::InputError(error.what());
     }
@@ -117,6 +132,7 @@ void add_network_command(CLI::App& app) {
     std::string summary;
     unsigned threads = 0;
     bool quiet = false;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = app.add_subcommand("network", "Run the seasons of many plots and summarise them side by side");
@@ -129,6 +145,8 @@ void add_network_command(CLI::App& app) {
                   "current folder with --sites)");
   cmd->add_option("--threads", options->threads, "worker threads (default 0: all cores); results do not depend on it");
   cmd->add_flag("--quiet", options->quiet, "print only errors and the failed sites");
+  cmd->add_flag("--force", options->force,
+                "replace output files that wetfront did not write (files the runs read are never replaced)");
   cmd->footer(
       "Runs every site as `wetfront run` would and writes its run file and CSV tables beside its site file;\n"
       "then writes the summary: NAME-sites.csv (one row per site), NAME-intervals.csv (one row per site and\n"
@@ -138,7 +156,7 @@ void add_network_command(CLI::App& app) {
       "failed (the summary names them; the others' files are written).\n"
       "Examples:\n  wetfront network examples/network/network.toml\n"
       "  wetfront network --sites a/site.toml b/site.toml --summary plots");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
     NetworkPlan plan;
     if (!options->network.empty()) {
       plan = load_network_file(options->network);
@@ -148,24 +166,31 @@ void add_network_command(CLI::App& app) {
       std::vector<std::filesystem::path> files(options->sites.begin(), options->sites.end());
       plan = network_of_sites(std::move(files), options->summary.empty() ? "network" : options->summary);
     }
+    const std::filesystem::path h5 = with_suffix(plan.summary, ".h5");
+    const std::filesystem::path sites_csv = with_suffix(plan.summary, "-sites.csv");
+    const std::filesystem::path intervals_csv = with_suffix(plan.summary, "-intervals.csv");
+    // Before any run: the summary's folder, the files read, files of other programs, another writer.
+    const auto guard = guard_outputs(*cmd, {h5, sites_csv, intervals_csv}, options->force, plan.site_files);
     const unsigned threads = studies::thread_count(options->threads);
     if (!options->quiet)
       fmt::print(stderr, "wetfront: {} sites on {} threads\n", plan.site_files.size(),
                  std::min<std::size_t>(threads, plan.site_files.size()));
     const bool quiet = options->quiet;
     const std::size_t total = plan.site_files.size();
+    const bool force = options->force;
     const std::vector<NetworkSite> results = run_network(
-        plan, threads, WETFRONT_VERSION, write_site_files, [quiet, total](std::size_t done, const NetworkSite& s) {
+        plan, threads, WETFRONT_VERSION, [force](const SeasonResult& r) { write_site_files(r, force); },
+        [quiet, total](std::size_t done, const NetworkSite& s) {
           if (!quiet) fmt::print(stderr, "wetfront: [{}/{}] {}: {}\n", done, total, s.name, status_text(s.status));
-        });
-    const ReportTable per_site = sites_table(results);
-    const ReportTable per_interval = intervals_table(results);
-    const std::filesystem::path h5 = with_suffix(plan.summary, ".h5");
-    const std::filesystem::path sites_csv = with_suffix(plan.summary, "-sites.csv");
-    const std::filesystem::path intervals_csv = with_suffix(plan.summary, "-intervals.csv");
+        },
+        [force](const SiteSetup& setup) { check_outputs(site_outputs(setup, force)); });
+    const std::string run_id = new_run_id();
+    ReportTable per_site = sites_table(results);
+    ReportTable per_interval = intervals_table(results);
+    per_site.run_id = per_interval.run_id = run_id;
     write_files_together({{sites_csv, per_site}, {intervals_csv, per_interval}}, [&] {
       try {
-        profiles::write_study(h5, network_record(plan, results, WETFRONT_VERSION));
+        profiles::write_study(h5, network_record(plan, results, WETFRONT_VERSION, run_id));
       } catch (const profiles::RunFileError& error) {
         throw base::InputError(error.what());
       }

@@ -157,7 +157,8 @@ NetworkSite summarise_site(const std::filesystem::path& site_file, const SeasonR
 }
 
 std::vector<NetworkSite> run_network(const NetworkPlan& plan, unsigned threads, const std::string& program_version,
-                                     const SiteFinished& finished, const NetworkProgress& progress) {
+                                     const SiteFinished& finished, const NetworkProgress& progress,
+                                     const SiteStarting& starting) {
   std::vector<NetworkSite> sites(plan.site_files.size());
   std::mutex progress_lock;
   std::size_t done = 0;
@@ -170,6 +171,7 @@ std::vector<NetworkSite> run_network(const NetworkPlan& plan, unsigned threads, 
     try {
       const SiteSetup setup = load_site_file(file);
       site.name = setup.name;
+      if (starting) starting(setup);
       const SeasonResult result = run_season(setup, program_version);
       site = summarise_site(file, result);
       if (finished) {
@@ -197,13 +199,14 @@ std::vector<NetworkSite> run_network(const NetworkPlan& plan, unsigned threads, 
 }
 
 profiles::StudyRecord network_record(const NetworkPlan& plan, const std::vector<NetworkSite>& sites,
-                                     const std::string& program_version) {
+                                     const std::string& program_version, const std::string& run_id) {
   using profiles::StudyColumn;
   using profiles::StudyTextColumn;
   profiles::StudyRecord record;
   record.study_kind = "plot network";
   record.site_name = plan.name;
   record.program_version = program_version;
+  record.run_id = run_id;
   record.run_start_date = "1970-01-01";  // no common time axis: every date is stored as text
   for (const auto& s : sites) {
     if (s.has_run()) {

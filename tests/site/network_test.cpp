@@ -132,6 +132,17 @@ TEST(Network, SummaryInAMissingFolderIsBadInputAndRunsNothing) {
   EXPECT_FALSE(fs::exists(network.folder() / "plot-c.h5"));
 }
 
+TEST(Network, FileOfAnotherProgramIsNotReplaced) {
+  const ScratchNetwork network;
+  write_text(network.folder() / "plot-b-visits.csv", "kept as it is\n");
+  const auto result = testing::run_program("network '" + network.network_file().string() + "'", network.folder());
+  EXPECT_EQ(result.exit_code, 4) << result.err;
+  EXPECT_NE(result.err.find("plot-b-visits.csv"), std::string::npos) << result.err;
+  EXPECT_EQ(read_text(network.folder() / "plot-b-visits.csv"), "kept as it is\n");
+  EXPECT_FALSE(fs::exists(network.folder() / "plot-b.h5"));
+  EXPECT_TRUE(fs::exists(network.folder() / "plot-a.h5"));
+}
+
 TEST(Network, SiteListedTwiceIsBadInput) {
   const ScratchNetwork network;
   write_text(network.network_file(), "sites = [\"plot-a.toml\", \"plot-b.toml\", \"plot-a.toml\"]\n");

@@ -63,6 +63,9 @@ struct NetworkSite {
   bool has_run() const { return status == SiteStatus::done || status == SiteStatus::solver_failure; }
 };
 
+// Called on a worker thread with each site's setup before its run, e.g. to check that its
+// files may be written. What it throws makes the site a failure (bad input) and it is not run.
+using SiteStarting = std::function<void(const SiteSetup&)>;
 // Called on a worker thread with each site's finished (or partially finished) run, e.g. to
 // write its own files. What it throws makes the site a failure (bad input) with that reason;
 // its summary values stay, but has_run() is then false.
@@ -76,10 +79,11 @@ NetworkSite summarise_site(const std::filesystem::path& site_file, const SeasonR
 // Runs every site of the plan on studies::thread_count(threads) threads. The result lists the
 // sites in plan order and does not depend on the number of threads.
 std::vector<NetworkSite> run_network(const NetworkPlan& plan, unsigned threads, const std::string& program_version,
-                                     const SiteFinished& finished = {}, const NetworkProgress& progress = {});
+                                     const SiteFinished& finished = {}, const NetworkProgress& progress = {},
+                                     const SiteStarting& starting = {});
 
 // The summary as the tables of an HDF5 file (layout in docs/hdf5-layout.md, "Network summary").
 profiles::StudyRecord network_record(const NetworkPlan& plan, const std::vector<NetworkSite>& sites,
-                                     const std::string& program_version);
+                                     const std::string& program_version, const std::string& run_id = {});
 
 }  // namespace wetfront::site
