@@ -116,9 +116,7 @@ NetworkSite summarise_site(const std::filesystem::path& site_file, const SeasonR
   site.status = result.complete ? SiteStatus::done : SiteStatus::solver_failure;
   if (!result.complete) {
     const auto& failure = record.run.failure;
-    site.reason = failure ? fmt::format("the solver failed at day {:.4f} near {} cm: {}", failure->time_days,
-                                        failure->depth_cm, failure->reason)
-                          : std::string("the solver stopped early");
+    site.reason = failure && !failure->reason.empty() ? failure->reason : std::string("the solver stopped early");
   }
   site.run_start = record.run_start_date;
   site.input_hash = record.input_hash;

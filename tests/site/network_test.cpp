@@ -132,6 +132,30 @@ TEST(Network, SummaryInAMissingFolderIsBadInputAndRunsNothing) {
   EXPECT_FALSE(fs::exists(network.folder() / "plot-c.h5"));
 }
 
+TEST(Network, SolverFailureIsReportedAndTheOthersFinish) {
+  const ScratchNetwork network;
+  // Plot C over three weeks with a largest time step so short that the solver's work limit stops it.
+  std::string text = read_text(network.folder() / "plot-c.toml");
+  const auto visits = text.find("visits = [");
+  const auto visits_end = text.find(']', visits);
+  ASSERT_NE(visits, std::string::npos);
+  text.replace(visits, visits_end + 1 - visits, "visits = [\"2025-04-08\"]");
+  for (const auto& [from, to] : {std::pair<std::string, std::string>{"end = \"2025-10-18\"", "end = \"2025-04-20\""},
+                                 {"max_step = \"1 d\"", "max_step = \"0.00001 d\""}}) {
+    const auto at = text.find(from);
+    ASSERT_NE(at, std::string::npos) << from;
+    text.replace(at, from.size(), to);
+  }
+  write_text(network.folder() / "plot-c.toml", text);
+  const auto sites = run_network(load_network_file(network.network_file()), 2, "test");
+  ASSERT_EQ(sites.size(), 3u);
+  EXPECT_EQ(sites[0].status, SiteStatus::done) << sites[0].reason;
+  EXPECT_EQ(sites[1].status, SiteStatus::done) << sites[1].reason;
+  EXPECT_EQ(sites[2].status, SiteStatus::solver_failure);
+  EXPECT_NE(sites[2].reason.find("time steps"), std::string::npos) << sites[2].reason;
+  EXPECT_LT(sites[2].run_end, "2025-04-20");
+}
+
 TEST(Network, FileOfAnotherProgramIsNotReplaced) {
   const ScratchNetwork network;
   write_text(network.folder() / "plot-b-visits.csv", "kept as it is\n");
