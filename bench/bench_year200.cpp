@@ -13,6 +13,7 @@
 #include <fmt/format.h>
 
 #include "picard_scheme.hpp"
+#include "timed_runs.hpp"
 #include "year200_column.hpp"
 
 namespace {
@@ -32,18 +33,7 @@ bench::DailyHeads picard_heads(const bench::PicardRun& run) {
   return rows;
 }
 
-void year200_wetfront(benchmark::State& state) {
-  solver::RunStatistics stats;
-  for (auto _ : state) {
-    const auto run = solver::simulate(column());
-    if (!run.complete) state.SkipWithError("run did not complete");
-    stats = run.statistics;
-    benchmark::DoNotOptimize(run.balances.back().bottom_flux_cm);
-  }
-  state.counters["steps"] = static_cast<double>(stats.steps);
-  state.counters["iterations"] = static_cast<double>(stats.nonlinear_iterations);
-  state.counters["jacobians"] = static_cast<double>(stats.jacobian_evaluations);
-}
+void year200_wetfront(benchmark::State& state) { bench::time_runs(state, column()); }
 BENCHMARK(year200_wetfront)->Unit(benchmark::kMillisecond)->Repetitions(5)->ReportAggregatesOnly(true);
 
 void year200_picard(benchmark::State& state) {

@@ -69,6 +69,9 @@ CsvColumn parse_header_cell(const std::string& cell, const std::string& path, st
 }  // namespace
 
 CsvTable CsvTable::read(const std::filesystem::path& path) {
+  std::error_code error;
+  if (std::filesystem::is_directory(path, error))
+    throw InputError(path.string(), 0, "", "is a folder, not a CSV file; give the name of a file");
   std::ifstream in(path);
   if (!in) throw InputError(path.string(), 0, "", "cannot open the file for reading");
   return parse(in, path.string());
@@ -81,6 +84,8 @@ CsvTable CsvTable::parse(std::istream& in, const std::string& source) {
   std::size_t line_number = 0;
   while (std::getline(in, line)) {
     ++line_number;
+    // A UTF-8 byte-order mark, as spreadsheet "CSV UTF-8" exports write it: invisible, not data.
+    if (line_number == 1 && line.rfind("\xEF\xBB\xBF", 0) == 0) line.erase(0, 3);
     if (!line.empty() && line.back() == '\r') line.pop_back();
     const std::string trimmed = trim(line);
     if (trimmed.empty() || trimmed.front() == '#') continue;

@@ -20,4 +20,35 @@ void emit_report(const std::vector<ReportTable>& tables, const std::vector<std::
   }
 }
 
+void add_force_flag(CLI::App* cmd, bool& force) {
+  cmd->add_flag("--force", force, "replace output files that wetfront did not write (never a file the command reads)");
+}
+
+std::vector<std::filesystem::path> files_named_by(const CLI::App& cmd) {
+  std::vector<std::filesystem::path> files;
+  const auto collect = [&](const CLI::App& app) {
+    for (const CLI::Option* option : app.get_options()) {
+      if (option->check_lname("out") || option->check_lname("output") || option->check_lname("csv") ||
+          option->check_lname("sensors-csv"))
+        continue;
+      for (const std::string& value : option->results()) {
+        std::error_code error;
+        if (!value.empty() && std::filesystem::is_regular_file(value, error)) files.emplace_back(value);
+      }
+    }
+  };
+  collect(cmd);
+  for (const CLI::App* group : cmd.get_subcommands([](const CLI::App* app) { return app->get_name().empty(); }))
+    collect(*group);
+  return files;
+}
+
+std::unique_ptr<OutputGuard> guard_outputs(const CLI::App& cmd, std::vector<std::filesystem::path> outputs, bool force,
+                                           std::vector<std::filesystem::path> more_inputs) {
+  std::vector<std::filesystem::path> inputs = files_named_by(cmd);
+  inputs.insert(inputs.end(), more_inputs.begin(), more_inputs.end());
+  return std::make_unique<OutputGuard>(
+      OutputPlan{.outputs = std::move(outputs), .inputs = std::move(inputs), .force = force});
+}
+
 }  // namespace wetfront::cli

@@ -1,9 +1,15 @@
-// Printing a command's tables and warnings, and writing its results table on --csv.
+// Printing a command's tables and warnings, writing its results table on --csv, and guarding the
+// files a command writes.
 #pragma once
 
+#include <filesystem>
+#include <memory>
 #include <string>
 #include <vector>
 
+#include <CLI/CLI.hpp>
+
+#include "wetfront/site/output_files.hpp"
 #include "wetfront/site/report_table.hpp"
 
 namespace wetfront::cli {
@@ -12,5 +18,17 @@ namespace wetfront::cli {
 // "warning: ...", and writes the last table to csv_path when it is not empty.
 void emit_report(const std::vector<site::ReportTable>& tables, const std::vector<std::string>& warnings,
                  const std::string& csv_path);
+
+// Adds the --force flag (replace output files that wetfront did not write) to `cmd`.
+void add_force_flag(CLI::App* cmd, bool& force);
+
+// Every existing file named by an option or argument of `cmd` (its option groups included) other
+// than the output options --out, --output, --csv and --sensors-csv: the files the command reads.
+std::vector<std::filesystem::path> files_named_by(const CLI::App& cmd);
+
+// site::OutputGuard over `outputs`, with the files named on the command line and `more_inputs`
+// as inputs. Call it before any work; keep the result for as long as the command writes.
+std::unique_ptr<site::OutputGuard> guard_outputs(const CLI::App& cmd, std::vector<std::filesystem::path> outputs,
+                                                 bool force, std::vector<std::filesystem::path> more_inputs = {});
 
 }  // namespace wetfront::cli

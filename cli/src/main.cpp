@@ -5,6 +5,7 @@
 #include "run_app.hpp"
 #include "season_commands.hpp"
 #include "soil_commands.hpp"
+#include "wetfront/profiles/file_save.hpp"
 
 int main(int argc, char** argv) {
   CLI::App app{
@@ -13,6 +14,7 @@ int main(int argc, char** argv) {
       "wetfront"};
   app.set_version_flag("--version", std::string("wetfront ") + WETFRONT_VERSION);
   app.require_subcommand(1);
+  wetfront::profiles::silence_hdf5_error_printing();  // failures are reported in our own words
   wetfront::cli::add_soil_commands(app);
   wetfront::cli::add_season_commands(app);
   wetfront::cli::add_parameter_commands(app);

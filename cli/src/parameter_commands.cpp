@@ -9,6 +9,7 @@
 
 #include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
+#include "wetfront/site/output_files.hpp"
 #include "wetfront/site/parameter_study.hpp"
 #include "wetfront/site/study_output.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
@@ -71,6 +72,7 @@ struct CommonOptions {
   unsigned threads = 0;
   std::uint64_t seed = 1;
   bool quiet = false;
+  bool force = false;
 };
 
 void add_common(CLI::App* cmd, CommonOptions& o, const std::string& default_out) {
@@ -82,6 +84,14 @@ void add_common(CLI::App* cmd, CommonOptions& o, const std::string& default_out)
   cmd->add_option("--threads", o.threads, "threads to run on (default: all cores); results do not depend on it");
   cmd->add_option("--seed", o.seed, "seed of the random draws (default 1); the same seed gives the same sets");
   cmd->add_flag("--quiet", o.quiet, "print only errors");
+  cmd->add_flag("--force", o.force,
+                "replace output files that wetfront did not write (files the runs read are never replaced)");
+}
+
+// Before any run: the output folder, the files read, files of other programs, another writer.
+OutputPlan output_plan(const CommonOptions& o, const SeasonModel& model, const std::filesystem::path& out,
+                       const std::filesystem::path& csv) {
+  return {.outputs = {out, csv}, .inputs = site_input_files(model.site()), .force = o.force};
 }
 
 SeasonModel load_model(const CommonOptions& o) {
@@ -118,6 +128,8 @@ void add_sweep_command(CLI::App& app) {
   cmd->callback([o] {
     const SeasonModel model = load_model(*o);
     const std::filesystem::path out = o->out.empty() ? sibling(o->site, "-sweep.h5") : std::filesystem::path(o->out);
+    const std::filesystem::path csv = sibling(out, ".csv");
+    const OutputGuard guard(output_plan(*o, model, out, csv));
     ProgressLine progress(o->quiet);
     SweepSettings settings{.full_grid = o->grid, .sample_size = o->sample, .seed = o->seed, .threads = o->threads};
     SweepResult sweep;
@@ -131,9 +143,11 @@ void add_sweep_command(CLI::App& app) {
     progress.finish();
     const unsigned threads =
         std::min<unsigned>(studies::thread_count(o->threads), static_cast<unsigned>(sweep.runs.size()));
-    const std::filesystem::path csv = sibling(out, ".csv");
-    write_files_together({{csv, sweep_table(model, sweep)}},
-                         [&] { write_sweep_file(out, model, sweep, o->kept, o->threads, WETFRONT_VERSION); });
+    const std::string run_id = new_run_id();
+    ReportTable table = sweep_table(model, sweep);
+    table.run_id = run_id;
+    write_files_together({{csv, table}},
+                         [&] { write_sweep_file(out, model, sweep, o->kept, o->threads, WETFRONT_VERSION, run_id); });
     if (!o->quiet) {
       fmt::print("{}", sweep_report(model, sweep, o->shown, seconds, threads));
       fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
@@ -162,6 +176,8 @@ void add_calibrate_command(CLI::App& app) {
     const SeasonModel model = load_model(*o);
     const std::filesystem::path out =
         o->out.empty() ? sibling(o->site, "-calibration.h5") : std::filesystem::path(o->out);
+    const std::filesystem::path csv = sibling(out, ".csv");
+    const OutputGuard guard(output_plan(*o, model, out, csv));
     ProgressLine progress(o->quiet);
     CalibrationSettings settings;
     settings.options.max_runs = o->max_runs;
@@ -179,9 +195,10 @@ void add_calibrate_command(CLI::App& app) {
     }
     const double seconds = progress.seconds();
     progress.finish();
-    const std::filesystem::path csv = sibling(out, ".csv");
-    write_files_together({{csv, calibration_recharge_table(model, study)}},
-                         [&] { write_calibration_file(out, model, study, WETFRONT_VERSION); });
+    const std::string run_id = new_run_id();
+    ReportTable table = calibration_recharge_table(model, study);
+    table.run_id = run_id;
+    write_files_together({{csv, table}}, [&] { write_calibration_file(out, model, study, WETFRONT_VERSION, run_id); });
     if (!o->quiet) {
       fmt::print("{}", calibration_report(model, study, seconds, studies::thread_count(o->threads)));
       fmt::print("\nWrote {} and {}\n", out.string(), csv.string());

@@ -11,11 +11,13 @@
 
 #include "wetfront/site/adjustable_parameters.hpp"
 #include "exit_codes.hpp"
+#include "run_file_probe.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
 #include "wetfront/site/report_table.hpp"
 #include "season_report.hpp"
 #include "wetfront/site/grid_check.hpp"
+#include "wetfront/site/output_files.hpp"
 #include "wetfront/site/run_season.hpp"
 #include "wetfront/site/season_setup.hpp"
 #include "wetfront/site/sensor_check.hpp"
@@ -185,6 +187,7 @@ void add_run_command(CLI::App& app) {
     std::string to;
     bool quiet = false;
     bool grid_check = false;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = app.add_subcommand("run", "Simulate the season at a site and report its water balance");
@@ -196,6 +199,8 @@ void add_run_command(CLI::App& app) {
   cmd->add_flag("--grid-check", options->grid_check,
                 "also run the season on cells of half the size and report how much recharge and the simulated sensor "
                 "values change");
+  cmd->add_flag("--force", options->force,
+                "replace output files that wetfront did not write (files the run reads are never replaced)");
   cmd->footer(
       "Writes the run file and, next to it, NAME-visits.csv with the balance per visit interval and, with\n"
       "sensor readings, NAME-sensors.csv with the fit metrics per sensor.\n"
@@ -203,9 +208,14 @@ void add_run_command(CLI::App& app) {
       "Example:\n  wetfront run examples/demo/site.toml --out season.h5");
   cmd->callback([options] {
     const std::filesystem::path site_file = options->site;
-    Season season = prepare_season(load_site_file(site_file, {options->from, options->to}));
+    SiteSetup site = load_site_file(site_file, {options->from, options->to});
     const std::filesystem::path out =
         options->out.empty() ? default_output(site_file) : std::filesystem::path(options->out);
+    // Before any work: the folder, the files read, files of other programs, another writer.
+    const OutputGuard guard({.outputs = {out, visits_csv_path(out), sensors_csv_path(out)},
+                             .inputs = site_input_files(site),
+                             .force = options->force});
+    Season season = prepare_season(std::move(site));
     const auto started = std::chrono::steady_clock::now();
     solver::ColumnRun run = simulate_with_progress(
         season.problem, options->quiet, fmt::format("{} to {}", season.site.run_start_text, season.site.run_end_text));
@@ -215,12 +225,14 @@ void add_run_command(CLI::App& app) {
     const bool complete = result.complete;
     std::optional<GridCheck> grid;
     if (options->grid_check && complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
+    result.record.run_id = new_run_id();
     const profiles::RunRecord& record = result.record;
     const SensorCheck& sensors = result.sensors;
     const bool metrics = !sensors.sensors.empty() || !sensors.pooled.empty();
     std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
         {visits_csv_path(out), visit_balance_table(record, &sensors)}};
     if (metrics) tables.push_back({sensors_csv_path(out), sensor_metrics_table(sensors)});
+    for (auto& table : tables) table.second.run_id = record.run_id;
     write_files_together(tables, [&] {
       try {
         profiles::write_run(out, record);
@@ -286,11 +298,28 @@ void add_check_command(CLI::App& app) {
   });
 }
 
+// The CSV files `run` wrote beside a run file must carry its run id; after a run stopped between
+// its renames, or a file copied from elsewhere, they do not, and the user is told.
+void report_mismatched_set(const std::filesystem::path& run_file, const profiles::RunRecord& record) {
+  if (record.run_id.empty()) return;  // a run file from before run ids
+  for (const auto& csv : {visits_csv_path(run_file), sensors_csv_path(run_file)}) {
+    std::error_code error;
+    if (!std::filesystem::exists(csv, error)) continue;
+    const std::string id = csv_run_id(csv);
+    if (id == record.run_id) continue;
+    fmt::print(stderr,
+               "warning: {} does not belong to this run file (run id {}, the run file has {}): a run was stopped "
+               "while writing or the files come from different runs; run the site again to make a matching set\n",
+               csv.string(), id.empty() ? std::string("none") : id, record.run_id);
+  }
+}
+
 void add_show_command(CLI::App& app) {
   struct Options {
     std::string run_file;
     std::string csv;
     std::string sensors_csv;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = app.add_subcommand("show", "Print the report of a finished run again from its HDF5 run file");
@@ -298,10 +327,18 @@ void add_show_command(CLI::App& app) {
   cmd->add_option("--csv", options->csv, "also write the balance per visit interval to this CSV file");
   cmd->add_option("--sensors-csv", options->sensors_csv,
                   "also write the fit metrics per sensor and pooled to this CSV file");
+  cmd->add_flag("--force", options->force, "replace CSV files that wetfront did not write (never the run file)");
   cmd->footer("Example:\n  wetfront show examples/demo/site.h5");
   cmd->callback([options] {
+    if (!options->csv.empty() && !options->sensors_csv.empty() &&
+        std::filesystem::path(options->csv).lexically_normal() ==
+            std::filesystem::path(options->sensors_csv).lexically_normal())
+      throw base::InputError(options->csv, 0, "", "--csv and --sensors-csv name the same file; give two names");
+    const OutputGuard guard(
+        {.outputs = {options->csv, options->sensors_csv}, .inputs = {options->run_file}, .force = options->force});
     profiles::RunRecord record;
     try {
+      probe_run_file(options->run_file);
       record = profiles::read_run(options->run_file);
     } catch (const profiles::RunFileError& error) {
       throw base::InputError(error.what());
@@ -318,8 +355,17 @@ void add_show_command(CLI::App& app) {
       }
     }
     fmt::print("{}", season_report(record, {}, sensors ? &*sensors : nullptr));
-    if (!options->csv.empty()) write_csv(visit_balance_table(record, sensors ? &*sensors : nullptr), options->csv);
-    if (!options->sensors_csv.empty()) write_csv(sensor_metrics_table(*sensors), options->sensors_csv);
+    report_mismatched_set(options->run_file, record);
+    if (!options->csv.empty()) {
+      ReportTable table = visit_balance_table(record, sensors ? &*sensors : nullptr);
+      table.run_id = record.run_id;
+      write_csv(table, options->csv);
+    }
+    if (!options->sensors_csv.empty()) {
+      ReportTable table = sensor_metrics_table(*sensors);
+      table.run_id = record.run_id;
+      write_csv(table, options->sensors_csv);
+    }
   });
 }
 

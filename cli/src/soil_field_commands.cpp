@@ -38,6 +38,7 @@ void add_permeameter_command(CLI::App& soil) {
   struct Options {
     PermeameterInputs inputs;
     std::string csv_path;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand(
@@ -59,11 +60,13 @@ void add_permeameter_command(CLI::App& soil) {
                 "with two water depths, average the single-head results instead of solving the two-head equations");
   add_steadiness_options(*cmd, options->inputs.tolerances);
   cmd->add_option("--csv", options->csv_path, "also write the results table to this CSV file");
+  add_force_flag(cmd, options->force);
   cmd->footer(
       "Example:\n"
       "  wetfront soil permeameter examples/soil-data/well-permeameter.csv --well-radius \"3 cm\" \\\n"
       "      --reservoir-area \"35.4 cm2\" --soil structured --csv kfs.csv");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
+    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
     emit_field_report(analyse_permeameter(options->inputs), "Field-saturated conductivity", options->csv_path);
   });
 }
@@ -72,6 +75,7 @@ void add_infiltrometer_command(CLI::App& soil) {
   struct Options {
     InfiltrometerInputs inputs;
     std::string csv_path;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand(
@@ -88,11 +92,13 @@ void add_infiltrometer_command(CLI::App& soil) {
       ->required();
   add_steadiness_options(*cmd, options->inputs.tolerances);
   cmd->add_option("--csv", options->csv_path, "also write the conductivity table to this CSV file");
+  add_force_flag(cmd, options->force);
   cmd->footer(
       "Example:\n"
       "  wetfront soil infiltrometer examples/soil-data/tension-disc.csv --disc-radius \"10 cm\" \\\n"
       "      --tower-area \"19.6 cm2\" --csv disc.csv");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
+    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
     emit_field_report(analyse_infiltrometer(options->inputs), "Saturated conductivity", options->csv_path);
   });
 }

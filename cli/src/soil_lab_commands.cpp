@@ -21,6 +21,7 @@ void add_cores_command(CLI::App& soil) {
     std::string cores_file;
     std::string steps_file;
     std::string csv_path;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand("cores",
@@ -32,11 +33,13 @@ void add_cores_command(CLI::App& soil) {
   cmd->add_option("--steps", options->steps_file,
                   "CSV of equilibrium masses: sample, suction_cm or suction_kPa, wet_mass_g [, note]");
   cmd->add_option("--csv", options->csv_path, "also write the last table to this CSV file");
+  add_force_flag(cmd, options->force);
   cmd->footer(
       "Examples:\n  wetfront soil cores examples/soil-data/cores.csv\n"
       "  wetfront soil cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv --csv "
       "points.csv");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
+    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
     const auto cores = soils::read_core_samples_csv(options->cores_file);
     ReportTable table;
     table.title = fmt::format("Ring samples of {} (particle density {} g/cm3 for porosity, common practice)",
@@ -76,6 +79,7 @@ void add_retention_command(CLI::App& soil) {
   struct Options {
     RetentionInputs inputs;
     std::string csv_path;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand("retention", "Fit the van Genuchten retention curve to measured water contents");
@@ -87,11 +91,13 @@ void add_retention_command(CLI::App& soil) {
   cmd->add_option("--fix-residual", options->inputs.fix_residual,
                   "hold the residual water content at this value (e.g. 0.05 or \"5 %\") instead of fitting it");
   cmd->add_option("--csv", options->csv_path, "also write the table of fits to this CSV file");
+  add_force_flag(cmd, options->force);
   cmd->footer(
       "Examples:\n  wetfront soil retention examples/soil-data/retention-points.csv\n"
       "  wetfront soil retention --cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv "
       "--fix-residual 0");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
+    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
     const RetentionReport report = analyse_retention(options->inputs);
     emit_report(report.tables, report.warnings, options->csv_path);
     const auto& p = report.chosen;

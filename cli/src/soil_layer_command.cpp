@@ -5,7 +5,6 @@
 //   saturated conductivity: the field method the user picks (well permeameter, tension
 //     disc) or a value given directly;
 //   pore connectivity l: 0.5 (Mualem 1976) unless given.
-#include <fstream>
 #include <memory>
 #include <sstream>
 
@@ -17,6 +16,7 @@
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/site/lab_analysis.hpp"
 #include "wetfront/base/quantity.hpp"
+#include "wetfront/profiles/file_save.hpp"
 #include "soil_commands.hpp"
 #include "wetfront/soils/texture_classes.hpp"
 
@@ -51,6 +51,7 @@ struct LayerOptions {
   bool pore_connectivity_given = false;
   std::string output_path;
   std::string csv_path;
+  bool force = false;
 };
 
 void run_layer(const LayerOptions& o) {
@@ -137,8 +138,9 @@ void run_layer(const LayerOptions& o) {
   tables.push_back(table);
 
   std::ostringstream block;
-  block << fmt::format(
-      "# Layer written by `wetfront soil layer`; the comment above each value says where it came from.\n");
+  // The first line marks the file as wetfront's, so that a later --output may replace it.
+  block << fmt::format("{} (`wetfront soil layer`); the comment above each value says where it came from.\n",
+                       site::kLayerBlockMark);
   block << "[[layers]]\n";
   block << fmt::format("name = {}\n", toml_string(o.name));
   block << fmt::format("top = {}\n", toml_string(fmt::format("{} cm", number(top, 6))));
@@ -167,9 +169,12 @@ void run_layer(const LayerOptions& o) {
   if (o.output_path.empty()) {
     fmt::print("\n{}", text);
   } else {
-    std::ofstream out(o.output_path);
-    if (!out || !(out << text))
-      throw base::InputError(o.output_path, 0, "", "cannot write the layer block (option --output)");
+    try {
+      profiles::StagedFile(o.output_path, text).commit();
+    } catch (const std::exception& error) {
+      throw base::InputError(o.output_path, 0, "",
+                             fmt::format("cannot write the layer block (option --output): {}", error.what()));
+    }
     fmt::print("\nLayer block written to {}\n", o.output_path);
   }
 }
@@ -208,13 +213,19 @@ void add_layer_command(CLI::App& soil) {
       ->each([o](const std::string&) { o->pore_connectivity_given = true; });
   cmd->add_option("--output", o->output_path, "write the TOML block to this file instead of the screen");
   cmd->add_option("--csv", o->csv_path, "also write the parameter table to this CSV file");
+  add_force_flag(cmd, o->force);
   cmd->footer(
       "Example:\n"
       "  wetfront soil layer --name topsoil --top \"0 cm\" --bottom \"30 cm\" \\\n"
       "      --retention examples/soil-data/retention-points.csv \\\n"
       "      --permeameter examples/soil-data/well-permeameter.csv --well-radius \"3 cm\" --reservoir-area \"35.4 "
       "cm2\"");
-  cmd->callback([o] { run_layer(*o); });
+  cmd->callback([o, cmd] {
+    if (!o->output_path.empty() && o->output_path == o->csv_path)
+      throw base::InputError(o->output_path, 0, "", "--output and --csv name the same file; give two names");
+    const auto guard = guard_outputs(*cmd, {o->output_path, o->csv_path}, o->force);
+    run_layer(*o);
+  });
 }
 
 }  // namespace wetfront::cli

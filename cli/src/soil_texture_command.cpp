@@ -17,14 +17,17 @@ void add_texture_command(CLI::App& soil) {
   struct Options {
     std::string name;
     std::string csv_path;
+    bool force = false;
   };
   auto options = std::make_shared<Options>();
   CLI::App* cmd = soil.add_subcommand(
       "texture", "Class-average van Genuchten-Mualem parameters of a USDA texture class (Carsel & Parrish 1988)");
   cmd->add_option("NAME", options->name, "texture class, e.g. \"sandy loam\"; all classes when left out");
   cmd->add_option("--csv", options->csv_path, "also write the table to this CSV file");
+  add_force_flag(cmd, options->force);
   cmd->footer("Examples:\n  wetfront soil texture \"silt loam\"\n  wetfront soil texture --csv classes.csv");
-  cmd->callback([options] {
+  cmd->callback([options, cmd] {
+    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
     ReportTable table;
     table.title = "Class-average parameters, Carsel & Parrish (1988); pore connectivity l = 0.5 (Mualem 1976)";
     table.headers = {"texture class", "theta_r [cm3/cm3]", "theta_s [cm3/cm3]", "alpha [1/cm]", "n [-]", "Ks [cm/d]"};

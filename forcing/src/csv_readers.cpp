@@ -1,5 +1,6 @@
 #include "wetfront/forcing/csv_readers.hpp"
 
+#include <algorithm>
 #include <array>
 #include <chrono>
 
@@ -65,10 +66,19 @@ DepthSeries read_depth_series_csv(const std::filesystem::path& file, std::string
       s.intervals.push_back({start, end, depth ? std::optional<double>(*depth * to_cm) : std::nullopt, r.line});
     }
   }
-  for (const auto& iv : s.intervals)
+  for (const auto& iv : s.intervals) {
     if (iv.depth_cm && *iv.depth_cm < 0)
       throw base::InputError(t.file, iv.source_line, t.header[depth_col],
                              fmt::format("negative depth {:g}; expected a depth >= 0", *iv.depth_cm / to_cm));
+    // Hard range: kMaxWaterInputPerDay_cm in any day (more for a longer interval).
+    const double limit_cm = kMaxWaterInputPerDay_cm * std::max(1.0, iv.end_day - iv.start_day);
+    if (iv.depth_cm && !(*iv.depth_cm <= limit_cm))
+      throw base::InputError(
+          t.file, iv.source_line, t.header[depth_col],
+          fmt::format("{:g} {} in one interval is beyond any {} on record ({} mm in a day is the hard limit); check "
+                      "the unit in the header and the number",
+                      *iv.depth_cm / to_cm, to_cm == 1.0 ? "cm" : "mm", quantity, kMaxWaterInputPerDay_cm * 10));
+  }
   check_depth_series(s);
   return s;
 }
@@ -104,7 +114,10 @@ std::vector<PanReading> read_pan_readings_csv(const std::filesystem::path& file,
             fmt::format("'{}' is not an event; expected empty, 'reading', 'before_refill' or 'after_refill'", e));
     }
     const auto rain = csv::optional_number(t, r, rain_col);
-    const bool opens_only = readings.empty() || p.kind == PanReadingKind::after_refill;
+    // A row after before_refill is checked as the refill's partner first (pan_intervals_from_readings
+    // says what is wrong with it), not for its rain.
+    const bool opens_only = readings.empty() || p.kind == PanReadingKind::after_refill ||
+                            readings.back().kind == PanReadingKind::before_refill;
     if (!rain && !opens_only)
       throw base::InputError(t.file, r.line, t.header[rain_col],
                              "empty rain; expected the rain caught since the previous reading (0 when none fell)");

@@ -98,6 +98,17 @@ std::vector<PanInterval> pan_intervals_from_readings(std::span<const PanReading>
     iv.overflow_possible = open->level_mm + iv.rain_mm > g.rim_height_mm;
     iv.outside_operating_range = !in_operating_range(open->level_mm, g) || !in_operating_range(r.level_mm, g);
     iv.level_rose_beyond_rain = iv.evaporation_mm < 0;
+    const double days = iv.end_day - iv.start_day;
+    // Rain only raises the level and a spill loses at most the rain, so the fall alone is bounded
+    // by evaporation.
+    if (iv.level_fall_mm > kMaxPanEvaporation_mm_per_day * days + kPanReadingTolerance_mm)
+      throw base::InputError(
+          file, r.source_line, "level",
+          fmt::format("the level fell {:g} mm since line {}, {:.1f} mm/d over {:.2f} d: faster than a pan evaporates "
+                      "(at most {:g} mm/d); a leak, a refill without before_refill/after_refill rows, or a misread "
+                      "level",
+                      iv.level_fall_mm, open->source_line, iv.level_fall_mm / days, days,
+                      kMaxPanEvaporation_mm_per_day));
     iv.starts_at_refill = open->kind == PanReadingKind::after_refill;
     iv.start_line = open->source_line;
     iv.end_line = r.source_line;

@@ -5,6 +5,8 @@
 #include <unistd.h>
 
 #include <atomic>
+#include <cstdio>
+#include <cstdlib>
 #include <cerrno>
 #include <system_error>
 
@@ -13,8 +15,13 @@ namespace {
 
 std::filesystem::path temporary_path_for(const std::filesystem::path& path) {
   static std::atomic<unsigned> counter{0};
-  const std::string name = fmt::format(".{}.{}-{}.partial", path.filename().string(), getpid(), counter++);
+  const std::string name = fmt::format("{}{}-{}.partial", temporary_prefix(path), getpid(), counter++);
   return path.parent_path() / name;
+}
+
+int stop_step() {
+  const char* text = std::getenv("WETFRONT_STOP_AT_WRITE_STEP");
+  return text ? std::atoi(text) : 0;
 }
 
 // Writes all bytes to a new file and forces them to the disk before it takes its final name.
@@ -40,6 +47,21 @@ void write_new_file(const std::filesystem::path& path, std::string_view bytes) {
 
 }  // namespace
 
+std::string temporary_prefix(const std::filesystem::path& path) {
+  return fmt::format(".{}.", path.filename().string());
+}
+
+void write_step(const char* what) {
+  static const int stop_at = stop_step();
+  static std::atomic<int> steps{0};
+  const int step = ++steps;
+  if (stop_at > 0 && step == stop_at) {
+    fmt::print(stderr, "wetfront: stopped at write step {} ({}) by WETFRONT_STOP_AT_WRITE_STEP\n", step, what);
+    std::fflush(stderr);
+    std::_Exit(86);
+  }
+}
+
 StagedFile::StagedFile(std::filesystem::path path, std::string_view bytes)
     : path_(std::move(path)), temporary_(temporary_path_for(path_)) {
   try {
@@ -49,6 +71,7 @@ StagedFile::StagedFile(std::filesystem::path path, std::string_view bytes)
     std::filesystem::remove(temporary_, ignored);
     throw;
   }
+  write_step("temporary file written");
 }
 
 StagedFile::~StagedFile() {
@@ -60,6 +83,7 @@ StagedFile::~StagedFile() {
 void StagedFile::commit() {
   std::filesystem::rename(temporary_, path_);
   committed_ = true;
+  write_step("file renamed");
 }
 
 void save_file_image(const std::filesystem::path& path, const std::vector<char>& bytes) {

@@ -567,6 +567,7 @@ void set_identity_attributes(hid_t file, const FileIdentity& identity) {
   set_text_attribute(file, ".", "site_name", identity.site_name);
   set_text_attribute(file, ".", "run_start_date", identity.run_start_date);
   set_text_attribute(file, ".", "input_hash", identity.input_hash);
+  if (!identity.run_id.empty()) set_text_attribute(file, ".", "run_id", identity.run_id);
 }
 
 }  // namespace wetfront::profiles::hdf5

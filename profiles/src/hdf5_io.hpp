@@ -97,11 +97,13 @@ std::vector<double> read_doubles_of_length(hid_t parent, std::string_view name, 
 std::vector<std::string> read_texts_of_length(hid_t parent, std::string_view name, std::size_t length);
 
 // What a wetfront file is and where it came from, as attributes of `file`: record_format,
-// record_format_version, program_version, site_name, run_start_date, input_hash.
+// record_format_version, program_version, site_name, run_start_date, input_hash, and run_id
+// when it is not empty (the identity every file of one run's output set carries).
 struct FileIdentity {
   std::string_view format;
   int version = 0;
   std::string_view program_version, site_name, run_start_date, input_hash;
+  std::string_view run_id = {};
 };
 void set_identity_attributes(hid_t file, const FileIdentity& identity);
 

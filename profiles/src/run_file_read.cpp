@@ -34,6 +34,7 @@ void read_root_attributes(hid_t file, RunRecord& record) {
   record.site_name = h5::get_text_attribute(file, ".", "site_name");
   record.run_start_date = h5::get_text_attribute(file, ".", "run_start_date");
   record.input_hash = h5::get_text_attribute(file, ".", "input_hash");
+  if (h5::has_attribute(file, ".", "run_id")) record.run_id = h5::get_text_attribute(file, ".", "run_id");
   record.run.complete = h5::get_int_attribute(file, ".", "complete") != 0;
   if (h5::has_attribute(file, ".", "failure_reason")) {
     solver::RunFailure failure;
@@ -237,6 +238,7 @@ RunRecord read_run(const std::filesystem::path& path) {
     return RunFileError(fmt::format("cannot read run record '{}': {}", path.string(), cause));
   };
   std::error_code status;
+  if (std::filesystem::is_directory(path, status)) throw failure("is a folder, not a run file");
   if (!std::filesystem::is_regular_file(path, status)) throw failure("no such file");
   h5::QuietErrors quiet;
   if (H5Fis_hdf5(path.c_str()) <= 0) throw failure("not an HDF5 file");

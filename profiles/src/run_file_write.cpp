@@ -43,7 +43,7 @@ void write_root_attributes(hid_t file, const RunRecord& record) {
   h5::set_text_attribute(file, ".", "title", fmt::format("wetfront run record of {}", record.site_name));
   h5::set_text_attribute(file, ".", "source", fmt::format("wetfront {}", record.program_version));
   h5::set_identity_attributes(file, {kRecordFormat, kRecordFormatVersion, record.program_version, record.site_name,
-                                     record.run_start_date, record.input_hash});
+                                     record.run_start_date, record.input_hash, record.run_id});
   h5::set_int_attribute(file, ".", "complete", record.run.complete ? 1 : 0);
   if (record.run.failure) {
     h5::set_double_attribute(file, ".", "failure_time_days", record.run.failure->time_days);

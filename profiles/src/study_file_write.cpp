@@ -105,7 +105,7 @@ void write_contents(hid_t file, const StudyRecord& record) {
   h5::set_text_attribute(file, ".", "title", fmt::format("wetfront {} of {}", record.study_kind, record.site_name));
   h5::set_text_attribute(file, ".", "source", fmt::format("wetfront {}", record.program_version));
   h5::set_identity_attributes(file, {kStudyFormat, kStudyFormatVersion, record.program_version, record.site_name,
-                                     record.run_start_date, record.input_hash});
+                                     record.run_start_date, record.input_hash, record.run_id});
   h5::set_text_attribute(file, ".", "study_kind", record.study_kind);
   h5::set_text_attribute(file, ".", "sign_convention", layout::kSignConvention);
   for (const auto& [name, text] : record.notes) h5::set_text_attribute(file, ".", name, text);

@@ -97,10 +97,14 @@ RetentionReport analyse_retention(const RetentionInputs& inputs) {
                   "alpha [1/cm]", "n [-]",  "RMSE [cm3/cm3]",    "R2 [-]",
                   "solver stop"};
   std::vector<soils::RetentionFit> results;
-  for (const auto& s : fits_to_run) {
+  for (std::size_t i = 0; i < fits_to_run.size(); ++i) {
+    const NamedSeries& s = fits_to_run[i];
     soils::RetentionFit fit;
     try {
-      fit = soils::fit_van_genuchten_retention(s.points, options);
+      soils::RetentionFitOptions these = options;
+      // The pooled set mixes samples: the order rule holds within each sample only.
+      these.one_sample = !(fits_to_run.size() > 1 && i + 1 == fits_to_run.size());
+      fit = soils::fit_van_genuchten_retention(s.points, these);
     } catch (const base::InputError& error) {
       throw base::InputError(source, 0, "", fmt::format("{}: {}", s.label, error.what()));
     }
@@ -108,6 +112,7 @@ RetentionReport analyse_retention(const RetentionInputs& inputs) {
     fits.add_row({s.label, fmt::format("{}", fit.point_count), number(p.residual_water_content),
                   number(p.saturated_water_content), number(p.alpha_per_cm), number(p.n), number(fit.rmse, 3),
                   number(fit.r_squared, 4), std::string(studies::describe(fit.stop_reason))});
+    for (const auto& note : fit.notes) report.warnings.push_back(fmt::format("{}: {}: {}", source, s.label, note));
     if (!fit.converged()) {
       report.warnings.push_back(
           fmt::format("{}: fit of {} did not converge ({})", source, s.label, studies::describe(fit.stop_reason)));

@@ -8,6 +8,7 @@
 
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/profiles/file_save.hpp"
+#include "wetfront/site/output_files.hpp"
 
 namespace wetfront::site {
 namespace {
@@ -67,14 +68,33 @@ std::string csv_text(const ReportTable& table) {
     }
     out += '\n';
   };
-  write_row(table.headers);
-  for (const auto& row : table.rows) write_row(row);
+  if (table.run_id.empty()) {
+    write_row(table.headers);
+    for (const auto& row : table.rows) write_row(row);
+    return out;
+  }
+  std::vector<std::string> headers = table.headers;
+  headers.push_back(kRunIdColumn);
+  write_row(headers);
+  for (auto row : table.rows) {
+    row.resize(table.headers.size());
+    row.push_back(table.run_id);
+    write_row(row);
+  }
   return out;
 }
 
+namespace {
+ReportTable with_run_id(const ReportTable& table) {
+  ReportTable copy = table;
+  if (copy.run_id.empty()) copy.run_id = new_run_id();
+  return copy;
+}
+}  // namespace
+
 void write_csv(const ReportTable& table, const std::string& path) {
   try {
-    profiles::StagedFile(path, csv_text(table)).commit();
+    profiles::StagedFile(path, csv_text(with_run_id(table))).commit();
   } catch (const std::exception& error) {
     throw base::InputError(path, 0, "", fmt::format("cannot write the CSV file: {}", error.what()));
   }
@@ -85,7 +105,7 @@ void write_files_together(const std::vector<std::pair<std::filesystem::path, Rep
   std::vector<std::unique_ptr<profiles::StagedFile>> staged;
   for (const auto& [path, table] : tables) {
     try {
-      staged.push_back(std::make_unique<profiles::StagedFile>(path, csv_text(table)));
+      staged.push_back(std::make_unique<profiles::StagedFile>(path, csv_text(with_run_id(table))));
     } catch (const std::exception& error) {
       throw base::InputError(path.string(), 0, "", fmt::format("cannot write the CSV file: {}", error.what()));
     }

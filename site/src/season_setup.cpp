@@ -43,6 +43,11 @@ class InputDigest {
   std::uint64_t hash_ = 14695981039346656037ULL;
 };
 
+// Usual ranges (docs/site-file.md, "Plausible ranges"): outside them a note in the report.
+constexpr double kUsualWaterInputPerDay_cm = 20.0;
+constexpr double kUsualPanEvaporation_mm_per_day = 15.0;
+constexpr std::pair<double, double> kUsualConductivity_cm_per_d{0.1, 1000.0};
+
 std::string gap_text(const forcing::GapReport& gap, base::TimePoint start) {
   return fmt::format("{} to {}", base::format_timestamp(base::time_after(start, gap.start_day)),
                      base::format_timestamp(base::time_after(start, gap.end_day)));
@@ -51,6 +56,16 @@ std::string gap_text(const forcing::GapReport& gap, base::TimePoint start) {
 forcing::CoveredSeries depth_file_rate(const ForcingFile& file, std::string_view quantity, const SiteSetup& site,
                                        std::vector<std::string>& notes, double& total_cm) {
   const auto series = forcing::read_depth_series_csv(file.path, quantity, site.run_start);
+  // Usual range (docs/site-file.md, "Plausible ranges"): up to 200 mm in a day.
+  for (const auto& iv : series.intervals) {
+    if (iv.depth_cm && *iv.depth_cm > kUsualWaterInputPerDay_cm * std::max(1.0, iv.end_day - iv.start_day)) {
+      notes.push_back(
+          fmt::format("{}:{}: {:g} mm of {} in one interval is more than usual (up to {:g} mm a day); "
+                      "used as given, check it",
+                      file.path.string(), iv.source_line, *iv.depth_cm * 10, quantity, kUsualWaterInputPerDay_cm * 10));
+      break;
+    }
+  }
   const auto conversion = forcing::depth_series_to_rate(series, site.run_length_days, file.gaps);
   if (file.gaps == forcing::GapPolicy::fill_with_zero && !conversion.gaps.empty()) {
     double days = 0;
@@ -77,6 +92,17 @@ forcing::CoveredSeries pan_rate(const SiteSetup& site, std::vector<std::string>&
   const auto intervals = forcing::pan_intervals_from_readings(readings, forcing::PanGeometry{}, file.path.string());
   std::size_t outside = 0;
   for (const auto& interval : intervals) outside += interval.outside_operating_range ? 1 : 0;
+  for (const auto& interval : intervals) {
+    // Usual range: up to 15 mm/d of pan evaporation (hard limit in forcing/pan_gauge.hpp).
+    const double days = interval.end_day - interval.start_day;
+    if (interval.level_fall_mm > kUsualPanEvaporation_mm_per_day * days + forcing::kPanReadingTolerance_mm) {
+      notes.push_back(fmt::format(
+          "{}:{}: the pan level fell {:.1f} mm/d, more than usual (up to {:g} mm/d); used "
+          "as read, check it",
+          file.path.string(), interval.end_line, interval.level_fall_mm / days, kUsualPanEvaporation_mm_per_day));
+      break;
+    }
+  }
   if (outside > 0) {
     notes.push_back(fmt::format(
         "{}: {} pan intervals start or end outside the operating band (50 to 75 mm below the rim); used as read",
@@ -119,6 +145,24 @@ std::vector<double> output_days(const SiteSetup& site, double end_day, const std
   return days;
 }
 
+// Refuses, before any output time is laid out, a run whose record would pass [run]
+// output_size_limit. Estimate: per output time the two profiles (pressure head and water content
+// per cell) and about 16 balance series, 8 bytes each; visits and readings add a few times more.
+void check_output_size(const SiteSetup& site, double end_day, std::size_t cells) {
+  const double times =
+      std::floor(end_day / site.output_interval_days) + 2.0 + static_cast<double>(site.visit_days.size());
+  const double bytes = times * (2.0 * static_cast<double>(cells) + 16.0) * 8.0;
+  if (bytes <= site.output_size_limit_bytes) return;
+  throw base::InputError(
+      site.site_file.string(), 0, "run.output_interval",
+      fmt::format(
+          "output every {:g} d over {:g} d gives about {:.3g} output times on {} cells, a run record of about {:.3g} "
+          "GB, beyond the output size limit of {:.3g} GB: choose a longer output_interval, or raise [run] "
+          "output_size_limit (e.g. output_size_limit = \"{:.0f} GB\") if the machine has the memory and disk",
+          site.output_interval_days, end_day, times, cells, bytes / 1e9, site.output_size_limit_bytes / 1e9,
+          std::ceil(bytes / 1e9)));
+}
+
 // The parts of a Season gathered before its column problem can be built.
 struct Seasonal {
   SiteSetup site;
@@ -132,6 +176,14 @@ struct Seasonal {
 
 FieldRecords read_field_records(const SiteSetup& site) {
   FieldRecords records;
+  for (const auto& layer : site.layers) {
+    const double ks = soils::saturated_conductivity(layer.model);
+    if (ks < kUsualConductivity_cm_per_d.first || ks > kUsualConductivity_cm_per_d.second)
+      records.notes.push_back(
+          fmt::format("layer '{}': saturated conductivity {:g} cm/d is outside the usual range "
+                      "({:g} to {:g} cm/d); used as given, check it",
+                      layer.name, ks, kUsualConductivity_cm_per_d.first, kUsualConductivity_cm_per_d.second));
+  }
   InputDigest digest;
   digest.add_file(site.site_file);
   digest.add_text(site.run_start_text + "/" + site.run_end_text);
@@ -195,6 +247,7 @@ Season build_season(SiteSetup site_setup, const FieldRecords& records) {
   } catch (const std::invalid_argument& error) {
     throw base::InputError(site_file, 0, "", fmt::format("[[layer]] / [grid]: {}", error.what()));
   }
+  check_output_size(site, end_day, grid->cell_count());
   std::shared_ptr<const solver::CellSink> roots;
   try {
     solver::RootUptakeSettings uptake{site.crop.uptake_response, site.crop.root_shape, season.demand.root_depth_cm,

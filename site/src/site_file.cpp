@@ -4,9 +4,11 @@
 #include <array>
 #include <cctype>
 #include <cmath>
+#include <optional>
 #include <sstream>
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 #include <toml++/toml.h>
 
 #include "wetfront/base/input_error.hpp"
@@ -18,6 +20,18 @@
 
 namespace wetfront::site {
 namespace {
+
+// "4 GB" -> 4e9: a positive size with a decimal unit (kB, MB, GB, TB).
+std::optional<double> data_size_bytes(const std::string& text) {
+  std::istringstream in(text);
+  double value = 0;
+  std::string unit, rest;
+  if (!(in >> value >> unit) || (in >> rest) || !(value > 0) || !std::isfinite(value)) return std::nullopt;
+  for (const auto& [name, factor] : {std::pair{"kB", 1e3}, {"MB", 1e6}, {"GB", 1e9}, {"TB", 1e12}}) {
+    if (unit == name) return value * factor;
+  }
+  return std::nullopt;
+}
 
 using Keys = std::span<const std::string_view>;
 
@@ -62,6 +76,8 @@ std::filesystem::path existing_file(const SiteTable& table, std::string_view key
   const std::string text = table.text(key);
   const std::filesystem::path path = folder / text;
   std::error_code error;
+  if (std::filesystem::is_directory(path, error))
+    table.fail(key, fmt::format("'{}' is a folder; give the name of a file in it", path.string()));
   if (!std::filesystem::is_regular_file(path, error)) {
     table.fail(key, fmt::format("file '{}' not found (paths are relative to the site file's folder)", path.string()));
   }
@@ -94,10 +110,12 @@ ForcingFile forcing_file(const SiteTable& table, std::string_view key, std::stri
 double water_content(const SiteTable& layer, std::string_view key) {
   if (layer.has(key)) {
     if (const auto bare = layer.optional_number_if_plain(key)) {
-      if (*bare < 0 || *bare > 1) {
+      if (*bare < 0)
+        layer.fail(key, fmt::format("{} is negative; a water content is a volume fraction in [0, 1]", *bare));
+      if (*bare > 1 && *bare <= 100)
         layer.fail(key,
                    fmt::format("{} is not a volume fraction in [0, 1]; for a percentage write \"{} %\"", *bare, *bare));
-      }
+      if (*bare > 1) layer.fail(key, fmt::format("{} is not a volume fraction in [0, 1]", *bare));
       return *bare;
     }
   }
@@ -192,7 +210,7 @@ std::vector<soils::SoilLayer> read_layers(const SiteTable& root) {
     try {
       soils::check_hydraulic_model(layer.model, layer.name);
     } catch (const base::InputError& error) {
-      table.fail("", error.what());
+      table.fail(table.has(error.column()) ? error.column() : "", error.problem());
     }
     layers.push_back(std::move(layer));
   }
@@ -643,6 +661,19 @@ SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOve
   const auto top = all_top_keys();
   root.only_keys(top);
   const std::filesystem::path folder = site_file.parent_path().empty() ? "." : site_file.parent_path();
+  {
+    // Every required table missing is named at once; one alone gets its own message below.
+    static constexpr std::array<std::string_view, 9> required = {"site",    "run", "layers", "initial", "bottom",
+                                                                 "weather", "pan", "crop",   "recharge"};
+    std::vector<std::string> missing;
+    for (const auto name : required) {
+      if (!document.contains(name)) missing.push_back(name == "layers" ? "[[layers]]" : fmt::format("[{}]", name));
+    }
+    if (missing.size() > 1)
+      throw base::InputError(file, 0, "",
+                             fmt::format("missing tables {}: the site file needs each of them (docs/site-file.md)",
+                                         fmt::join(missing, ", ")));
+  }
 
   SiteSetup site;
   site.site_file = site_file;
@@ -657,7 +688,8 @@ SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOve
   }
   const auto run = root.subtable("run");
   if (!run) root.fail("run", "missing table [run] with 'start' and 'end' dates");
-  static constexpr std::array<std::string_view, 4> run_keys = {"start", "end", "output_interval", "visits"};
+  static constexpr std::array<std::string_view, 5> run_keys = {"start", "end", "output_interval", "visits",
+                                                               "output_size_limit"};
   run->only_keys(run_keys);
   std::string start_text = base::trim(run->text("start"));
   std::string end_text = base::trim(run->text("end"));
@@ -688,6 +720,12 @@ SiteSetup load_site_file(const std::filesystem::path& site_file, const PeriodOve
   }
   site.output_interval_days = run->optional_quantity("output_interval", base::Dimension::time).value_or(1.0);
   if (!(site.output_interval_days > 0)) run->fail("output_interval", "must be positive");
+  if (const auto limit = run->optional_text("output_size_limit")) {
+    const auto bytes = data_size_bytes(*limit);
+    if (!bytes)
+      run->fail("output_size_limit", fmt::format("'{}' is not a size; write e.g. \"4 GB\" (kB, MB, GB or TB)", *limit));
+    site.output_size_limit_bytes = *bytes;
+  }
   if (run->has("visits")) {
     const auto texts = run->text_list("visits");
     std::optional<double> previous;

@@ -14,6 +14,9 @@ namespace wetfront::site {
 
 toml::table read_site_document(const std::filesystem::path& site_file) {
   const std::string file = site_file.string();
+  std::error_code status;
+  if (std::filesystem::is_directory(site_file, status))
+    throw base::InputError(file, 0, "", "is a folder, not a site file; give the site file (TOML) in it");
   std::ifstream stream(site_file, std::ios::binary);
   if (!stream) throw base::InputError(file, 0, "", "cannot open the site file (missing or unreadable)");
   std::stringstream buffer;

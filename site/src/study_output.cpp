@@ -19,8 +19,10 @@ using profiles::StudyColumn;
 
 constexpr double kMissing = std::numeric_limits<double>::quiet_NaN();
 
-profiles::StudyRecord study_record(const SeasonModel& model, std::string kind, const std::string& version) {
+profiles::StudyRecord study_record(const SeasonModel& model, std::string kind, const std::string& version,
+                                   const std::string& run_id) {
   profiles::StudyRecord record;
+  record.run_id = run_id;
   record.study_kind = std::move(kind);
   record.site_name = model.site().name;
   record.run_start_date = model.site().run_start_text;
@@ -91,8 +93,9 @@ void save(const std::filesystem::path& path, const profiles::StudyRecord& record
 }  // namespace
 
 void write_sweep_file(const std::filesystem::path& path, const SeasonModel& model, const SweepResult& sweep,
-                      std::size_t kept, unsigned threads, const std::string& program_version) {
-  profiles::StudyRecord record = study_record(model, "parameter sweep", program_version);
+                      std::size_t kept, unsigned threads, const std::string& program_version,
+                      const std::string& run_id) {
+  profiles::StudyRecord record = study_record(model, "parameter sweep", program_version, run_id);
   record.notes.push_back({"sampling", sweep.method});
   record.tables.push_back(parameter_table(model));
 
@@ -155,9 +158,9 @@ void write_sweep_file(const std::filesystem::path& path, const SeasonModel& mode
 }
 
 void write_calibration_file(const std::filesystem::path& path, const SeasonModel& model, const CalibrationStudy& study,
-                            const std::string& program_version) {
+                            const std::string& program_version, const std::string& run_id) {
   const studies::CalibrationResult& fit = study.fit;
-  profiles::StudyRecord record = study_record(model, "calibration", program_version);
+  profiles::StudyRecord record = study_record(model, "calibration", program_version, run_id);
   record.notes.push_back({"stop_reason", fit.stop_reason});
   record.notes.push_back({"model_runs", std::to_string(fit.runs)});
   if (!fit.covariance_note.empty()) record.notes.push_back({"covariance_note", fit.covariance_note});

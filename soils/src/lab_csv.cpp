@@ -95,6 +95,9 @@ class Table {
 // `parse` (one of the parse_*_csv functions) on the contents of `file`, which it names in errors.
 template <class Parse>
 auto parse_file(const std::filesystem::path& file, Parse parse) {
+  std::error_code error;
+  if (std::filesystem::is_directory(file, error))
+    throw base::InputError(file.string(), 0, "", "is a folder, not a CSV file; give the name of a file");
   std::ifstream in(file);
   if (!in) throw base::InputError(file.string(), 0, "", "cannot open the file for reading");
   return parse(in, file.string());

@@ -24,7 +24,9 @@ std::string describe_point(std::size_t index, const RetentionPoint& p) {
   return fmt::format("point {} (suction {} cm, water content {})", index + 1, p.suction_cm, p.water_content);
 }
 
-void check_points(std::span<const RetentionPoint> points) {
+// Returns a note per rise within kRetentionNoiseTolerance; throws for a larger one.
+std::vector<std::string> check_points(std::span<const RetentionPoint> points, bool one_sample) {
+  std::vector<std::string> notes;
   for (std::size_t i = 0; i < points.size(); ++i) {
     const auto& p = points[i];
     if (!std::isfinite(p.suction_cm) || p.suction_cm < 0.0)
@@ -36,7 +38,8 @@ void check_points(std::span<const RetentionPoint> points) {
           "not percent)",
           describe_point(i, p)));
   }
-  // Ordered by suction, water content must not rise as suction rises.
+  if (!one_sample) return notes;
+  // Ordered by suction, water content must not rise as suction rises (beyond lab noise).
   std::vector<std::size_t> order(points.size());
   std::iota(order.begin(), order.end(), 0);
   std::stable_sort(order.begin(), order.end(),
@@ -44,12 +47,19 @@ void check_points(std::span<const RetentionPoint> points) {
   for (std::size_t k = 1; k < order.size(); ++k) {
     const auto& wetter = points[order[k - 1]];
     const auto& drier = points[order[k]];
-    if (drier.suction_cm > wetter.suction_cm && drier.water_content > wetter.water_content)
-      throw base::InputError(
-          fmt::format("retention data: {} holds more water than {} although its suction is higher; water content must "
-                      "decrease as suction increases",
-                      describe_point(order[k], drier), describe_point(order[k - 1], wetter)));
+    if (!(drier.suction_cm > wetter.suction_cm && drier.water_content > wetter.water_content)) continue;
+    const double rise = drier.water_content - wetter.water_content;
+    if (rise > kRetentionNoiseTolerance)
+      throw base::InputError(fmt::format(
+          "retention data: {} holds {:.4f} more water than {} although its suction is higher; water "
+          "content must decrease as suction increases (rises up to {} are fitted as lab noise)",
+          describe_point(order[k], drier), rise, describe_point(order[k - 1], wetter), kRetentionNoiseTolerance));
+    notes.push_back(fmt::format(
+        "{} holds {:.4f} more water than {} although its suction is higher; fitted as lab "
+        "noise (within {})",
+        describe_point(order[k], drier), rise, describe_point(order[k - 1], wetter), kRetentionNoiseTolerance));
   }
+  return notes;
 }
 
 void check_fixed(const char* what, const std::optional<double>& value) {
@@ -73,7 +83,7 @@ VanGenuchtenMualem with_conductivity(const RetentionParameters& p, double satura
 }
 
 RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points, const RetentionFitOptions& options) {
-  check_points(points);
+  std::vector<std::string> notes = check_points(points, options.one_sample);
   check_fixed("residual water content", options.fixed_residual_water_content);
   check_fixed("saturated water content", options.fixed_saturated_water_content);
   if (options.fixed_residual_water_content && options.fixed_saturated_water_content &&
@@ -152,6 +162,7 @@ RetentionFit fit_van_genuchten_retention(std::span<const RetentionPoint> points,
   if (best.correlation.size() == 16) fit.correlation = best.correlation;
   fit.covariance_note = best.covariance_note;
   fit.at_bound = best.at_bound;
+  fit.notes = std::move(notes);
   fit.sum_of_squares = best.sum_of_squares;
   fit.point_count = static_cast<int>(data.size());
   fit.free_parameter_count = free_count;

@@ -17,6 +17,9 @@ TEST(Topp, PolynomialAtChosenPermittivities) {
   EXPECT_NEAR(topp_water_content(20.0), 0.3454, 1e-12);
   EXPECT_NEAR(topp_water_content(40.0), 0.5102, 1e-12);
   EXPECT_THROW(topp_water_content(0.5), std::domain_error);
+  EXPECT_THROW(topp_water_content(1.5), std::domain_error);    // Topp gives -0.012 (issue 12)
+  EXPECT_THROW(topp_water_content(120.0), std::domain_error);  // Topp gives 2.96; above water (88)
+  EXPECT_NO_THROW(topp_water_content(80.0));                   // water at 20 degC (common practice)
 }
 
 TEST(ProbeConversion, EachKindOfReading) {

@@ -70,8 +70,9 @@ std::vector<MalformedCase> malformed_cases() {
            {"layers[1].top", "surface"}),
       make("sensor below the column", {{"site.toml", "depth = \"120 cm\"", "depth = \"300 cm\""}}, "site.toml",
            {"sensors[4].depth", "not inside the column"}),
+      // theta_r is the value out of its usual range, so the message points at its key (issue 12).
       make("theta_r above theta_s", {{"site.toml", "residual_water_content = 0.08", "residual_water_content = 0.45"}},
-           "site.toml", {"layers[2]"}, 30),
+           "site.toml", {"layers[2].residual_water_content", "not below the saturated water content 0.42"}, 35),
       make("n not above one", {{"site.toml", "n = 1.5", "n = 1.0"}}, "site.toml", {"layers[2]", "n"}, 30),
       make("water content above one", {{"site.toml", "residual_water_content = 0.08", "residual_water_content = 8"}},
            "site.toml", {"layers[2].residual_water_content", "volume fraction"}),

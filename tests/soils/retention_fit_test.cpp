@@ -153,6 +153,31 @@ TEST(RetentionFit, WaterContentRisingWithSuctionNamesBothPoints) {
   EXPECT_NE(msg.find("point 2 (suction 100 cm, water content 0.3)"), std::string::npos) << msg;
 }
 
+// Lab noise (issue 12): the 10 cm point 0.001 wetter than the 0 cm point is fitted, with a note
+// naming both points; a rise beyond kRetentionNoiseTolerance (0.01, common practice) is an error.
+TEST(RetentionFit, RiseWithinLabNoiseIsFittedWithANote) {
+  const std::vector<ws::RetentionPoint> points{{0, 0.415},  {10, 0.416},  {50, 0.39},  {100, 0.35},
+                                               {330, 0.27}, {1000, 0.19}, {15000, 0.1}};
+  const ws::RetentionFit fit = ws::fit_van_genuchten_retention(points, {});
+  ASSERT_EQ(fit.notes.size(), 1u);
+  EXPECT_NE(fit.notes[0].find("point 2 (suction 10 cm"), std::string::npos) << fit.notes[0];
+  EXPECT_NE(fit.notes[0].find("lab noise"), std::string::npos) << fit.notes[0];
+  EXPECT_NEAR(fit.parameters.saturated_water_content, 0.415, 0.01);
+}
+
+TEST(RetentionFit, PooledSamplesAreNotHeldToOneOrder) {
+  // Two replicate cores, each monotone, theta_s 0.43 and 0.40: pooled, the second core's wet
+  // points lie below the first core's drier ones.
+  const std::vector<ws::RetentionPoint> points{{0, 0.43}, {10, 0.425}, {100, 0.33}, {1000, 0.2},  {15000, 0.1},
+                                               {0, 0.40}, {10, 0.395}, {100, 0.31}, {1000, 0.19}, {15000, 0.09}};
+  EXPECT_THROW(ws::fit_van_genuchten_retention(points, {}), wetfront::base::InputError);
+  ws::RetentionFitOptions pooled;
+  pooled.one_sample = false;
+  const ws::RetentionFit fit = ws::fit_van_genuchten_retention(points, pooled);
+  EXPECT_TRUE(fit.notes.empty());
+  EXPECT_GT(fit.parameters.saturated_water_content, 0.39);
+}
+
 TEST(RetentionFit, WaterContentOutsideUnitIntervalOrBadSuction) {
   auto msg = error_of({{0, 40.0}, {100, 30.0}, {330, 25.0}, {1000, 20.0}});
   EXPECT_NE(msg.find("point 1"), std::string::npos) << msg;

@@ -24,6 +24,9 @@ namespace wetfront::forcing {
 //   date, <quantity>_mm | <quantity>_cm              one row per calendar day
 //   start, end, <quantity>_mm | <quantity>_cm        any interval, date or date-time
 // An empty depth cell marks a missing record.
+// Hard limit of a rain or irrigation depth: 200 cm (2000 mm) per day of the interval, above the
+// largest one-day rain on record (about 1800 mm, from memory); read_depth_series_csv refuses more.
+inline constexpr double kMaxWaterInputPerDay_cm = 200.0;
 DepthSeries read_depth_series_csv(const std::filesystem::path& file, std::string_view quantity,
                                   base::TimePoint run_start);
 

@@ -55,9 +55,15 @@ struct PanInterval {
   int end_line = 0;
 };
 
+// Hard limit of Class A pan evaporation: 30 mm/d, about twice the highest daily means reported
+// for hot dry climates (common practice), plus kPanReadingTolerance_mm for the gauge readings.
+inline constexpr double kMaxPanEvaporation_mm_per_day = 30.0;
+inline constexpr double kPanReadingTolerance_mm = 2.0;
+
 // Throws base::InputError (naming the line) when times go backwards, a before_refill reading is not
-// followed by its after_refill reading, an after_refill reading has rain, or a level or rain
-// is negative or non-finite.
+// followed by its after_refill reading, an after_refill reading has rain, a level or rain
+// is negative or non-finite, or the level falls faster than
+// kMaxPanEvaporation_mm_per_day (rain only raises it; a leak, a pan emptied without before_refill, a typing error).
 std::vector<PanInterval> pan_intervals_from_readings(std::span<const PanReading> readings, const PanGeometry& geometry,
                                                      const std::string& source_file = {});
 

@@ -29,4 +29,21 @@ class StagedFile {
 // StagedFile(path, bytes).commit().
 void save_file_image(const std::filesystem::path& path, const std::vector<char>& bytes);
 
+// Test hook for kills during a write: every step of saving files (a temporary file complete, a
+// rename done, a lock taken) counts one; when the environment variable
+// WETFRONT_STOP_AT_WRITE_STEP is k, the program ends at once (exit code 86, nothing cleaned
+// up, as if killed) at step k. `what` names the step for the message on stderr.
+void write_step(const char* what);
+
+// The name StagedFile gives its temporary file starts with this: ".NAME." (and ends ".partial").
+std::string temporary_prefix(const std::filesystem::path& path);
+
+// True when `path` is an HDF5 file whose root attribute record_format names a wetfront record
+// (a run record or a study file). Never throws; prints nothing.
+bool is_wetfront_hdf5(const std::filesystem::path& path);
+
+// Switches off the HDF5 library's own error printing for this thread: wetfront reports HDF5
+// failures in its own messages.
+void silence_hdf5_error_printing();
+
 }  // namespace wetfront::profiles

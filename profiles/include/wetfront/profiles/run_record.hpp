@@ -81,6 +81,7 @@ struct RunRecord {
   std::string run_start_date;  // ISO 8601 date or date-time: the zero of every time axis
   std::string program_version;
   std::string input_hash;  // text identifying the inputs (e.g. a hex digest)
+  std::string run_id;      // identity of the run, also written in every CSV file of its output set
   std::vector<LayerDescription> layers;
   std::vector<Sensor> sensors;
   std::vector<double> flux_plane_depths_cm;  // one per entry of CumulativeBalance::plane_flux_cm

@@ -59,6 +59,7 @@ struct StudyRecord {
   std::string run_start_date;  // ISO 8601; the origin of every time axis
   std::string program_version;
   std::string input_hash;
+  std::string run_id;                                      // identity of the study, also written in its CSV file
   std::vector<std::pair<std::string, std::string>> notes;  // further root attributes
   std::vector<StudyTable> tables;
   std::vector<StudyRun> runs;

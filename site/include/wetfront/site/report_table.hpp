@@ -14,13 +14,18 @@ struct ReportTable {
   std::string title;                 // printed above the table; not written to CSV
   std::vector<std::string> headers;  // "name [unit]"
   std::vector<std::vector<std::string>> rows;
+  // Written as a last column "run id" in the CSV file (the same value on every row), so that a
+  // file of one output set can be matched with the others; write_csv and write_files_together
+  // make a new one when it is empty.
+  std::string run_id;
 
   void add_row(std::vector<std::string> cells) { rows.push_back(std::move(cells)); }
 };
 
 // Aligned text with a rule under the header.
 std::string format_table(const ReportTable& table);
-// Header and rows as CSV text (fields with commas or quotes are quoted).
+// Header and rows as CSV text (fields with commas or quotes are quoted), with the "run id"
+// column when table.run_id is not empty.
 std::string csv_text(const ReportTable& table);
 // Writes csv_text to `path` under a temporary name, renamed when complete. Throws base::InputError
 // naming the path when it cannot be written.

@@ -73,6 +73,9 @@ struct PeriodOverride {
   std::string to;    // empty: the site file's end
 };
 
+// Default of [run] output_size_limit: 1 GB (decimal).
+inline constexpr double kDefaultOutputSizeLimitBytes = 1e9;
+
 struct SiteSetup {
   std::filesystem::path site_file;
   std::string name;
@@ -84,6 +87,9 @@ struct SiteSetup {
   std::string run_end_text;
   double run_length_days = 0;
   double output_interval_days = 1;
+  // [run] output_size_limit: build_season refuses a run whose profiles would take more (the run
+  // record is held in memory before it is written).
+  double output_size_limit_bytes = kDefaultOutputSizeLimitBytes;
   std::vector<double> visit_days;  // inside the run, increasing
   std::vector<std::string> visit_dates;
 

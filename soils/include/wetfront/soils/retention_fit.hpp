@@ -34,12 +34,20 @@ struct RetentionParameters {
 // van Genuchten water content at a suction (cm), the fitted model.
 double van_genuchten_water_content(const RetentionParameters& p, double suction_cm);
 
+// A point may hold up to this much more water than a point at lower suction of the same
+// sample and still be fitted (with a note): ordinary lab noise of weighed cores is about
+// 0.01 cm3/cm3 (common practice). A larger rise is an error.
+inline constexpr double kRetentionNoiseTolerance = 0.01;
+
 struct RetentionFitOptions {
   std::optional<double> fixed_residual_water_content;    // hold theta_r at this value
   std::optional<double> fixed_saturated_water_content;   // hold theta_s at this value
   double residual_lower = 0.0, residual_upper = 0.5;     // bounds on theta_r, cm3/cm3
   double saturated_lower = 0.05, saturated_upper = 1.0;  // bounds on theta_s, cm3/cm3
   studies::LeastSquaresOptions solver;
+  // Water content must not rise with suction within one sample; points pooled from several
+  // samples (replicate cores with different theta_s) are not held to it.
+  bool one_sample = true;
 };
 
 struct RetentionFit {
@@ -50,6 +58,7 @@ struct RetentionFit {
   Eigen::Matrix4d correlation = Eigen::Matrix4d::Constant(std::nan(""));
   std::string covariance_note;
   std::vector<std::string> at_bound;  // parameters pressed against a bound (see least_squares.hpp)
+  std::vector<std::string> notes;     // points fitted although they rise within the noise tolerance
   double sum_of_squares = 0.0;        // (cm3/cm3)^2
   double rmse = 0.0;                  // sqrt(SSE / N), cm3/cm3
   double r_squared = 0.0;             // 1 - SSE / sum (theta_i - mean)^2
