@@ -144,8 +144,9 @@ py::class_<Site> bind_site(py::module_& m) {
       .def(
           "run",
           [](const Site& s) {
+            const site::SiteSetup setup = s.setup;  // another Python thread may change `s` meanwhile
             py::gil_scoped_release release;
-            return Result{site::run_season(s.setup, WETFRONT_VERSION)};
+            return Result{site::run_season(setup, WETFRONT_VERSION)};
           },
           "Runs the season and checks it against the sensor readings.")
       .def("__repr__", [](const Site& s) {
