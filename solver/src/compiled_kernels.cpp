@@ -154,7 +154,7 @@ template <int ML>
 sunindextype factor(SUNMatrix a, std::vector<sunindextype>& pivot) {
   const sunindextype n = SM_COLUMNS_B(a), ml = ML > 0 ? ML : SM_LBAND_B(a), smu = ML > 0 ? 2 * ML : SM_SUBAND_B(a);
   double** cols = SM_COLS_B(a);
-  auto column = [cols, smu](sunindextype j) { return cols[j] + smu; };
+  auto column = [=](sunindextype j) { return cols[j] + smu; };
   pivot.resize(static_cast<std::size_t>(n));
   for (sunindextype k = 0; k < n; ++k) {
     double* col_k = column(k);

@@ -32,8 +32,8 @@ wetfront_cli_check(permeameter_units 0 "Field-saturated conductivity: 30\\.11 cm
 # One depth, single-head analysis with alpha* = 0.12 /cm (Python: 30.209 cm/d).
 wetfront_cli_check(permeameter_one_depth 0 "Field-saturated conductivity: 30\\.21 cm/d"
                    soil permeameter ${example_dir}/well-permeameter-one-depth.csv ${well_options} --csv one-depth.csv)
-wetfront_cli_check(permeameter_csv_written 0 "Results written to one-depth\\.csv"
-                   soil permeameter ${example_dir}/well-permeameter-one-depth.csv ${well_options} --csv one-depth.csv)
+wetfront_cli_check(permeameter_csv_written 0 "Results written to one-depth-table\\.csv"
+                   soil permeameter ${example_dir}/well-permeameter-one-depth.csv ${well_options} --csv one-depth-table.csv)
 # Layered: the two-head solution is negative; warning and single-head mean (21.15 cm/d).
 wetfront_cli_check(permeameter_layered_fallback 0 "Field-saturated conductivity: 21\\.15 cm/d"
                    soil permeameter ${example_dir}/well-permeameter-layered.csv ${well_options})

@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-"""The demo's run file and small sweep and calibration files are netCDF-4 files that follow CF-1.10, read by
+"""The demo's run file, small sweep and calibration files and the demo network's summary are netCDF-4 files that follow CF-1.10, read by
 the tools hydrologists use: xarray (default engine, netCDF-C underneath), ncdump, UDUNITS-2.
 
 Usage: cf_files_test.py WETFRONT_PROGRAM DEMO_DIRECTORY
@@ -200,6 +200,15 @@ def main(program, demo):
         checks.expect(done.returncode == 0, f"calibration failed: {done.stderr}")
         if done.returncode == 0:
             check_netcdf_file(checks, calibration_path, udunits)
+
+        # The summary of the demo network (examples/network).
+        network = scratch / "network"
+        shutil.copytree(pathlib.Path(demo).parent / "network", network, ignore=shutil.ignore_patterns("*.h5"))
+        done = subprocess.run([program, "network", str(network / "network.toml"), "--quiet"], capture_output=True,
+                              text=True)
+        checks.expect(done.returncode == 0, f"network failed: {done.stderr}")
+        if done.returncode == 0:
+            check_netcdf_file(checks, network / "network.h5", udunits)
 
     for message in checks.failures:
         print("FAIL:", message)

@@ -1,0 +1,215 @@
+#include "network_command.hpp"
+
+#include <cstdio>
+#include <memory>
+#include <mutex>
+
+#include <fmt/format.h>
+
+#include "command_output.hpp"
+#include "exit_codes.hpp"
+#include "season_report.hpp"
+#include "sensor_report.hpp"
+#include "wetfront/base/input_error.hpp"
+#include "wetfront/profiles/run_file.hpp"
+#include "wetfront/site/network.hpp"
+#include "wetfront/site/output_files.hpp"
+#include "wetfront/site/report_table.hpp"
+#include "wetfront/studies/parallel_batch.hpp"
+
+namespace wetfront::cli {
+
+using namespace wetfront::site;
+namespace {
+
+std::filesystem::path with_suffix(const std::filesystem::path& base, const std::string& suffix) {
+  std::filesystem::path out = base;
+  out.replace_filename(base.filename().string() + suffix);
+  return out;
+}
+
+std::string mm_or_blank(const std::optional<double>& cm) { return cm ? mm(*cm) : std::string(); }
+
+// One row per site: status, period, season totals, estimates and the fit of the heads.
+ReportTable sites_table(const std::vector<NetworkSite>& sites) {
+  ReportTable table;
+  table.title =
+      "Network: season per site [mm] (fluxes positive downward; field estimates summed over the visit intervals "
+      "that have one; blank where none)";
+  table.headers = {"site",
+                   "status",
+                   "from",
+                   "to",
+                   "plane [cm]",
+                   "rain + irrigation [mm]",
+                   "evaporation [mm]",
+                   "transpiration [mm]",
+                   "runoff [mm]",
+                   "storage change [mm]",
+                   "drainage at plane [mm]",
+                   "Darcy estimate [mm]",
+                   "water-table estimate [mm]",
+                   "head RMSE [cm]",
+                   "head bias [cm]",
+                   "head readings",
+                   "site file",
+                   "reason"};
+  for (const auto& s : sites) {
+    if (!s.has_run()) {
+      std::vector<std::string> row{s.name, status_text(s.status)};
+      row.resize(table.headers.size() - 2);
+      row.push_back(s.site_file.string());
+      row.push_back(s.reason);
+      table.add_row(std::move(row));
+      continue;
+    }
+    table.add_row({s.name, status_text(s.status), s.run_start, s.run_end, number(s.plane_depth_cm),
+                   mm(s.water_input_cm), mm(s.evaporation_cm), mm(s.transpiration_cm), mm(s.runoff_cm),
+                   mm(s.storage_change_cm), mm(s.drainage_cm), mm_or_blank(s.darcy_cm), mm_or_blank(s.water_table_cm),
+                   s.head_rmse_cm ? number(*s.head_rmse_cm) : "", s.head_bias_cm ? number(*s.head_bias_cm) : "",
+                   fmt::format("{}", s.head_readings), s.site_file.string(), s.reason});
+  }
+  return table;
+}
+
+// One row per site and visit interval.
+ReportTable intervals_table(const std::vector<NetworkSite>& sites) {
+  ReportTable table;
+  table.title = "Network: recharge per visit interval [mm] (positive downward)";
+  table.headers = {"site", "from", "to", "drainage at plane [mm]", "Darcy estimate [mm]", "water-table estimate [mm]"};
+  for (const auto& s : sites) {
+    for (const auto& i : s.intervals) {
+      table.add_row({s.name, i.start_date, i.end_date, mm(i.drainage_cm), mm_or_blank(i.darcy_cm),
+                     mm_or_blank(i.water_table_cm)});
+    }
+  }
+  return table;
+}
+
+// The site's own files, as `wetfront run` writes them: SITE.h5 beside the site file, with
+// SITE-visits.csv and, with sensors, SITE-sensors.csv.
+OutputPlan site_outputs(const SiteSetup& setup, bool force) {
+  std::filesystem::path out = setup.site_file;
+  out.replace_extension(".h5");
+  const std::filesystem::path stem = out.parent_path() / out.stem();
+  return {.outputs = {out, with_suffix(stem, "-visits.csv"), with_suffix(stem, "-sensors.csv")},
+          .inputs = site_input_files(setup),
+          .force = force};
+}
+
+void write_site_files(const SeasonResult& result, bool force) {
+  const OutputPlan plan = site_outputs(result.season.site, force);
+  const OutputGuard guard(plan);
+  // The HDF5 library is not built thread-safe: one site's files at a time.
+  static std::mutex hdf5_lock;
+  const std::lock_guard lock(hdf5_lock);
+  const std::filesystem::path& out = plan.outputs[0];
+  const std::filesystem::path& visits = plan.outputs[1];
+  const std::filesystem::path& sensors_csv = plan.outputs[2];
+  profiles::RunRecord record = result.record;
+  record.run_id = new_run_id();
+  const bool metrics = !result.sensors.sensors.empty() || !result.sensors.pooled.empty();
+  std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
+      {visits, visit_balance_table(record, &result.sensors)}};
+  if (metrics) tables.push_back({sensors_csv, sensor_metrics_table(result.sensors)});
+  for (auto& table : tables) table.second.run_id = record.run_id;
+  write_files_together(tables, [&] {
+    try {
+      profiles::write_run(out, record);
+    } catch (const profiles::RunFileError& error) {
+      throw base::InputError(error.what());
+    }
+  });
+  if (!metrics) std::filesystem::remove(sensors_csv);
+}
+
+}  // namespace
+
+void add_network_command(CLI::App& app) {
+  struct Options {
+    std::string network;
+    std::vector<std::string> sites;
+    std::string summary;
+    unsigned threads = 0;
+    bool quiet = false;
+    bool force = false;
+  };
+  auto options = std::make_shared<Options>();
+  CLI::App* cmd = app.add_subcommand("network", "Run the seasons of many plots and summarise them side by side");
+  auto* network = cmd->add_option("NETWORK", options->network, "network file (TOML); see docs/network-file.md");
+  auto* sites = cmd->add_option("--sites", options->sites, "site files to run instead of a network file");
+  network->excludes(sites);
+  sites->excludes(network);
+  cmd->add_option("--summary", options->summary,
+                  "summary name without extension (default: the network file's `summary`, or `network` in the "
+                  "current folder with --sites)");
+  cmd->add_option("--threads", options->threads, "worker threads (default 0: all cores); results do not depend on it");
+  cmd->add_flag("--quiet", options->quiet, "print only errors and the failed sites");
+  cmd->add_flag("--force", options->force,
+                "replace output files that wetfront did not write (files the runs read are never replaced)");
+  cmd->footer(
+      "Runs every site as `wetfront run` would and writes its run file and CSV tables beside its site file;\n"
+      "then writes the summary: NAME-sites.csv (one row per site), NAME-intervals.csv (one row per site and\n"
+      "visit interval) and NAME.h5 (the same tables; docs/network-file.md). A site that cannot be read or whose\n"
+      "solver fails is listed with its reason and the others go on.\n"
+      "Exit codes: 0 every site done, 1 bad network file or options (nothing written), 4 one or more sites\n"
+      "failed (the summary names them; the others' files are written).\n"
+      "Examples:\n  wetfront network examples/network/network.toml\n"
+      "  wetfront network --sites a/site.toml b/site.toml --summary plots");
+  cmd->callback([options, cmd] {
+    NetworkPlan plan;
+    if (!options->network.empty()) {
+      plan = load_network_file(options->network);
+      if (!options->summary.empty()) plan.summary = options->summary;
+    } else {
+      if (options->sites.empty()) throw base::InputError("give a network file or --sites with one or more site files");
+      std::vector<std::filesystem::path> files(options->sites.begin(), options->sites.end());
+      plan = network_of_sites(std::move(files), options->summary.empty() ? "network" : options->summary);
+    }
+    const std::filesystem::path h5 = with_suffix(plan.summary, ".h5");
+    const std::filesystem::path sites_csv = with_suffix(plan.summary, "-sites.csv");
+    const std::filesystem::path intervals_csv = with_suffix(plan.summary, "-intervals.csv");
+    // Before any run: the summary's folder, the files read, files of other programs, another writer.
+    const auto guard = guard_outputs(*cmd, {h5, sites_csv, intervals_csv}, options->force, plan.site_files);
+    const unsigned threads = studies::thread_count(options->threads);
+    if (!options->quiet)
+      fmt::print(stderr, "wetfront: {} sites on {} threads\n", plan.site_files.size(),
+                 std::min<std::size_t>(threads, plan.site_files.size()));
+    const bool quiet = options->quiet;
+    const std::size_t total = plan.site_files.size();
+    const bool force = options->force;
+    const std::vector<NetworkSite> results = run_network(
+        plan, threads, WETFRONT_VERSION, [force](const SeasonResult& r) { write_site_files(r, force); },
+        [quiet, total](std::size_t done, const NetworkSite& s) {
+          if (!quiet) fmt::print(stderr, "wetfront: [{}/{}] {}: {}\n", done, total, s.name, status_text(s.status));
+        },
+        [force](const SiteSetup& setup) { check_outputs(site_outputs(setup, force)); });
+    const std::string run_id = new_run_id();
+    ReportTable per_site = sites_table(results);
+    ReportTable per_interval = intervals_table(results);
+    per_site.run_id = per_interval.run_id = run_id;
+    write_files_together({{sites_csv, per_site}, {intervals_csv, per_interval}}, [&] {
+      try {
+        profiles::write_study(h5, network_record(plan, results, WETFRONT_VERSION, run_id));
+      } catch (const profiles::RunFileError& error) {
+        throw base::InputError(error.what());
+      }
+    });
+    std::size_t failed = 0;
+    for (const auto& s : results) {
+      if (s.status == SiteStatus::done) continue;
+      ++failed;
+      fmt::print(stderr, "error: site {} ({}): {}: {}\n", s.name, s.site_file.string(), status_text(s.status),
+                 s.reason);
+    }
+    if (!options->quiet) {
+      fmt::print("{}\n", format_table(per_site));
+      fmt::print("{}\n", format_table(per_interval));
+      fmt::print("{} of {} sites done. Wrote {}, {} and {}\n", results.size() - failed, results.size(), h5.string(),
+                 sites_csv.string(), intervals_csv.string());
+    }
+    if (failed > 0) throw CLI::RuntimeError(exit_some_sites_failed);
+  });
+}
+
+}  // namespace wetfront::cli
