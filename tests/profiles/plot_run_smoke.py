@@ -1,6 +1,7 @@
 #!/usr/bin/python3
-"""Smoke test of profiles/plot_run.py: it makes three readable PNG files from a sample run
-file and refuses a date outside the run with a message naming it.
+"""Smoke test of profiles/plot_run.py: it makes four readable PNG files (sensor heads, water
+content, balance, recharge per visit interval) from a sample run file and refuses a date
+outside the run with a message naming it.
 
 Usage: plot_run_smoke.py PLOT_RUN.py RUN_FILE.h5 OUTPUT_DIR
 """
@@ -21,7 +22,7 @@ def main(script, run_file, out):
     if result.returncode != 0:
         failures.append(f"plot_run.py exited with {result.returncode}: {result.stderr}")
     stem = pathlib.Path(run_file).stem
-    for kind in ("sensor_heads", "water_content", "balance"):
+    for kind in ("sensor_heads", "water_content", "balance", "recharge"):
         png = out / f"{stem}_{kind}.png"
         if not png.is_file():
             failures.append(f"missing {png}")
