@@ -216,6 +216,7 @@ void write_sensors(hid_t file, const std::vector<Sensor>& sensors) {
   for (const Sensor& sensor : sensors) names.push_back(sensor.name);
   h5::Dataset sensor = h5::write_texts(group.id(), "sensor", names, {"", "sensor name"});
   h5::make_coordinate(sensor);
+  h5::set_text_attribute(sensor.id(), ".", "coordinates", "depth");  // CF: depth is an auxiliary coordinate
   h5::Dataset depth = h5::write_vector(group.id(), "depth", column(sensors, &Sensor::depth_cm),
                                        {"cm",
                                         "depth of the sensor below the soil surface (0 for an observation well or core "

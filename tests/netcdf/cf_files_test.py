@@ -146,6 +146,7 @@ def check_run_root(checks, path):
     with sensors:
         checks.expect(sensors["depth"].dims == ("sensor",), "sensor depth along the sensor dimension")
         checks.expect("sensor" in sensors.coords, "sensor names are the sensor coordinate")
+        checks.expect("depth" in sensors.coords, "sensor depth is an auxiliary coordinate, not a data variable")
 
 
 def check_output_times(checks, path, interval_days):
