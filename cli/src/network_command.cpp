@@ -107,20 +107,7 @@ void write_site_files(const SeasonResult& result, bool force) {
   const std::filesystem::path& visits = plan.outputs[1];
   const std::filesystem::path& sensors_csv = plan.outputs[2];
   profiles::RunRecord record = result.record;
-  record.run_id = new_run_id();
-  const bool metrics = !result.sensors.sensors.empty() || !result.sensors.pooled.empty();
-  std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
-      {visits, visit_balance_table(record, &result.sensors)}};
-  if (metrics) tables.push_back({sensors_csv, sensor_metrics_table(result.sensors)});
-  for (auto& table : tables) table.second.run_id = record.run_id;
-  write_files_together(tables, [&] {
-    try {
-      profiles::write_run(out, record);
-    } catch (const profiles::RunFileError& error) {
-      throw base::InputError(error.what());
-    }
-  });
-  if (!metrics) std::filesystem::remove(sensors_csv);
+  write_season_files(record, result.sensors, out, visits, sensors_csv);
 }
 
 }  // namespace

@@ -10,6 +10,7 @@
 #include <fmt/format.h>
 
 #include "wetfront/site/adjustable_parameters.hpp"
+#include "command_output.hpp"
 #include "exit_codes.hpp"
 #include "run_file_probe.hpp"
 #include "wetfront/base/input_error.hpp"
@@ -225,23 +226,10 @@ void add_run_command(CLI::App& app) {
     const bool complete = result.complete;
     std::optional<GridCheck> grid;
     if (options->grid_check && complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
-    result.record.run_id = new_run_id();
+    const bool metrics =
+        write_season_files(result.record, result.sensors, out, visits_csv_path(out), sensors_csv_path(out));
     const profiles::RunRecord& record = result.record;
     const SensorCheck& sensors = result.sensors;
-    const bool metrics = !sensors.sensors.empty() || !sensors.pooled.empty();
-    std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
-        {visits_csv_path(out), visit_balance_table(record, &sensors)}};
-    if (metrics) tables.push_back({sensors_csv_path(out), sensor_metrics_table(sensors)});
-    for (auto& table : tables) table.second.run_id = record.run_id;
-    write_files_together(tables, [&] {
-      try {
-        profiles::write_run(out, record);
-      } catch (const profiles::RunFileError& error) {
-        throw base::InputError(error.what());
-      }
-    });
-    // A metrics table from an earlier run with sensors would no longer describe this run file.
-    if (!metrics) std::filesystem::remove(sensors_csv_path(out));
     if (!options->quiet) {
       fmt::print("{}", season_report(record, season_notes(result.season), &sensors));
       if (grid) fmt::print("{}", grid_check_text(*grid));
