@@ -6,6 +6,7 @@
 #include "wetfront/forcing/crop_coefficient.hpp"
 
 #include <cmath>
+#include <initializer_list>
 #include <stdexcept>
 
 #include <fmt/format.h>
@@ -29,9 +30,18 @@ void check_stages(const GrowthStageLengths& s, double planting_day, const char* 
   if (!std::isfinite(planting_day)) throw base::InputError(fmt::format("{}: planting day must be finite", who));
 }
 
-void check_coefficient(double v, const char* who, const char* name) {
-  if (!(v >= 0 && v <= 2))
-    throw base::InputError(fmt::format("{}: {} = {:g}; expected a coefficient from 0 to 2", who, name, v));
+struct NamedCoefficient {
+  double value;
+  const char* name;
+};
+
+// The growth stages, then each coefficient in [0, 2].
+void check_curve(const GrowthStageLengths& stages, double planting_day, const char* who,
+                 std::initializer_list<NamedCoefficient> coefficients) {
+  check_stages(stages, planting_day, who);
+  for (const auto& [v, name] : coefficients)
+    if (!(v >= 0 && v <= 2))
+      throw base::InputError(fmt::format("{}: {} = {:g}; expected a coefficient from 0 to 2", who, name, v));
 }
 
 // Fraction of the way through a stage of given length starting at `from`; 1 for a zero-length stage.
@@ -57,12 +67,9 @@ GrowthStage growth_stage_at(double planting_day, const GrowthStageLengths& s, do
 }
 
 void check_crop_curve(const CropCoefficientCurve& c) {
-  constexpr const char* who = "crop coefficient curve";
-  check_stages(c.stages, c.planting_day, who);
-  check_coefficient(c.kc_initial, who, "Kc initial");
-  check_coefficient(c.kc_mid, who, "Kc mid-season");
-  check_coefficient(c.kc_end, who, "Kc end of season");
-  check_coefficient(c.kc_bare_soil, who, "bare-soil coefficient");
+  check_curve(c.stages, c.planting_day, "crop coefficient curve",
+              {{c.kc_initial, "Kc initial"}, {c.kc_mid, "Kc mid-season"}, {c.kc_end, "Kc end of season"},
+               {c.kc_bare_soil, "bare-soil coefficient"}});
 }
 
 double crop_coefficient_at(const CropCoefficientCurve& c, double day) {
@@ -81,13 +88,10 @@ double crop_coefficient_at(const CropCoefficientCurve& c, double day) {
 }
 
 void check_pan_to_crop_factors(const PanToCropFactors& f) {
-  constexpr const char* who = "pan-to-crop factors";
-  check_stages(f.stages, f.planting_day, who);
-  check_coefficient(f.initial, who, "initial stage factor");
-  check_coefficient(f.development, who, "development stage factor");
-  check_coefficient(f.mid_season, who, "mid-season factor");
-  check_coefficient(f.late_season, who, "late season factor");
-  check_coefficient(f.bare_soil, who, "bare-soil factor");
+  check_curve(f.stages, f.planting_day, "pan-to-crop factors",
+              {{f.initial, "initial stage factor"}, {f.development, "development stage factor"},
+               {f.mid_season, "mid-season factor"}, {f.late_season, "late season factor"},
+               {f.bare_soil, "bare-soil factor"}});
 }
 
 double pan_to_crop_factor_at(const PanToCropFactors& f, double day) {

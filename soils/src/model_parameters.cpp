@@ -43,35 +43,28 @@ std::vector<HydraulicModel> default_models(std::index_sequence<I...>) {
   return {HydraulicModel(std::in_place_index<I>)...};
 }
 
-double* van_genuchten_value(VanGenuchtenMualem& m, std::string_view key) {
-  if (key == "residual_water_content") return &m.residual_water_content;
-  if (key == "saturated_water_content") return &m.saturated_water_content;
-  if (key == "alpha") return &m.alpha_per_cm;
-  if (key == "n") return &m.n;
-  if (key == "saturated_conductivity") return &m.saturated_conductivity_cm_per_d;
-  if (key == "pore_connectivity") return &m.pore_connectivity;
-  return nullptr;
+// Each model's values in the order of its parameter table above.
+std::array<double*, 6> values_of(VanGenuchtenMualem& m) {
+  return {&m.residual_water_content, &m.saturated_water_content,        &m.alpha_per_cm,
+          &m.n,                      &m.saturated_conductivity_cm_per_d, &m.pore_connectivity};
 }
-
-double* value_of(VanGenuchtenMualem& m, std::string_view key) { return van_genuchten_value(m, key); }
-double* value_of(VanGenuchtenAirEntry& m, std::string_view key) {
-  return key == "air_entry_head" ? &m.air_entry_head_cm : van_genuchten_value(m.base, key);
+std::array<double*, 7> values_of(VanGenuchtenAirEntry& m) {
+  const auto base = values_of(m.base);
+  return {base[0], base[1], base[2], base[3], base[4], base[5], &m.air_entry_head_cm};
 }
-double* value_of(BrooksCorey& m, std::string_view key) {
-  if (key == "residual_water_content") return &m.residual_water_content;
-  if (key == "saturated_water_content") return &m.saturated_water_content;
-  if (key == "bubbling_head") return &m.bubbling_head_cm;
-  if (key == "pore_size_index") return &m.pore_size_index;
-  if (key == "saturated_conductivity") return &m.saturated_conductivity_cm_per_d;
-  return nullptr;
+std::array<double*, 5> values_of(BrooksCorey& m) {
+  return {&m.residual_water_content, &m.saturated_water_content, &m.bubbling_head_cm, &m.pore_size_index,
+          &m.saturated_conductivity_cm_per_d};
 }
-double* value_of(GardnerExponential& m, std::string_view key) {
-  if (key == "residual_water_content") return &m.residual_water_content;
-  if (key == "saturated_water_content") return &m.saturated_water_content;
-  if (key == "sorptive_number") return &m.sorptive_number_per_cm;
-  if (key == "saturated_conductivity") return &m.saturated_conductivity_cm_per_d;
-  return nullptr;
+std::array<double*, 4> values_of(GardnerExponential& m) {
+  return {&m.residual_water_content, &m.saturated_water_content, &m.sorptive_number_per_cm,
+          &m.saturated_conductivity_cm_per_d};
 }
+static_assert(std::tuple_size_v<decltype(values_of(std::declval<VanGenuchtenMualem&>()))> == kVanGenuchten.size() &&
+                  std::tuple_size_v<decltype(values_of(std::declval<VanGenuchtenAirEntry&>()))> == kAirEntry.size() &&
+                  std::tuple_size_v<decltype(values_of(std::declval<BrooksCorey&>()))> == kBrooksCorey.size() &&
+                  std::tuple_size_v<decltype(values_of(std::declval<GardnerExponential&>()))> == kGardner.size(),
+              "values_of lists one value per parameter of the model's table");
 
 }  // namespace
 
@@ -103,7 +96,15 @@ std::vector<std::string_view> all_parameter_keys() {
 }
 
 double* parameter_value(HydraulicModel& model, std::string_view key) {
-  return std::visit([key](auto& m) { return value_of(m, key); }, model);
+  const auto parameters = kParameters[model.index()];
+  return std::visit(
+      [&](auto& m) -> double* {
+        const auto values = values_of(m);
+        for (std::size_t i = 0; i < parameters.size(); ++i)
+          if (parameters[i].key == key) return values[i];
+        return nullptr;
+      },
+      model);
 }
 
 const double* parameter_value(const HydraulicModel& model, std::string_view key) {
