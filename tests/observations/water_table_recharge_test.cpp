@@ -12,14 +12,16 @@ namespace {
 
 const std::vector<WaterTableReading> kSeries = {{0, 200}, {10, 180}, {20, 190}, {30, 150}};
 
+void expect_amounts(const std::vector<IntervalRecharge>& rows, const std::vector<double>& amounts_cm) {
+  ASSERT_EQ(rows.size(), amounts_cm.size());
+  for (std::size_t i = 0; i < rows.size(); ++i) EXPECT_NEAR(rows[i].amount_cm, amounts_cm[i], 1e-12) << "interval " << i;
+}
+
 TEST(WaterTableRecharge, PlainRises) {
   // Sy = 0.1. Depth 200 -> 180: rise 20 cm, R = 2.0 cm; 180 -> 190: a fall, R = 0;
   // 190 -> 150: rise 40 cm, R = 4.0 cm. Season 6.0 cm.
   const auto rows = water_table_recharge({0.1, 0.0}, kSeries);
-  ASSERT_EQ(rows.size(), 3u);
-  EXPECT_NEAR(rows[0].amount_cm, 2.0, 1e-12);
-  EXPECT_NEAR(rows[1].amount_cm, 0.0, 1e-12);
-  EXPECT_NEAR(rows[2].amount_cm, 4.0, 1e-12);
+  expect_amounts(rows, {2.0, 0.0, 4.0});
   EXPECT_NEAR(rows[0].mean_flux_cm_per_d, 0.2, 1e-12);
   EXPECT_DOUBLE_EQ(rows[2].start_day, 20.0);
   EXPECT_DOUBLE_EQ(rows[2].end_day, 30.0);
@@ -30,11 +32,7 @@ TEST(WaterTableRecharge, RiseAgainstTheAntecedentRecession) {
   // 200 -> expected 205, found 180: rise 25, R = 2.5 cm
   // 180 -> expected 185, found 190: below the recession, R = 0
   // 190 -> expected 195, found 150: rise 45, R = 4.5 cm
-  const auto rows = water_table_recharge({0.1, 0.5}, kSeries);
-  ASSERT_EQ(rows.size(), 3u);
-  EXPECT_NEAR(rows[0].amount_cm, 2.5, 1e-12);
-  EXPECT_NEAR(rows[1].amount_cm, 0.0, 1e-12);
-  EXPECT_NEAR(rows[2].amount_cm, 4.5, 1e-12);
+  expect_amounts(water_table_recharge({0.1, 0.5}, kSeries), {2.5, 0.0, 4.5});
 }
 
 TEST(WaterTableRecharge, RejectsBadInput) {

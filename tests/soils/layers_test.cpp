@@ -13,6 +13,7 @@
 
 namespace ws = wetfront::soils;
 
+using wetfront::test_support::expect_mentions;
 using wetfront::test_support::input_error_message;
 
 namespace {
@@ -34,25 +35,21 @@ TEST(LayeredProfile, RejectsEmptyProfile) {
 
 TEST(LayeredProfile, RejectsFirstLayerBelowSurface) {
   const auto msg = input_error_message([] { ws::LayeredProfile p({layer("topsoil", 5, 30)}); });
-  EXPECT_NE(msg.find("'topsoil'"), std::string::npos) << msg;
-  EXPECT_NE(msg.find("starts at 5"), std::string::npos) << msg;
+  expect_mentions(msg, {"'topsoil'", "starts at 5"});
 }
 
 TEST(LayeredProfile, RejectsGapNamingTheLayer) {
   const auto msg = input_error_message([] {
     ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 35, 80)});
   });
-  EXPECT_NE(msg.find("'subsoil'"), std::string::npos) << msg;
-  EXPECT_NE(msg.find("35"), std::string::npos) << msg;
-  EXPECT_NE(msg.find("30"), std::string::npos) << msg;
+  expect_mentions(msg, {"'subsoil'", "35", "30"});
 }
 
 TEST(LayeredProfile, RejectsOverlapNamingTheLayer) {
   const auto msg = input_error_message([] {
     ws::LayeredProfile p({layer("topsoil", 0, 30), layer("subsoil", 25, 80)});
   });
-  EXPECT_NE(msg.find("'subsoil'"), std::string::npos) << msg;
-  EXPECT_NE(msg.find("25"), std::string::npos) << msg;
+  expect_mentions(msg, {"'subsoil'", "25"});
 }
 
 TEST(LayeredProfile, RejectsZeroAndNegativeThickness) {

@@ -6,6 +6,8 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <utility>
+#include <vector>
 
 #include "solver_test_soils.hpp"
 #include "steady_flux_profile.hpp"
@@ -28,16 +30,22 @@ void expect_complete_and_balanced(const solver::ColumnRun& run) {
   EXPECT_LT(std::abs(last.balance_error_cm), 1e-5 * turnover + 1e-12);
 }
 
+// Runs the problem to end_day with outputs at those days and checks completion and balance.
+solver::ColumnRun run_checked(solver::ColumnProblem problem, double end_day, std::vector<double> output_days) {
+  problem.end_day = end_day;
+  problem.output_days = std::move(output_days);
+  solver::ColumnRun run = solver::simulate(problem);
+  expect_complete_and_balanced(run);
+  return run;
+}
+
 TEST(HardCases, HeavyRainOnDrySand) {
   // 10 cm/d on sand at -1000 cm: the front is a few millimetres wide.
   solver::ColumnProblem problem = graded_column(sand(), {100.0, {}, 0.2, 1.1, 1.0});
   problem.top = solver::PrescribedFlux{solver::StepSeries::constant(10.0)};
   problem.bottom = solver::FreeDrainage{};
   problem.initial = solver::UniformHead{-1000.0};
-  problem.end_day = 2.0;
-  problem.output_days = {0.25, 0.5, 1.0, 2.0};
-  const solver::ColumnRun run = solver::simulate(problem);
-  expect_complete_and_balanced(run);
+  const solver::ColumnRun run = run_checked(problem, 2.0, {0.25, 0.5, 1.0, 2.0});
   if (!run.complete) return;
   // All 20 cm entered the soil (prescribed flux, well below Ks).
   EXPECT_NEAR(run.balances.back().infiltration_cm, 20.0, 1e-6);
@@ -49,10 +57,7 @@ TEST(HardCases, FineClayDriedAtTheSurface) {
   problem.top = solver::PrescribedHead{solver::StepSeries::constant(-15000.0)};
   problem.bottom = solver::FixedHead{0.0};
   problem.initial = solver::Hydrostatic{100.0};
-  problem.end_day = 30.0;
-  problem.output_days = {1.0, 10.0, 30.0};
-  const solver::ColumnRun run = solver::simulate(problem);
-  expect_complete_and_balanced(run);
+  const solver::ColumnRun run = run_checked(problem, 30.0, {1.0, 10.0, 30.0});
   if (!run.complete) return;
   // The soil loses water at the surface (upward, negative) and the top cell dries.
   EXPECT_LT(run.balances.back().infiltration_cm, 0.0);
@@ -68,10 +73,7 @@ TEST(HardCases, RainAboveKsOnLoamPondsAndRecovers) {
   problem.top = solver::LimitedFlux{rain, evaporation, -15000.0, 0.0};
   problem.bottom = solver::FreeDrainage{};
   problem.initial = solver::UniformHead{-300.0};
-  problem.end_day = 5.0;
-  problem.output_days = {0.25, 0.5, 1.0, 5.0};
-  const solver::ColumnRun run = solver::simulate(problem);
-  expect_complete_and_balanced(run);
+  const solver::ColumnRun run = run_checked(problem, 5.0, {0.25, 0.5, 1.0, 5.0});
   if (!run.complete) return;
   // Expected: flux -> ponded (runoff) early on, back to flux when the rain stops at 0.5 d,
   // and to the dry limit late in the run if the surface dries to -15000 cm: 2 or 3 switches;
@@ -93,10 +95,7 @@ void expect_wet_clay_reaches_steady_profile(const soils::HydraulicModel& model) 
   problem.top = solver::PrescribedFlux{solver::StepSeries::constant(flux)};
   problem.bottom = solver::FixedHead{0.0};
   problem.initial = solver::Hydrostatic{20.0};
-  problem.end_day = 10.0;
-  problem.output_days = {1.0, 10.0};
-  const solver::ColumnRun run = solver::simulate(problem);
-  expect_complete_and_balanced(run);
+  const solver::ColumnRun run = run_checked(problem, 10.0, {1.0, 10.0});
   if (!run.complete) return;
   const auto& profile = run.profiles.back();
   for (const double f : profile.face_flux_cm_per_d) EXPECT_NEAR(f, flux, 1e-4);

@@ -3,7 +3,9 @@
 
 #include <gtest/gtest.h>
 
+#include <initializer_list>
 #include <string>
+#include <string_view>
 
 #include "wetfront/base/input_error.hpp"
 
@@ -26,6 +28,12 @@ base::InputError input_error_of(Action action) {
 template <class Action>
 std::string input_error_message(Action action) {
   return input_error_of(action).what();
+}
+
+// Checks that a message holds each of the given words or numbers.
+inline void expect_mentions(const std::string& message, std::initializer_list<std::string_view> words) {
+  for (const std::string_view word : words)
+    EXPECT_NE(message.find(word), std::string::npos) << "'" << word << "' missing from: " << message;
 }
 
 }  // namespace wetfront::test_support
