@@ -29,6 +29,17 @@ void add_force_flag(CLI::App* cmd, bool& force) {
   cmd->add_flag("--force", force, "replace output files that wetfront did not write (never a file the command reads)");
 }
 
+void finish_table_command(CLI::App* cmd, std::string& csv_path, bool& force, const std::string& csv_help,
+                          const std::string& examples, std::function<void()> action) {
+  cmd->add_option("--csv", csv_path, csv_help);
+  add_force_flag(cmd, force);
+  cmd->footer(examples);
+  cmd->callback([cmd, &csv_path, &force, action = std::move(action)] {
+    const auto guard = guard_outputs(*cmd, {csv_path}, force);
+    action();
+  });
+}
+
 std::vector<std::filesystem::path> files_named_by(const CLI::App& cmd) {
   std::vector<std::filesystem::path> files;
   const auto collect = [&](const CLI::App& app) {

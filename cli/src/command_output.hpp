@@ -3,6 +3,7 @@
 #pragma once
 
 #include <filesystem>
+#include <functional>
 #include <memory>
 #include <string>
 #include <vector>
@@ -24,6 +25,12 @@ void emit_report(const std::vector<site::ReportTable>& tables, const std::vector
 // Adds the --force flag (replace output files that wetfront did not write) to `cmd`.
 void add_force_flag(CLI::App* cmd, bool& force);
 
+// The end of a command that prints tables: its --csv option (a copy of the last table), --force,
+// the examples footer, and the callback, which runs `action` once the CSV path is checked and
+// locked (guard_outputs). `csv_path` and `force` must outlive the command (the options struct).
+void finish_table_command(CLI::App* cmd, std::string& csv_path, bool& force, const std::string& csv_help,
+                          const std::string& examples, std::function<void()> action);
+
 // Every existing file named by an option or argument of `cmd` (its option groups included) other
 // than the output options --out, --output, --csv and --sensors-csv: the files the command reads.
 std::vector<std::filesystem::path> files_named_by(const CLI::App& cmd);
@@ -37,8 +44,7 @@ std::unique_ptr<site::OutputGuard> guard_outputs(const CLI::App& cmd, std::vecto
 // site has sensor metrics, its sensor table, as one set. Without metrics an earlier sensor table
 // at `sensors_csv` is removed: it would no longer describe this run file. Returns whether the
 // sensor table was written.
-bool write_season_files(profiles::RunRecord& record, const site::SensorCheck& sensors,
-                        const std::filesystem::path& out, const std::filesystem::path& visits_csv,
-                        const std::filesystem::path& sensors_csv);
+bool write_season_files(profiles::RunRecord& record, const site::SensorCheck& sensors, const std::filesystem::path& out,
+                        const std::filesystem::path& visits_csv, const std::filesystem::path& sensors_csv);
 
 }  // namespace wetfront::cli

@@ -59,16 +59,14 @@ void add_permeameter_command(CLI::App& soil) {
   cmd->add_flag("--single-head", options->inputs.single_head_only,
                 "with two water depths, average the single-head results instead of solving the two-head equations");
   add_steadiness_options(*cmd, options->inputs.tolerances);
-  cmd->add_option("--csv", options->csv_path, "also write the results table to this CSV file");
-  add_force_flag(cmd, options->force);
-  cmd->footer(
-      "Example:\n"
-      "  wetfront soil permeameter examples/soil-data/well-permeameter.csv --well-radius \"3 cm\" \\\n"
-      "      --reservoir-area \"35.4 cm2\" --soil structured --csv kfs.csv");
-  cmd->callback([options, cmd] {
-    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
-    emit_field_report(analyse_permeameter(options->inputs), "Field-saturated conductivity", options->csv_path);
-  });
+  finish_table_command(cmd, options->csv_path, options->force, "also write the results table to this CSV file",
+                       "Example:\n"
+                       "  wetfront soil permeameter examples/soil-data/well-permeameter.csv --well-radius \"3 cm\" \\\n"
+                       "      --reservoir-area \"35.4 cm2\" --soil structured --csv kfs.csv",
+                       [options] {
+                         emit_field_report(analyse_permeameter(options->inputs), "Field-saturated conductivity",
+                                           options->csv_path);
+                       });
 }
 
 void add_infiltrometer_command(CLI::App& soil) {
@@ -91,16 +89,14 @@ void add_infiltrometer_command(CLI::App& soil) {
                   "inner cross-section of the water tower the levels are read on, with unit (e.g. \"19.6 cm2\")")
       ->required();
   add_steadiness_options(*cmd, options->inputs.tolerances);
-  cmd->add_option("--csv", options->csv_path, "also write the conductivity table to this CSV file");
-  add_force_flag(cmd, options->force);
-  cmd->footer(
-      "Example:\n"
-      "  wetfront soil infiltrometer examples/soil-data/tension-disc.csv --disc-radius \"10 cm\" \\\n"
-      "      --tower-area \"19.6 cm2\" --csv disc.csv");
-  cmd->callback([options, cmd] {
-    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
-    emit_field_report(analyse_infiltrometer(options->inputs), "Saturated conductivity", options->csv_path);
-  });
+  finish_table_command(cmd, options->csv_path, options->force, "also write the conductivity table to this CSV file",
+                       "Example:\n"
+                       "  wetfront soil infiltrometer examples/soil-data/tension-disc.csv --disc-radius \"10 cm\" \\\n"
+                       "      --tower-area \"19.6 cm2\" --csv disc.csv",
+                       [options] {
+                         emit_field_report(analyse_infiltrometer(options->inputs), "Saturated conductivity",
+                                           options->csv_path);
+                       });
 }
 
 }  // namespace wetfront::cli

@@ -23,29 +23,28 @@ void add_texture_command(CLI::App& soil) {
   CLI::App* cmd = soil.add_subcommand(
       "texture", "Class-average van Genuchten-Mualem parameters of a USDA texture class (Carsel & Parrish 1988)");
   cmd->add_option("NAME", options->name, "texture class, e.g. \"sandy loam\"; all classes when left out");
-  cmd->add_option("--csv", options->csv_path, "also write the table to this CSV file");
-  add_force_flag(cmd, options->force);
-  cmd->footer("Examples:\n  wetfront soil texture \"silt loam\"\n  wetfront soil texture --csv classes.csv");
-  cmd->callback([options, cmd] {
-    const auto guard = guard_outputs(*cmd, {options->csv_path}, options->force);
-    ReportTable table;
-    table.title = "Class-average parameters, Carsel & Parrish (1988); pore connectivity l = 0.5 (Mualem 1976)";
-    table.headers = {"texture class", "theta_r [cm3/cm3]", "theta_s [cm3/cm3]", "alpha [1/cm]", "n [-]", "Ks [cm/d]"};
-    auto add = [&](std::string_view name, const soils::VanGenuchtenMualem& p) {
-      table.add_row({std::string(name), number(p.residual_water_content), number(p.saturated_water_content),
-                     number(p.alpha_per_cm), number(p.n), number(p.saturated_conductivity_cm_per_d)});
-    };
-    if (options->name.empty()) {
-      for (const auto& c : soils::texture_classes()) add(c.name, c.parameters);
-    } else {
-      try {
-        add(options->name, soils::texture_class_parameters(options->name));
-      } catch (const base::InputError& error) {
-        throw base::InputError(fmt::format("texture class: {}", error.what()));
-      }
-    }
-    emit_report({table}, {}, options->csv_path);
-  });
+  finish_table_command(
+      cmd, options->csv_path, options->force, "also write the table to this CSV file",
+      "Examples:\n  wetfront soil texture \"silt loam\"\n  wetfront soil texture --csv classes.csv", [options] {
+        ReportTable table;
+        table.title = "Class-average parameters, Carsel & Parrish (1988); pore connectivity l = 0.5 (Mualem 1976)";
+        table.headers = {"texture class", "theta_r [cm3/cm3]", "theta_s [cm3/cm3]", "alpha [1/cm]",
+                         "n [-]",         "Ks [cm/d]"};
+        auto add = [&](std::string_view name, const soils::VanGenuchtenMualem& p) {
+          table.add_row({std::string(name), number(p.residual_water_content), number(p.saturated_water_content),
+                         number(p.alpha_per_cm), number(p.n), number(p.saturated_conductivity_cm_per_d)});
+        };
+        if (options->name.empty()) {
+          for (const auto& c : soils::texture_classes()) add(c.name, c.parameters);
+        } else {
+          try {
+            add(options->name, soils::texture_class_parameters(options->name));
+          } catch (const base::InputError& error) {
+            throw base::InputError(fmt::format("texture class: {}", error.what()));
+          }
+        }
+        emit_report({table}, {}, options->csv_path);
+      });
 }
 
 }  // namespace wetfront::cli
