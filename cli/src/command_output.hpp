@@ -25,6 +25,15 @@ void emit_report(const std::vector<site::ReportTable>& tables, const std::vector
 // Adds the --force flag (replace output files that wetfront did not write) to `cmd`.
 void add_force_flag(CLI::App* cmd, bool& force);
 
+// The options of a command that prints tables: what it reads, a CSV copy of its last table, and
+// whether that copy may replace a file wetfront did not write.
+template <class Inputs>
+struct TableCommandOptions {
+  Inputs inputs{};
+  std::string csv_path;
+  bool force = false;
+};
+
 // The end of a command that prints tables: its --csv option (a copy of the last table), --force,
 // the examples footer, and the callback, which runs `action` once the CSV path is checked and
 // locked (guard_outputs). `csv_path` and `force` must outlive the command (the options struct).

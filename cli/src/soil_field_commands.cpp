@@ -35,12 +35,7 @@ void emit_field_report(const FieldReport& report, std::string_view label, const 
 }  // namespace
 
 void add_permeameter_command(CLI::App& soil) {
-  struct Options {
-    PermeameterInputs inputs;
-    std::string csv_path;
-    bool force = false;
-  };
-  auto options = std::make_shared<Options>();
+  auto options = std::make_shared<TableCommandOptions<PermeameterInputs>>();
   CLI::App* cmd = soil.add_subcommand(
       "permeameter",
       "Field-saturated conductivity from constant-head well permeameter readings at one or two water depths");
@@ -70,12 +65,7 @@ void add_permeameter_command(CLI::App& soil) {
 }
 
 void add_infiltrometer_command(CLI::App& soil) {
-  struct Options {
-    InfiltrometerInputs inputs;
-    std::string csv_path;
-    bool force = false;
-  };
-  auto options = std::make_shared<Options>();
+  auto options = std::make_shared<TableCommandOptions<InfiltrometerInputs>>();
   CLI::App* cmd = soil.add_subcommand(
       "infiltrometer",
       "Conductivity near saturation from tension disc infiltrometer readings at two or more supply heads");

@@ -17,20 +17,18 @@ namespace wetfront::cli {
 using namespace wetfront::site;  // the application library these commands drive
 
 void add_cores_command(CLI::App& soil) {
-  struct Options {
+  struct CoreFiles {
     std::string cores_file;
     std::string steps_file;
-    std::string csv_path;
-    bool force = false;
   };
-  auto options = std::make_shared<Options>();
+  auto options = std::make_shared<TableCommandOptions<CoreFiles>>();
   CLI::App* cmd = soil.add_subcommand("cores",
                                       "Water content, bulk density and porosity of ring samples, and their "
                                       "retention points when suction steps were weighed");
-  cmd->add_option("FILE", options->cores_file,
+  cmd->add_option("FILE", options->inputs.cores_file,
                   "CSV with columns sample, ring_volume_cm3, tare_mass_g, wet_mass_g, oven_dry_mass_g [, note]")
       ->required();
-  cmd->add_option("--steps", options->steps_file,
+  cmd->add_option("--steps", options->inputs.steps_file,
                   "CSV of equilibrium masses: sample, suction_cm or suction_kPa, wet_mass_g [, note]");
   finish_table_command(
       cmd, options->csv_path, options->force, "also write the last table to this CSV file",
@@ -38,10 +36,10 @@ void add_cores_command(CLI::App& soil) {
       "  wetfront soil cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv --csv "
       "points.csv",
       [options] {
-        const auto cores = soils::read_core_samples_csv(options->cores_file);
+        const auto cores = soils::read_core_samples_csv(options->inputs.cores_file);
         ReportTable table;
         table.title = fmt::format("Ring samples of {} (particle density {} g/cm3 for porosity, common practice)",
-                                  options->cores_file, soils::kMineralParticleDensity_g_per_cm3);
+                                  options->inputs.cores_file, soils::kMineralParticleDensity_g_per_cm3);
         table.headers = {"sample", "water content [cm3/cm3]", "water content [g/g]", "dry bulk density [g/cm3]",
                          "porosity [cm3/cm3]"};
         for (const auto& core : cores) {
@@ -50,15 +48,15 @@ void add_cores_command(CLI::App& soil) {
                          number(p.dry_bulk_density_g_per_cm3), number(soils::porosity(p.dry_bulk_density_g_per_cm3))});
         }
         std::vector<ReportTable> tables = {table};
-        if (!options->steps_file.empty()) {
+        if (!options->inputs.steps_file.empty()) {
           std::vector<soils::RetentionSeries> series;
           try {
-            series = soils::retention_from_cores(cores, soils::read_suction_steps_csv(options->steps_file));
+            series = soils::retention_from_cores(cores, soils::read_suction_steps_csv(options->inputs.steps_file));
           } catch (const base::InputError& error) {
-            throw base::InputError(options->steps_file, 0, "sample", error.what());
+            throw base::InputError(options->inputs.steps_file, 0, "sample", error.what());
           }
           ReportTable points;
-          points.title = fmt::format("Retention points from the suction steps of {}", options->steps_file);
+          points.title = fmt::format("Retention points from the suction steps of {}", options->inputs.steps_file);
           points.headers = {"sample", "suction [cm]", "suction [kPa]", "water content [cm3/cm3]"};
           for (const auto& s : series) {
             for (const auto& point : s.points) {
@@ -74,12 +72,7 @@ void add_cores_command(CLI::App& soil) {
 }
 
 void add_retention_command(CLI::App& soil) {
-  struct Options {
-    RetentionInputs inputs;
-    std::string csv_path;
-    bool force = false;
-  };
-  auto options = std::make_shared<Options>();
+  auto options = std::make_shared<TableCommandOptions<RetentionInputs>>();
   CLI::App* cmd = soil.add_subcommand("retention", "Fit the van Genuchten retention curve to measured water contents");
   cmd->add_option("FILE", options->inputs.points_file,
                   "CSV of retention points: suction_cm or suction_kPa, water_content [, sample] [, note]");

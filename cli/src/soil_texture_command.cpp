@@ -14,15 +14,10 @@ namespace wetfront::cli {
 using namespace wetfront::site;  // the application library these commands drive
 
 void add_texture_command(CLI::App& soil) {
-  struct Options {
-    std::string name;
-    std::string csv_path;
-    bool force = false;
-  };
-  auto options = std::make_shared<Options>();
+  auto options = std::make_shared<TableCommandOptions<std::string>>();  // inputs: the class name
   CLI::App* cmd = soil.add_subcommand(
       "texture", "Class-average van Genuchten-Mualem parameters of a USDA texture class (Carsel & Parrish 1988)");
-  cmd->add_option("NAME", options->name, "texture class, e.g. \"sandy loam\"; all classes when left out");
+  cmd->add_option("NAME", options->inputs, "texture class, e.g. \"sandy loam\"; all classes when left out");
   finish_table_command(
       cmd, options->csv_path, options->force, "also write the table to this CSV file",
       "Examples:\n  wetfront soil texture \"silt loam\"\n  wetfront soil texture --csv classes.csv", [options] {
@@ -34,11 +29,11 @@ void add_texture_command(CLI::App& soil) {
           table.add_row({std::string(name), number(p.residual_water_content), number(p.saturated_water_content),
                          number(p.alpha_per_cm), number(p.n), number(p.saturated_conductivity_cm_per_d)});
         };
-        if (options->name.empty()) {
+        if (options->inputs.empty()) {
           for (const auto& c : soils::texture_classes()) add(c.name, c.parameters);
         } else {
           try {
-            add(options->name, soils::texture_class_parameters(options->name));
+            add(options->inputs, soils::texture_class_parameters(options->inputs));
           } catch (const base::InputError& error) {
             throw base::InputError(fmt::format("texture class: {}", error.what()));
           }
