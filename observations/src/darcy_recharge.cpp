@@ -7,6 +7,7 @@
 
 #include "wetfront/observations/recharge_estimates.hpp"
 #include "wetfront/base/input_error.hpp"
+#include "visit_pairs.hpp"
 
 namespace wetfront::observations {
 
@@ -25,19 +26,15 @@ std::vector<IntervalRecharge> darcy_recharge(const TensiometerPair& pair, std::s
   auto flux_at = [&pair](const PairHeads& v) {
     return darcy_flux_cm_per_d(pair.soil, pair.upper_depth_cm, v.upper_head_cm, pair.lower_depth_cm, v.lower_head_cm);
   };
-  std::vector<IntervalRecharge> rows;
-  for (std::size_t i = 1; i < visits.size(); ++i) {
-    const PairHeads& from = visits[i - 1];
-    const PairHeads& to = visits[i];
-    if (!(to.day > from.day))
-      throw base::InputError(fmt::format("tensiometer visits out of order: day {} follows day {}", to.day, from.day));
-    IntervalRecharge row;
-    row.start_day = from.day;
-    row.end_day = to.day;
-    row.mean_flux_cm_per_d = 0.5 * (flux_at(from) + flux_at(to));
-    row.amount_cm = row.mean_flux_cm_per_d * (to.day - from.day);
-    rows.push_back(row);
-  }
+  auto rows = detail::rows_between_visits<IntervalRecharge>(
+      visits, "tensiometer", [&](const PairHeads& from, const PairHeads& to) {
+        IntervalRecharge row;
+        row.start_day = from.day;
+        row.end_day = to.day;
+        row.mean_flux_cm_per_d = 0.5 * (flux_at(from) + flux_at(to));
+        row.amount_cm = row.mean_flux_cm_per_d * (to.day - from.day);
+        return row;
+      });
   if (visits.size() == 1) flux_at(visits.front());  // still checks the depths
   return rows;
 }

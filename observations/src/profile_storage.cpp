@@ -5,6 +5,7 @@
 
 #include <fmt/format.h>
 #include "wetfront/base/input_error.hpp"
+#include "visit_pairs.hpp"
 
 namespace wetfront::observations {
 
@@ -25,24 +26,20 @@ double profile_storage_cm(std::span<const double> depths_cm, std::span<const dou
 }
 
 std::vector<StorageChange> storage_changes(std::span<const ProbeProfile> visits) {
-  std::vector<StorageChange> rows;
-  for (std::size_t v = 1; v < visits.size(); ++v) {
-    const ProbeProfile& from = visits[v - 1];
-    const ProbeProfile& to = visits[v];
-    if (!(to.day > from.day))
-      throw base::InputError(fmt::format("probe visits out of order: day {} follows day {}", to.day, from.day));
-    if (to.depths_cm != from.depths_cm)
-      throw base::InputError(fmt::format(
-          "probe visits on day {} and day {} use different depths; their storages do not compare", from.day, to.day));
-    StorageChange row;
-    row.start_day = from.day;
-    row.end_day = to.day;
-    row.start_storage_cm = profile_storage_cm(from.depths_cm, from.water_content);
-    row.end_storage_cm = profile_storage_cm(to.depths_cm, to.water_content);
-    row.change_cm = row.end_storage_cm - row.start_storage_cm;
-    rows.push_back(row);
-  }
-  return rows;
+  return detail::rows_between_visits<StorageChange>(
+      visits, "probe", [](const ProbeProfile& from, const ProbeProfile& to) {
+        if (to.depths_cm != from.depths_cm)
+          throw base::InputError(
+              fmt::format("probe visits on day {} and day {} use different depths; their storages do not compare",
+                          from.day, to.day));
+        StorageChange row;
+        row.start_day = from.day;
+        row.end_day = to.day;
+        row.start_storage_cm = profile_storage_cm(from.depths_cm, from.water_content);
+        row.end_storage_cm = profile_storage_cm(to.depths_cm, to.water_content);
+        row.change_cm = row.end_storage_cm - row.start_storage_cm;
+        return row;
+      });
 }
 
 }  // namespace wetfront::observations

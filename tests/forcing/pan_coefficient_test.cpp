@@ -8,6 +8,7 @@
 
 #include <array>
 #include <cmath>
+#include <utility>
 
 #include "wetfront/forcing/pan_coefficient.hpp"
 
@@ -47,18 +48,13 @@ TEST(PanCoefficientTable, TableTrendsRunTheRightWay) {
 }
 
 TEST(PanCoefficientTable, ClassesFromMeasuredValues) {
-  EXPECT_EQ(wf::wind_class_of(1.99), W::light);
-  EXPECT_EQ(wf::wind_class_of(2.0), W::moderate);
-  EXPECT_EQ(wf::wind_class_of(5.0), W::moderate);
-  EXPECT_EQ(wf::wind_class_of(7.0), W::strong);
-  EXPECT_EQ(wf::wind_class_of(8.5), W::very_strong);
-  EXPECT_EQ(wf::humidity_class_of(39.9), H::low);
-  EXPECT_EQ(wf::humidity_class_of(70.0), H::medium);
-  EXPECT_EQ(wf::humidity_class_of(71.0), H::high);
-  EXPECT_EQ(wf::fetch_class_of(2.0), F::m1);
-  EXPECT_EQ(wf::fetch_class_of(5.0), F::m10);
-  EXPECT_EQ(wf::fetch_class_of(250.0), F::m100);
-  EXPECT_EQ(wf::fetch_class_of(5000.0), F::m1000);
+  for (const auto& [speed, wind] : {std::pair{1.99, W::light}, {2.0, W::moderate}, {5.0, W::moderate},
+                                    {7.0, W::strong}, {8.5, W::very_strong}})
+    EXPECT_EQ(wf::wind_class_of(speed), wind) << speed << " m/s";
+  for (const auto& [percent, humidity] : {std::pair{39.9, H::low}, {70.0, H::medium}, {71.0, H::high}})
+    EXPECT_EQ(wf::humidity_class_of(percent), humidity) << percent << " %";
+  for (const auto& [metres, fetch] : {std::pair{2.0, F::m1}, {5.0, F::m10}, {250.0, F::m100}, {5000.0, F::m1000}})
+    EXPECT_EQ(wf::fetch_class_of(metres), fetch) << metres << " m";
   const wf::PanSite site{S::green_fetch, 1.5, 55.0, 12.0};
   EXPECT_DOUBLE_EQ(wf::class_a_pan_coefficient_from_table(site), 0.75);
   EXPECT_THROW(wf::humidity_class_of(120.0), wetfront::base::InputError);
