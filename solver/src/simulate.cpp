@@ -15,6 +15,7 @@
 
 #include "column_model.hpp"
 #include "compiled_kernels.hpp"
+#include "condensed_solver.hpp"
 #include "failure_report.hpp"
 #include "ida_handles.hpp"
 #include "newton_solver.hpp"
@@ -67,8 +68,8 @@ void validate(const ColumnProblem& p) {
     const double t = p.output_days[i];
     const double tol = same_time_tolerance(t);
     if (t < p.start_day - tol || t > p.end_day + tol)
-      throw std::invalid_argument(fmt::format("output time {} d lies outside the run ({} to {} d)", t, p.start_day,
-                                              p.end_day));
+      throw std::invalid_argument(
+          fmt::format("output time {} d lies outside the run ({} to {} d)", t, p.start_day, p.end_day));
     if (i > 0 && !(t > p.output_days[i - 1])) throw std::invalid_argument("output times must increase");
   }
 }
@@ -104,7 +105,10 @@ class Integrator {
         SUNBandMatrixStorage(static_cast<sunindextype>(n), bandwidth, bandwidth, 2 * bandwidth, ctx_.get()),
         "SUNBandMatrixStorage"));
     detail::use_compiled_zero(matrix_.get());
-    solver_.reset(detail::check_ptr(detail::make_band_lu_solver(y_.get(), ctx_.get()), "band LU solver"));
+    solver_.reset(detail::check_ptr(
+        model.uptake_cells() > 0 ? detail::make_condensed_column_solver(y_.get(), ctx_.get(), model.uptake_cells())
+                                 : detail::make_band_lu_solver(y_.get(), ctx_.get()),
+        "linear solver"));
     detail::check_flag(IDASetLinearSolver(mem, solver_.get(), matrix_.get()), "IDASetLinearSolver");
     newton_.reset(detail::check_ptr(detail::make_refreshing_newton(y_.get(), ctx_.get()), "Newton solver"));
     detail::check_flag(IDASetNonlinearSolver(mem, newton_.get()), "IDASetNonlinearSolver");
@@ -120,8 +124,8 @@ class Integrator {
     detail::check_flag(IDASetRootDirection(mem, const_cast<int*>(directions)), "IDASetRootDirection");
     // Short runs of hard cases (ponding on dry clay) may need many steps in their first hours:
     // the limit never falls below ten days' worth.
-    step_budget_ = static_cast<long>(
-        std::max(10.0, problem.end_day - problem.start_day) * static_cast<double>(s.max_steps_per_day));
+    step_budget_ = static_cast<long>(std::max(10.0, problem.end_day - problem.start_day) *
+                                     static_cast<double>(s.max_steps_per_day));
   }
 
   ColumnRun run() {

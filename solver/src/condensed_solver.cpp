@@ -1,0 +1,206 @@
+#include "condensed_solver.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <vector>
+
+#include <nvector/nvector_serial.h>
+#include <sunmatrix/sunmatrix_band.h>
+
+namespace wetfront::solver::detail {
+
+namespace {
+
+struct Condensed {
+  std::size_t uptake_cells = 0;
+  SUNLinearSolver fallback = nullptr;  // band LU, for a system whose uptake rows cannot be eliminated
+  bool use_fallback = false;
+  // Per uptake row i: 1 / d_i and the entries a_i (F_i), b_i (F_(i+1)) of the row, p_i and q_i of
+  // U_i in the rows of F_i and F_(i+1).
+  std::vector<double> inverse_diagonal, a, b, p, q;
+  // The face system after elimination, factored as LAPACK's dgttrf does: sub-diagonal (then the
+  // multipliers), diagonal, super-diagonal, second super-diagonal (fill from row interchanges).
+  std::vector<double> lower, diagonal, upper, upper2;
+  std::vector<char> swapped;        // row i interchanged with row i + 1
+  std::vector<double> face_values;  // scratch of solve
+  sunindextype last_flag = 0;
+};
+Condensed& content(SUNLinearSolver s) { return *static_cast<Condensed*>(s->content); }
+
+std::size_t face_index(std::size_t face, std::size_t uptake_cells) { return face + std::min(face, uptake_cells); }
+std::size_t uptake_index(std::size_t cell) { return 2 * cell + 1; }
+
+// LU of the tridiagonal system with partial pivoting (Golub & Van Loan 2013, Alg. 4.3.5 for a
+// band of one; the storage of LAPACK's dgttrf). Returns 0, or k + 1 for a zero pivot in column k.
+sunindextype factor_tridiagonal(Condensed& c) {
+  const std::size_t n = c.diagonal.size();
+  auto& dl = c.lower;
+  auto& d = c.diagonal;
+  auto& du = c.upper;
+  c.upper2.assign(n, 0.0);
+  c.swapped.assign(n, 0);
+  for (std::size_t i = 0; i + 1 < n; ++i) {
+    if (std::abs(d[i]) >= std::abs(dl[i])) {
+      if (d[i] == 0.0) return static_cast<sunindextype>(i + 1);
+      const double factor = dl[i] / d[i];
+      dl[i] = factor;
+      d[i + 1] -= factor * du[i];
+    } else {
+      const double factor = d[i] / dl[i];
+      d[i] = dl[i];
+      dl[i] = factor;
+      const double kept = du[i];
+      du[i] = d[i + 1];
+      d[i + 1] = kept - factor * d[i + 1];
+      if (i + 2 < n) {
+        c.upper2[i] = du[i + 1];
+        du[i + 1] = -factor * du[i + 1];
+      }
+      c.swapped[i] = 1;
+    }
+  }
+  return d[n - 1] == 0.0 ? static_cast<sunindextype>(n) : 0;
+}
+
+void solve_tridiagonal(const Condensed& c, double* x) {
+  const std::size_t n = c.diagonal.size();
+  for (std::size_t i = 0; i + 1 < n; ++i) {
+    if (c.swapped[i]) {
+      const double kept = x[i];
+      x[i] = x[i + 1];
+      x[i + 1] = kept - c.lower[i] * x[i];
+    } else {
+      x[i + 1] -= c.lower[i] * x[i];
+    }
+  }
+  for (std::size_t i = n; i-- > 0;) {
+    double v = x[i];
+    if (i + 1 < n) v -= c.upper[i] * x[i + 1];
+    if (i + 2 < n) v -= c.upper2[i] * x[i + 2];
+    x[i] = v / c.diagonal[i];
+  }
+}
+
+SUNLinearSolver_Type solver_type(SUNLinearSolver) { return SUNLINEARSOLVER_DIRECT; }
+SUNLinearSolver_ID solver_id(SUNLinearSolver) { return SUNLINEARSOLVER_CUSTOM; }
+int initialize(SUNLinearSolver s) {
+  content(s).last_flag = 0;
+  return SUNLinSolInitialize(content(s).fallback);
+}
+
+// Eliminates each uptake unknown from the two face rows that hold it:
+//   d_i dU_i + a_i dF_i + b_i dF_(i+1) = r_Ui  gives  dU_i = (r_Ui - a_i dF_i - b_i dF_(i+1)) / d_i,
+// and the face rows lose p_i dU_i and q_i dU_i for the same terms in dF_i and dF_(i+1). d_i is
+// cj plus the sink's slope g and a_i, b_i are -g and g: while |d_i| >= max(|a_i|, |b_i|) the
+// multipliers are at most one and the elimination cannot grow the entries. Otherwise (a wet
+// cell where the sink falls with wetness and g < -cj / 2) the band LU with row interchanges
+// solves the full system instead.
+int setup(SUNLinearSolver s, SUNMatrix matrix) {
+  auto& c = content(s);
+  if (SUNMatGetID(matrix) != SUNMATRIX_BAND) return c.last_flag = SUNLS_ILL_INPUT;
+  const std::size_t m = c.uptake_cells;
+  const std::size_t faces = static_cast<std::size_t>(SM_COLUMNS_B(matrix)) - m;
+  auto at = [matrix](std::size_t row, std::size_t col) {
+    return SM_ELEMENT_B(matrix, static_cast<sunindextype>(row), static_cast<sunindextype>(col));
+  };
+  auto face = [m](std::size_t j) { return face_index(j, m); };
+  c.diagonal.resize(faces);
+  c.lower.assign(faces, 0.0);
+  c.upper.assign(faces, 0.0);
+  for (std::size_t j = 0; j < faces; ++j) {
+    c.diagonal[j] = at(face(j), face(j));
+    if (j + 1 < faces) {
+      c.upper[j] = at(face(j), face(j + 1));
+      c.lower[j] = at(face(j + 1), face(j));
+    }
+  }
+  c.inverse_diagonal.resize(m);
+  c.a.resize(m), c.b.resize(m), c.p.resize(m), c.q.resize(m);
+  c.use_fallback = false;
+  for (std::size_t i = 0; i < m && !c.use_fallback; ++i) {
+    const std::size_t u = uptake_index(i);
+    const double d = at(u, u);
+    c.a[i] = at(u, face(i));
+    c.b[i] = at(u, face(i + 1));
+    c.p[i] = at(face(i), u);
+    c.q[i] = at(face(i + 1), u);
+    if (!(std::abs(d) >= std::max(std::abs(c.a[i]), std::abs(c.b[i])) && d != 0.0 && std::isfinite(d))) {
+      c.use_fallback = true;
+      break;
+    }
+    c.inverse_diagonal[i] = 1.0 / d;
+    const double pd = c.p[i] * c.inverse_diagonal[i], qd = c.q[i] * c.inverse_diagonal[i];
+    c.diagonal[i] -= pd * c.a[i];
+    c.upper[i] -= pd * c.b[i];
+    c.lower[i] -= qd * c.a[i];
+    c.diagonal[i + 1] -= qd * c.b[i];
+  }
+  if (c.use_fallback) {
+    const int flag = SUNLinSolSetup(c.fallback, matrix);
+    c.last_flag = SUNLinSolLastFlag(c.fallback);
+    return flag;
+  }
+  c.last_flag = factor_tridiagonal(c);
+  return c.last_flag > 0 ? SUNLS_LUFACT_FAIL : SUNLS_SUCCESS;
+}
+
+int solve(SUNLinearSolver s, SUNMatrix matrix, N_Vector x, N_Vector b, double tolerance) {
+  auto& c = content(s);
+  if (c.use_fallback) return SUNLinSolSolve(c.fallback, matrix, x, b, tolerance);
+  const std::size_t m = c.uptake_cells, faces = c.diagonal.size();
+  const double* rhs = N_VGetArrayPointer(b);
+  double* out = N_VGetArrayPointer(x);
+  auto& face_values = c.face_values;
+  face_values.resize(faces);
+  for (std::size_t j = 0; j < faces; ++j) face_values[j] = rhs[face_index(j, m)];
+  for (std::size_t i = 0; i < m; ++i) {
+    const double eliminated = rhs[uptake_index(i)] * c.inverse_diagonal[i];
+    face_values[i] -= c.p[i] * eliminated;
+    face_values[i + 1] -= c.q[i] * eliminated;
+  }
+  solve_tridiagonal(c, face_values.data());
+  for (std::size_t i = 0; i < m; ++i)
+    out[uptake_index(i)] =
+        (rhs[uptake_index(i)] - c.a[i] * face_values[i] - c.b[i] * face_values[i + 1]) * c.inverse_diagonal[i];
+  for (std::size_t j = 0; j < faces; ++j) out[face_index(j, m)] = face_values[j];
+  c.last_flag = 0;
+  return SUNLS_SUCCESS;
+}
+
+sunindextype last_flag(SUNLinearSolver s) { return content(s).last_flag; }
+int free_solver(SUNLinearSolver s) {
+  if (!s) return SUNLS_SUCCESS;
+  if (s->content) {
+    SUNLinSolFree(content(s).fallback);
+    delete static_cast<Condensed*>(s->content);
+    s->content = nullptr;
+  }
+  SUNLinSolFreeEmpty(s);
+  return SUNLS_SUCCESS;
+}
+
+}  // namespace
+
+SUNLinearSolver make_condensed_column_solver(N_Vector like, SUNContext context, std::size_t uptake_cells) {
+  SUNLinearSolver fallback = make_band_lu_solver(like, context);
+  if (!fallback) return nullptr;
+  SUNLinearSolver s = SUNLinSolNewEmpty(context);
+  if (!s) {
+    SUNLinSolFree(fallback);
+    return nullptr;
+  }
+  auto* c = new Condensed;
+  c->uptake_cells = uptake_cells;
+  c->fallback = fallback;
+  s->content = c;
+  s->ops->gettype = solver_type;
+  s->ops->getid = solver_id;
+  s->ops->initialize = initialize;
+  s->ops->setup = setup;
+  s->ops->solve = solve;
+  s->ops->lastflag = last_flag;
+  s->ops->free = free_solver;
+  return s;
+}
+
+}  // namespace wetfront::solver::detail
