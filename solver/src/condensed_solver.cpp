@@ -19,7 +19,8 @@ struct Condensed {
   // U_i in the rows of F_i and F_(i+1).
   std::vector<double> inverse_diagonal, a, b, p, q;
   // The face system after elimination, factored as LAPACK's dgttrf does: sub-diagonal (then the
-  // multipliers), diagonal, super-diagonal, second super-diagonal (fill from row interchanges).
+  // multipliers), diagonal (then the reciprocals of the pivots), super-diagonal, second
+  // super-diagonal (fill from row interchanges).
   std::vector<double> lower, diagonal, upper, upper2;
   std::vector<char> swapped;        // row i interchanged with row i + 1
   std::vector<double> face_values;  // scratch of solve
@@ -59,7 +60,9 @@ sunindextype factor_tridiagonal(Condensed& c) {
       c.swapped[i] = 1;
     }
   }
-  return d[n - 1] == 0.0 ? static_cast<sunindextype>(n) : 0;
+  if (d[n - 1] == 0.0) return static_cast<sunindextype>(n);
+  for (double& pivot : d) pivot = 1.0 / pivot;  // solve multiplies: no division on its serial path
+  return 0;
 }
 
 void solve_tridiagonal(const Condensed& c, double* x) {
@@ -77,7 +80,7 @@ void solve_tridiagonal(const Condensed& c, double* x) {
     double v = x[i];
     if (i + 1 < n) v -= c.upper[i] * x[i + 1];
     if (i + 2 < n) v -= c.upper2[i] * x[i + 2];
-    x[i] = v / c.diagonal[i];
+    x[i] = v * c.diagonal[i];  // the diagonal holds the pivots' reciprocals
   }
 }
 

@@ -47,8 +47,10 @@ namespace {
 class SizeField {
  public:
   SizeField(const GridRequest& r, const std::vector<double>& anchors)
-      : surface_(std::min(r.surface_cell_cm, r.max_cell_cm)), largest_(r.max_cell_cm),
-        slope_((r.growth_factor - 1.0) / r.growth_factor), anchors_(anchors) {}
+      : surface_(std::min(r.surface_cell_cm, r.max_cell_cm)),
+        largest_(r.max_cell_cm),
+        slope_((r.growth_factor - 1.0) / r.growth_factor),
+        anchors_(anchors) {}
 
   double at(double z) const {
     double s = std::min(largest_, surface_ + slope_ * z);
@@ -64,34 +66,39 @@ class SizeField {
   const std::vector<double>& anchors_;
 };
 
-// Faces strictly inside [top, bottom] for `cells` cells that each hold the same share of the
-// integral of dz / s (trapezoid rule on a fine subdivision, inverted linearly).
-std::vector<double> interior_faces(const SizeField& field, double top, double bottom, std::size_t cells) {
-  constexpr std::size_t samples = 4000;
-  std::vector<double> depth(samples + 1), cumulative(samples + 1, 0.0);
-  for (std::size_t k = 0; k <= samples; ++k) depth[k] = top + (bottom - top) * static_cast<double>(k) / samples;
-  for (std::size_t k = 1; k <= samples; ++k)
-    cumulative[k] = cumulative[k - 1] + 0.5 * (depth[k] - depth[k - 1]) * (1.0 / field.at(depth[k - 1]) + 1.0 / field.at(depth[k]));
-  std::vector<double> faces;
-  std::size_t k = 1;
-  for (std::size_t c = 1; c < cells; ++c) {
-    const double target = cumulative.back() * static_cast<double>(c) / static_cast<double>(cells);
-    while (cumulative[k] < target) ++k;
-    const double w = (target - cumulative[k - 1]) / (cumulative[k] - cumulative[k - 1]);
-    faces.push_back(depth[k - 1] + w * (depth[k] - depth[k - 1]));
-  }
-  return faces;
-}
+// The integral of dz / s from `top` down, on a fine subdivision (trapezoid rule): computed once
+// per interval between required faces, whatever number of cells the interval gets.
+struct CellCountIntegral {
+  std::vector<double> depth, cumulative;
 
-double field_integral(const SizeField& field, double top, double bottom) {
-  constexpr int samples = 4000;
-  double total = 0;
-  for (int k = 0; k < samples; ++k) {
-    const double a = top + (bottom - top) * k / samples, b = top + (bottom - top) * (k + 1) / samples;
-    total += 0.5 * (b - a) * (1.0 / field.at(a) + 1.0 / field.at(b));
+  CellCountIntegral(const SizeField& field, double top, double bottom) {
+    constexpr std::size_t samples = 4000;
+    depth.resize(samples + 1);
+    cumulative.assign(samples + 1, 0.0);
+    for (std::size_t k = 0; k <= samples; ++k) depth[k] = top + (bottom - top) * static_cast<double>(k) / samples;
+    double previous = 1.0 / field.at(depth[0]);
+    for (std::size_t k = 1; k <= samples; ++k) {
+      const double current = 1.0 / field.at(depth[k]);
+      cumulative[k] = cumulative[k - 1] + 0.5 * (depth[k] - depth[k - 1]) * (previous + current);
+      previous = current;
+    }
   }
-  return total;
-}
+  double total() const { return cumulative.back(); }
+
+  // Faces strictly inside the interval for `cells` cells that each hold the same share of the
+  // integral (inverted linearly between samples).
+  std::vector<double> interior_faces(std::size_t cells) const {
+    std::vector<double> faces;
+    std::size_t k = 1;
+    for (std::size_t c = 1; c < cells; ++c) {
+      const double target = total() * static_cast<double>(c) / static_cast<double>(cells);
+      while (cumulative[k] < target) ++k;
+      const double w = (target - cumulative[k - 1]) / (cumulative[k] - cumulative[k - 1]);
+      faces.push_back(depth[k - 1] + w * (depth[k] - depth[k - 1]));
+    }
+    return faces;
+  }
+};
 
 }  // namespace
 
@@ -106,8 +113,8 @@ Grid graded_grid(const GridRequest& request) {
   std::vector<double> anchors = {0.0, request.depth_cm};
   for (double d : request.required_face_depths_cm) {
     if (d < 0 || d > request.depth_cm)
-      throw std::invalid_argument(fmt::format("required grid face at {} cm lies outside the column (0 to {} cm)", d,
-                                              request.depth_cm));
+      throw std::invalid_argument(
+          fmt::format("required grid face at {} cm lies outside the column (0 to {} cm)", d, request.depth_cm));
     anchors.push_back(d);
   }
   std::sort(anchors.begin(), anchors.end());
@@ -115,14 +122,17 @@ Grid graded_grid(const GridRequest& request) {
                 anchors.end());
   const SizeField field(request, anchors);
   const std::size_t intervals = anchors.size() - 1;
+  std::vector<CellCountIntegral> integrals;
   std::vector<std::size_t> cells(intervals);
-  for (std::size_t a = 0; a < intervals; ++a)
-    cells[a] = static_cast<std::size_t>(std::max(1.0, std::ceil(field_integral(field, anchors[a], anchors[a + 1]) - 1e-9)));
+  for (std::size_t a = 0; a < intervals; ++a) {
+    integrals.emplace_back(field, anchors[a], anchors[a + 1]);
+    cells[a] = static_cast<std::size_t>(std::max(1.0, std::ceil(integrals[a].total() - 1e-9)));
+  }
 
   const double g = request.growth_factor * (1 + 1e-12), largest = request.max_cell_cm * (1 + 1e-12);
   const double first = request.surface_cell_cm * (1 + 1e-12);
   std::vector<std::vector<double>> inside(intervals);
-  for (std::size_t a = 0; a < intervals; ++a) inside[a] = interior_faces(field, anchors[a], anchors[a + 1], cells[a]);
+  for (std::size_t a = 0; a < intervals; ++a) inside[a] = integrals[a].interior_faces(cells[a]);
   for (int repair = 0;; ++repair) {
     std::vector<double> faces = {0.0};
     std::vector<std::size_t> interval_of;  // per cell
@@ -135,14 +145,15 @@ Grid graded_grid(const GridRequest& request) {
     std::optional<std::size_t> offending;
     if (width(0) > first) offending = 0;
     for (std::size_t i = 0; i + 1 < faces.size() && !offending; ++i) {
-      if (width(i) > largest) offending = i;
+      if (width(i) > largest)
+        offending = i;
       else if (i + 1 + 1 < faces.size() && (width(i) > g * width(i + 1) || width(i + 1) > g * width(i)))
         offending = width(i) > width(i + 1) ? i : i + 1;
     }
     if (!offending) return Grid(std::move(faces));
     if (repair > 100000) throw std::logic_error("graded_grid: the limits could not be met");
     const std::size_t a = interval_of[*offending];
-    inside[a] = interior_faces(field, anchors[a], anchors[a + 1], ++cells[a]);
+    inside[a] = integrals[a].interior_faces(++cells[a]);
   }
 }
 
