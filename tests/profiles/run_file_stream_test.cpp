@@ -12,6 +12,7 @@
 #include <fstream>
 #include <iterator>
 
+#include "file_test_folder.hpp"
 #include "hdf5_content.hpp"
 #include "sample_record.hpp"
 #include "wetfront/profiles/run_file.hpp"
@@ -26,25 +27,8 @@ namespace fs = std::filesystem;
 // before the profiles were streamed.
 const fs::path kWrittenWhole = fs::path(WETFRONT_SOURCE_DIR) / "tests/profiles/data/sample-run-written-whole.h5";
 
-class RunFileStreamTest : public ::testing::Test {
- protected:
-  void SetUp() override {
-    const auto* info = ::testing::UnitTest::GetInstance()->current_test_info();
-    directory_ = fs::temp_directory_path() / fmt::format("wetfront-stream-{}-{}", getpid(), info->name());
-    fs::remove_all(directory_);
-    fs::create_directories(directory_);
-  }
-  void TearDown() override { fs::remove_all(directory_); }
-
-  std::vector<std::string> listing() const {
-    std::vector<std::string> names;
-    for (const auto& entry : fs::directory_iterator(directory_)) names.push_back(entry.path().filename().string());
-    std::sort(names.begin(), names.end());
-    return names;
-  }
-
-  fs::path directory_;
-};
+using RunFileStreamTest = testing::FileTestFolder;
+using testing::message_of;
 
 // The record as a streamed run hands it over: the profiles went to the stream, not the record.
 void stream_record(const fs::path& path, const RunRecord& record) {
@@ -116,7 +100,7 @@ TEST_F(RunFileStreamTest, KilledWhileWritingProfilesTheOldFileStaysAsItWas) {
   waitpid(child, &status, 0);
   ASSERT_TRUE(WIFSIGNALED(status) && WTERMSIG(status) == SIGKILL);
   EXPECT_EQ(bytes_of(path), old_bytes);
-  const std::vector<std::string> names = listing();
+  const std::vector<std::string> names = directory_listing();
   ASSERT_EQ(names.size(), 2u);
   // The temporary file carries the prefix OutputGuard removes on the next run.
   EXPECT_EQ(names[0].rfind(temporary_prefix(path), 0), 0u) << names[0];
@@ -130,19 +114,9 @@ TEST_F(RunFileStreamTest, AStreamGivenUpLeavesNoTemporaryFile) {
     RunFileStream stream(directory_ / "season.h5", record.run_start_date, record.run.cell_depths_cm,
                          record.run.face_depths_cm);
     stream.append(record.run.profiles[0]);
-    EXPECT_EQ(listing().size(), 1u);
+    EXPECT_EQ(directory_listing().size(), 1u);
   }
-  EXPECT_TRUE(listing().empty());
-}
-
-std::string message_of(const std::function<void()>& action) {
-  try {
-    action();
-  } catch (const RunFileError& error) {
-    return error.what();
-  }
-  ADD_FAILURE() << "expected RunFileError";
-  return {};
+  EXPECT_TRUE(directory_listing().empty());
 }
 
 TEST_F(RunFileStreamTest, AProfileOfTheWrongShapeOrOrderIsRefused) {

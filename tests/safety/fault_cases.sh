@@ -134,10 +134,19 @@ case_run_out_folder_missing() { refused 1 "output folder 'no-such-folder' does n
 case_run_out_folder_is_a_file() { refused 1 "output folder 'rain\.csv' is not a folder" run site.toml --out rain.csv/x.h5; }
 case_run_out_is_a_folder() { mkdir out.h5; refused 1 "out\.h5: is a folder" run site.toml --out out.h5; }
 case_run_out_names_no_file() { refused 1 "names a folder, not a file" run site.toml --out sub/..; }
-case_run_out_folder_read_only() {
+# refused_in_read_only_folder ARGS...: as an ordinary user, wetfront ARGS writing into the
+# read-only folder 'locked' is refused before any work.
+refused_in_read_only_folder() {
   unprivileged
   mkdir locked && chmod a-w locked
-  refused 1 "cannot write in the output folder 'locked'" run site.toml --out locked/x.h5
+  refused 1 "cannot write in the output folder 'locked'" "$@"
+}
+case_run_out_folder_read_only() { refused_in_read_only_folder run site.toml --out locked/x.h5; }
+case_sweep_out_folder_read_only() { refused_in_read_only_folder sweep site.toml --out locked/s.h5; }
+case_show_csv_folder_read_only() {
+  unprivileged
+  run 0 "" run site.toml "${SHORT[@]}" --quiet
+  refused_in_read_only_folder show site.h5 --csv locked/v.csv
 }
 case_run_again_in_folder_made_read_only() {
   unprivileged
@@ -145,21 +154,15 @@ case_run_again_in_folder_made_read_only() {
   chmod a-w .
   refused 1 "site\.h5: cannot write in the output folder '\.'" run site.toml "${SHORT[@]}"
 }
-case_sweep_out_folder_read_only() {
-  unprivileged
-  mkdir locked && chmod a-w locked
-  refused 1 "cannot write in the output folder 'locked'" sweep site.toml --out locked/s.h5
-}
-case_show_csv_folder_read_only() {
-  unprivileged
-  run 0 "" run site.toml "${SHORT[@]}" --quiet
-  mkdir locked && chmod a-w locked
-  refused 1 "cannot write in the output folder 'locked'" show site.h5 --csv locked/v.csv
-}
 case_run_site_file_unreadable() {
   unprivileged
   chmod a-r site.toml
-  refused 1 "site\.toml" run site.toml
+  refused 1 "site\.toml: cannot open the site file \(missing or unreadable\)" run site.toml
+}
+case_check_rain_record_unreadable() {
+  unprivileged
+  chmod a-r rain.csv
+  refused 1 "rain\.csv: cannot open the file for reading" check site.toml
 }
 case_sweep_out_folder_missing() { refused 1 "output folder 'nowhere' does not exist" sweep site.toml --out nowhere/s.h5; }
 case_calibrate_out_is_a_folder() { mkdir c.h5; refused 1 "c\.h5: is a folder" calibrate site.toml --out c.h5; }
