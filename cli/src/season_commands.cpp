@@ -340,7 +340,7 @@ void add_show_command(CLI::App& app) {
     profiles::RunRecord record;
     try {
       probe_run_file(options->run_file);
-      record = profiles::read_run(options->run_file);
+      record = profiles::read_run(options->run_file, profiles::ProfileReading::leave_out);
     } catch (const profiles::RunFileError& error) {
       throw base::InputError(error.what());
     }

@@ -143,5 +143,17 @@ TEST_F(RunFileStreamTest, BalanceRowsMustMatchTheProfilesWritten) {
   EXPECT_NE(message.find(path.string()), std::string::npos) << message;
 }
 
+TEST_F(RunFileStreamTest, AReaderOfTheReportCanLeaveTheProfilesOut) {
+  const fs::path path = directory_ / "season.h5";
+  const RunRecord written = testing::sample_record();
+  write_run(path, written);
+  const RunRecord read = read_run(path, ProfileReading::leave_out);
+  EXPECT_TRUE(read.run.profiles.empty());
+  EXPECT_EQ(read.run.cell_depths_cm, written.run.cell_depths_cm);
+  EXPECT_EQ(read.run.balances.size(), written.run.balances.size());
+  EXPECT_EQ(read.visit_balance, written.visit_balance);
+  EXPECT_EQ(read_run(path).run.profiles.size(), written.run.profiles.size());
+}
+
 }  // namespace
 }  // namespace wetfront::profiles
