@@ -68,7 +68,8 @@ std::unique_ptr<OutputGuard> guard_outputs(const CLI::App& cmd, std::vector<std:
 }
 
 bool write_season_files(profiles::RunRecord& record, const SensorCheck& sensors, const std::filesystem::path& out,
-                        const std::filesystem::path& visits_csv, const std::filesystem::path& sensors_csv) {
+                        const std::filesystem::path& visits_csv, const std::filesystem::path& sensors_csv,
+                        profiles::RunFileStream* stream) {
   record.run_id = new_run_id();
   const bool metrics = !sensors.sensors.empty() || !sensors.pooled.empty();
   std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
@@ -77,7 +78,12 @@ bool write_season_files(profiles::RunRecord& record, const SensorCheck& sensors,
   for (auto& table : tables) table.second.run_id = record.run_id;
   write_files_together(tables, [&] {
     try {
-      profiles::write_run(out, record);
+      if (stream == nullptr) {
+        profiles::write_run(out, record);
+      } else {
+        stream->finish(record);
+        stream->commit();
+      }
     } catch (const profiles::RunFileError& error) {
       throw base::InputError(error.what());
     }

@@ -36,7 +36,7 @@ void probe_run_file(const std::string& path, int seconds) {
     profiles::silence_hdf5_error_printing();
     int code = kReadOk;
     try {
-      (void)profiles::read_run(path);
+      (void)profiles::read_run(path, profiles::ProfileReading::leave_out);  // what `show` reads
     } catch (const profiles::RunFileError&) {
       code = kRefused;
     } catch (...) {

@@ -52,11 +52,12 @@ std::filesystem::path sensors_csv_path(const std::filesystem::path& run_file) {
   return csv;
 }
 
-// Runs the solver on a worker thread; prints a progress line on stderr once it has taken
-// longer than a second.
-solver::ColumnRun simulate_with_progress(const solver::ColumnProblem& problem, bool quiet, const std::string& label) {
+// Runs the solver on a worker thread, each profile to `observe`; prints a progress line on stderr
+// once it has taken longer than a second.
+solver::ColumnRun simulate_with_progress(const solver::ColumnProblem& problem, const solver::OutputObserver& observe,
+                                         bool quiet, const std::string& label) {
   const auto started = std::chrono::steady_clock::now();
-  auto future = std::async(std::launch::async, [&problem] { return solver::simulate(problem); });
+  auto future = std::async(std::launch::async, [&] { return solver::simulate(problem, observe); });
   bool printed = false;
   while (future.wait_for(std::chrono::milliseconds(1000)) != std::future_status::ready) {
     if (quiet) continue;
@@ -217,17 +218,29 @@ void add_run_command(CLI::App& app) {
                              .inputs = site_input_files(site),
                              .force = options->force});
     Season season = prepare_season(std::move(site));
-    const auto started = std::chrono::steady_clock::now();
-    solver::ColumnRun run = simulate_with_progress(
-        season.problem, options->quiet, fmt::format("{} to {}", season.site.run_start_text, season.site.run_end_text));
-    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
     const SiteSetup site_setup = season.site;
-    SeasonResult result = finish_season(std::move(season), std::move(run), WETFRONT_VERSION);
+    const auto started = std::chrono::steady_clock::now();
+    // The profiles go to the run file's temporary name as the run reaches them.
+    std::optional<profiles::RunFileStream> stream;
+    std::optional<SeasonResult> streamed;
+    try {
+      stream.emplace(out, site_setup.run_start_text, season.problem.grid.cell_depths_cm(),
+                     season.problem.grid.face_depths_cm());
+      const std::string label = fmt::format("{} to {}", site_setup.run_start_text, site_setup.run_end_text);
+      streamed = run_season_streamed(std::move(season), *stream, WETFRONT_VERSION,
+                                     [&](const solver::ColumnProblem& problem, const solver::OutputObserver& observe) {
+                                       return simulate_with_progress(problem, observe, options->quiet, label);
+                                     });
+    } catch (const profiles::RunFileError& error) {
+      throw base::InputError(error.what());
+    }
+    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+    SeasonResult& result = *streamed;
     const bool complete = result.complete;
     std::optional<GridCheck> grid;
     if (options->grid_check && complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
-    const bool metrics =
-        write_season_files(result.record, result.sensors, out, visits_csv_path(out), sensors_csv_path(out));
+    const bool metrics = write_season_files(result.record, result.sensors, out, visits_csv_path(out),
+                                            sensors_csv_path(out), &*stream);
     const profiles::RunRecord& record = result.record;
     const SensorCheck& sensors = result.sensors;
     if (!options->quiet) {
@@ -327,7 +340,7 @@ void add_show_command(CLI::App& app) {
     profiles::RunRecord record;
     try {
       probe_run_file(options->run_file);
-      record = profiles::read_run(options->run_file);
+      record = profiles::read_run(options->run_file, profiles::ProfileReading::leave_out);
     } catch (const profiles::RunFileError& error) {
       throw base::InputError(error.what());
     }

@@ -17,6 +17,10 @@ void set_depth_attributes(const hdf5::Dataset& depth);
 hdf5::Dataset write_times(hid_t parent, std::string_view name, const std::vector<double>& days,
                           const std::string& units, std::string_view long_name);
 
+// Makes `times` (with its units and long name) the time coordinate variable of the dimension of
+// its own name: standard name, calendar, `axis`.
+void make_time_axis(const hdf5::Dataset& times);
+
 // The same as coordinate variables (the dimension of the variable's own name), with `axis`.
 hdf5::Dataset write_time_axis(hid_t parent, std::string_view name, const std::vector<double>& days,
                               const std::string& units, std::string_view long_name);

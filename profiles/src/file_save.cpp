@@ -74,6 +74,18 @@ StagedFile::StagedFile(std::filesystem::path path, std::string_view bytes)
   write_step("temporary file written");
 }
 
+StagedFile::StagedFile(std::filesystem::path path) : path_(std::move(path)), temporary_(temporary_path_for(path_)) {}
+
+void StagedFile::written() {
+  const int descriptor = open(temporary_.c_str(), O_RDONLY | O_CLOEXEC);
+  int error = descriptor < 0 ? errno : 0;
+  if (error == 0 && fsync(descriptor) != 0) error = errno;
+  if (descriptor >= 0 && close(descriptor) != 0 && error == 0) error = errno;
+  if (error != 0)
+    throw std::system_error(error, std::generic_category(), fmt::format("writing '{}'", temporary_.string()));
+  write_step("temporary file written");
+}
+
 StagedFile::~StagedFile() {
   if (committed_) return;
   std::error_code ignored;

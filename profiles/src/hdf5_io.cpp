@@ -35,18 +35,6 @@ Dataspace simple_space(std::span<const hsize_t> dims) {
   return Dataspace(H5Screate_simple(static_cast<int>(dims.size()), dims.data(), nullptr), "creating a dataspace");
 }
 
-Dataset create_dataset(hid_t parent, std::string_view name, hid_t file_type, const Dataspace& space,
-                       const PropertyList& dcpl) {
-  const std::string name_text(name);
-  return Dataset(H5Dcreate2(parent, name_text.c_str(), file_type, space.id(), H5P_DEFAULT, dcpl.id(), H5P_DEFAULT),
-                 fmt::format("creating dataset {}", child_path(parent, name)));
-}
-
-void describe(hid_t parent, std::string_view name, Description about) {
-  if (!about.units.empty()) set_text_attribute(parent, name, "units", about.units);
-  set_text_attribute(parent, name, "long_name", about.long_name);
-}
-
 Datatype variable_length_text_type() {
   Datatype type(H5Tcopy(H5T_C_S1), "copying the string datatype");
   check(H5Tset_size(type.id(), H5T_VARIABLE), "making a variable-length string type");
@@ -99,6 +87,26 @@ void require_single_value(const Attribute& attribute, const std::string& what) {
 }
 
 }  // namespace
+
+Dataset create_dataset(hid_t parent, std::string_view name, hid_t file_type, const Dataspace& space,
+                       std::span<const hsize_t> chunk) {
+  PropertyList dcpl = ordered_dataset_properties();
+  if (!chunk.empty()) {
+    check(H5Pset_chunk(dcpl.id(), static_cast<int>(chunk.size()), chunk.data()), "setting the chunk shape");
+    if (chunk.size() == 2 && H5Zfilter_avail(H5Z_FILTER_DEFLATE) > 0) {
+      check(H5Pset_shuffle(dcpl.id()), "setting the shuffle filter");
+      check(H5Pset_deflate(dcpl.id(), 4), "setting the deflate filter");
+    }
+  }
+  const std::string name_text(name);
+  return Dataset(H5Dcreate2(parent, name_text.c_str(), file_type, space.id(), H5P_DEFAULT, dcpl.id(), H5P_DEFAULT),
+                 fmt::format("creating dataset {}", child_path(parent, name)));
+}
+
+void describe(hid_t parent, std::string_view name, Description about) {
+  if (!about.units.empty()) set_text_attribute(parent, name, "units", about.units);
+  set_text_attribute(parent, name, "long_name", about.long_name);
+}
 
 std::string child_path(hid_t parent, std::string_view name) {
   std::string base = object_path(parent);
@@ -210,7 +218,7 @@ Dataset write_one_dimensional(hid_t parent, std::string_view name, std::span<con
                               hid_t memory_type, const Description& about) {
   const hsize_t dims[1] = {values.size()};
   Dataspace space = simple_space(dims);
-  Dataset dataset = create_dataset(parent, name, file_type, space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, file_type, space);
   if (!values.empty())
     check(H5Dwrite(dataset.id(), memory_type, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
           fmt::format("writing dataset {}", child_path(parent, name)));
@@ -231,18 +239,11 @@ Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std:
                             columns));
   const hsize_t dims[2] = {rows, columns};
   Dataspace space = simple_space(dims);
-  PropertyList dcpl = ordered_dataset_properties();
-  if (rows > 0 && columns > 0) {
-    // Chunks of whole rows (one output time each), about 128 KiB; compressed when zlib is there.
-    const hsize_t rows_per_chunk = std::clamp<hsize_t>(16384 / columns, 1, rows);
-    const hsize_t chunk[2] = {rows_per_chunk, columns};
-    check(H5Pset_chunk(dcpl.id(), 2, chunk), "setting the chunk shape");
-    if (H5Zfilter_avail(H5Z_FILTER_DEFLATE) > 0) {
-      check(H5Pset_shuffle(dcpl.id()), "setting the shuffle filter");
-      check(H5Pset_deflate(dcpl.id(), 4), "setting the deflate filter");
-    }
-  }
-  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space, dcpl);
+  // Chunks of whole rows (one output time each), about 128 KiB; an empty matrix is not chunked.
+  const bool chunked = rows > 0 && columns > 0;
+  const hsize_t chunk[2] = {chunked ? std::clamp<hsize_t>(kChunkValues / columns, 1, rows) : 0, columns};
+  Dataset dataset =
+      create_dataset(parent, name, H5T_IEEE_F64LE, space, std::span<const hsize_t>(chunk, chunked ? 2 : 0));
   if (!values.empty())
     check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, values.data()),
           fmt::format("writing dataset {}", child_path(parent, name)));
@@ -256,7 +257,7 @@ Dataset write_integers(hid_t parent, std::string_view name, std::span<const std:
 
 Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about) {
   Dataspace space = simple_space({});
-  Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space);
   check(H5Dwrite(dataset.id(), H5T_NATIVE_INT64, H5S_ALL, H5S_ALL, H5P_DEFAULT, &value),
         fmt::format("writing dataset {}", child_path(parent, name)));
   describe(parent, name, about);
@@ -267,7 +268,7 @@ Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::
   const hsize_t dims[1] = {values.size()};
   Dataspace space = simple_space(dims);
   Datatype type = variable_length_text_type();
-  Dataset dataset = create_dataset(parent, name, type.id(), space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, type.id(), space);
   if (!values.empty()) {
     std::vector<const char*> pointers;
     pointers.reserve(values.size());
@@ -281,7 +282,7 @@ Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::
 
 Dataset write_double_scalar(hid_t parent, std::string_view name, double value, Description about) {
   Dataspace space = simple_space({});
-  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space);
   check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, &value),
         fmt::format("writing dataset {}", child_path(parent, name)));
   describe(parent, name, about);
@@ -291,7 +292,7 @@ Dataset write_double_scalar(hid_t parent, std::string_view name, double value, D
 Dataset write_text_scalar(hid_t parent, std::string_view name, const std::string& value, std::string_view long_name) {
   Dataspace space = simple_space({});
   Datatype type = variable_length_text_type();
-  Dataset dataset = create_dataset(parent, name, type.id(), space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, type.id(), space);
   const char* pointer = value.c_str();
   check(H5Dwrite(dataset.id(), type.id(), H5S_ALL, H5S_ALL, H5P_DEFAULT, &pointer),
         fmt::format("writing dataset {}", child_path(parent, name)));
@@ -327,7 +328,7 @@ void make_coordinate(const Dataset& scale) {
 Dataset make_named_dimension(hid_t parent, std::string_view name, std::size_t length) {
   const hsize_t dims[1] = {length};
   Dataspace space = simple_space(dims);
-  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F32BE, space, ordered_dataset_properties());
+  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F32BE, space);
   const std::string scale_name = fmt::format("{}{:>10}", kDimensionWithoutVariable, length);
   check(H5DSset_scale(dataset.id(), scale_name.c_str()),
         fmt::format("making {} a dimension", child_path(parent, name)));

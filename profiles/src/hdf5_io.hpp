@@ -43,6 +43,17 @@ struct Description {
   std::string_view long_name;
 };
 
+// Values per chunk of a dataset stored in chunks of whole rows (128 KiB of doubles).
+inline constexpr hsize_t kChunkValues = 16384;
+
+// A dataset of `file_type` and `space` with its attributes in creation order; `chunk` (rows, and
+// columns for two dimensions) empty for contiguous storage. Chunked two-dimensional data is
+// shuffled and deflated when the library has zlib.
+Dataset create_dataset(hid_t parent, std::string_view name, hid_t file_type, const Dataspace& space,
+                       std::span<const hsize_t> chunk = {});
+// Sets `units` (unless empty) and `long_name` on the dataset `name` in `parent`.
+void describe(hid_t parent, std::string_view name, Description about);
+
 Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about);
 // Row-major rows x columns.
 Dataset write_matrix(hid_t parent, std::string_view name, std::size_t rows, std::size_t columns,
@@ -53,6 +64,26 @@ Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::
 
 Dataset write_double_scalar(hid_t parent, std::string_view name, double value, Description about);
 Dataset write_text_scalar(hid_t parent, std::string_view name, const std::string& value, std::string_view long_name);
+
+// A dataset of doubles that grows along its first dimension, which is unlimited (netCDF's
+// unlimited dimension): rows of `columns` values, or single values when `columns` is 0. Rows are
+// held until a chunk is full and then written as one block, so memory stays at one chunk.
+class GrowingDataset {
+ public:
+  GrowingDataset(hid_t parent, std::string_view name, std::size_t columns, Description about);
+  // `columns` values (one when columns is 0).
+  void append(std::span<const double> row);
+  // Writes the rows held (called before the file is closed).
+  void flush();
+  const Dataset& dataset() const { return dataset_; }
+
+ private:
+  Dataset dataset_;
+  std::size_t width_;
+  hsize_t chunk_rows_;
+  hsize_t written_ = 0;
+  std::vector<double> held_;
+};
 
 // The netCDF-4 data model on HDF5 (docs/hdf5-layout.md, "netCDF-4 and CF"): a dimension is a
 // dimension scale; a coordinate variable is a one-dimensional scale whose NAME is its own dataset

@@ -45,9 +45,10 @@ void read_root_attributes(hid_t file, RunRecord& record) {
   }
 }
 
-void read_profiles(hid_t file, solver::ColumnRun& run, const std::vector<double>& times) {
+void read_profiles(hid_t file, solver::ColumnRun& run, const std::vector<double>& times, ProfileReading reading) {
   run.cell_depths_cm = read_vector(file, "cell_depth");
   run.face_depths_cm = read_shaped(file, "face_depth", {run.cell_depths_cm.size() + 1});
+  if (reading == ProfileReading::leave_out) return;
   const std::size_t cells = run.cell_depths_cm.size();
   run.profiles.assign(times.size(), {});
   for (std::size_t t = 0; t < times.size(); ++t) run.profiles[t].time_days = times[t];
@@ -233,7 +234,7 @@ void require_run_record(hid_t file) {
 
 }  // namespace
 
-RunRecord read_run(const std::filesystem::path& path) {
+RunRecord read_run(const std::filesystem::path& path, ProfileReading profiles) {
   const auto failure = [&](std::string_view cause) {
     return RunFileError(fmt::format("cannot read run record '{}': {}", path.string(), cause));
   };
@@ -248,7 +249,7 @@ RunRecord read_run(const std::filesystem::path& path) {
     RunRecord record;
     read_root_attributes(file.id(), record);
     const std::vector<double> times = read_vector(file.id(), "time");
-    read_profiles(file.id(), record.run, times);
+    read_profiles(file.id(), record.run, times, profiles);
     read_balance(file.id(), record, times);
     read_visits(file.id(), record);
     {

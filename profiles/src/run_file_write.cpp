@@ -1,12 +1,14 @@
-// Writes a RunRecord as a netCDF-4 file (HDF5 with netCDF-4's rules) following the CF
-// conventions: root attributes and the profiles with their coordinates at the root, then one
-// group per part of the record, each with its own coordinates (layout in docs/hdf5-layout.md).
+// Writes the parts of a RunRecord other than the profiles as netCDF-4 (HDF5 with netCDF-4's
+// rules) following the CF conventions: root attributes, then one group per part of the record,
+// each with its own coordinates (layout in docs/hdf5-layout.md). The profiles and their
+// coordinates at the root come first, from run_file_stream.cpp.
 #include <fmt/format.h>
 
 #include "cf_variables.hpp"
 #include "field_checks_io.hpp"
 #include "hdf5_io.hpp"
 #include "layout.hpp"
+#include "run_file_parts.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/profiles/time_axis.hpp"
 
@@ -54,7 +56,7 @@ void write_root_attributes(hid_t file, const RunRecord& record) {
 }
 
 Axes axes_of(const RunRecord& record) {
-  return {days_since_units(record.run_start_date), column(record.run.profiles, &solver::ProfileSnapshot::time_days),
+  return {days_since_units(record.run_start_date), column(record.run.balances, &solver::CumulativeBalance::time_days),
           column(record.visit_balance, &IntervalBalance::end_day)};
 }
 
@@ -68,37 +70,6 @@ h5::Dataset write_interval_ends(hid_t parent, const Axes& axes) {
 
 h5::Dataset write_plane_depths(hid_t parent, const RunRecord& record) {
   return write_depth_axis(parent, "plane_depth", record.flux_plane_depths_cm, "depth of the flux plane");
-}
-
-// The state per output time, at the root so that a reader opening the file sees it first.
-void write_profiles(hid_t file, const solver::ColumnRun& run, const Axes& axes) {
-  const h5::Dataset time = write_output_times(file, axes);
-  const h5::Dataset cell_depth = write_depth_axis(file, "cell_depth", run.cell_depths_cm, "depth of the cell centre");
-  const h5::Dataset face_depth =
-      write_depth_axis(file, "face_depth", run.face_depths_cm, "depth of the cell face (surface first)");
-  const std::size_t times = run.profiles.size();
-  const std::size_t cells = run.cell_depths_cm.size();
-  for (const layout::ProfileField& field : layout::kCellFields) {
-    std::vector<double> matrix;
-    matrix.reserve(times * cells);
-    for (const solver::ProfileSnapshot& snapshot : run.profiles)
-      matrix.insert(matrix.end(), (snapshot.*field.member).begin(), (snapshot.*field.member).end());
-    h5::Dataset dataset = h5::write_matrix(file, field.name, times, cells, matrix, {field.units, field.long_name});
-    h5::attach_dimension_scale(dataset, time, 0);
-    h5::attach_dimension_scale(dataset, cell_depth, 1);
-  }
-  std::vector<double> flux;
-  flux.reserve(times * (cells + 1));
-  for (const solver::ProfileSnapshot& snapshot : run.profiles)
-    flux.insert(flux.end(), snapshot.face_flux_cm_per_d.begin(), snapshot.face_flux_cm_per_d.end());
-  h5::Dataset face_flux = h5::write_matrix(file, "face_flux", times, cells + 1, flux,
-                                           {"cm/d", "Darcy flux across the cell face (positive downward)"});
-  h5::attach_dimension_scale(face_flux, time, 0);
-  h5::attach_dimension_scale(face_flux, face_depth, 1);
-  h5::Dataset ponded =
-      h5::write_vector(file, "ponded_depth", column(run.profiles, &solver::ProfileSnapshot::ponded_depth_cm),
-                       {"cm", "water held on the soil surface"});
-  h5::attach_dimension_scale(ponded, time, 0);
 }
 
 void write_balance(hid_t file, const RunRecord& record, const Axes& axes) {
@@ -319,10 +290,11 @@ void write_statistics(hid_t file, const solver::RunStatistics& statistics) {
   count("bottom_switches", statistics.bottom_switches, "seepage face switching on or off");
 }
 
-void write_contents(hid_t file, const RunRecord& record) {
+}  // namespace
+
+void write_record_parts(hid_t file, const RunRecord& record) {
   write_root_attributes(file, record);
   const Axes axes = axes_of(record);
-  write_profiles(file, record.run, axes);
   write_balance(file, record, axes);
   write_visits(file, record, axes);
   {
@@ -335,13 +307,6 @@ void write_contents(hid_t file, const RunRecord& record) {
   write_field_checks(file, record, axes.time_units, axes.interval_ends);
   write_statistics(file, record.run.statistics);
   h5::number_dimensions(file);
-}
-
-}  // namespace
-
-void write_run(const std::filesystem::path& path, const RunRecord& record) {
-  h5::write_file(
-      path, "run record", [&] { check_record(record); }, [&](hid_t file) { write_contents(file, record); });
 }
 
 }  // namespace wetfront::profiles

@@ -9,7 +9,6 @@
 #include <fmt/format.h>
 
 #include "wetfront/site/sensor_check.hpp"
-#include "wetfront/site/simulated_profiles.hpp"
 
 namespace wetfront::site {
 namespace {
@@ -43,14 +42,15 @@ std::vector<EstimateInterval> intervals_from(const profiles::RunRecord& record, 
 }
 
 // The readings within the run's times but above the shallowest or below the deepest cell
-// centre: not stored as a count, so counted again from the stored readings and the profiles
-// (a stored reading is unused and has no simulated value there).
+// centre: not stored as a count, so counted again from the stored readings, the output times
+// and the cell depths (a stored reading is unused and has no simulated value there).
 void count_outside_depth(const profiles::RunRecord& record, SensorCheck& check) {
-  if (record.run.profiles.size() < 2) return;
-  const observations::SimulatedProfiles axes = simulated_profiles(record.run, true);
+  const auto& times = record.run.balances;  // one row per output time
+  const auto& depths = record.run.cell_depths_cm;
+  if (times.size() < 2 || depths.empty()) return;
   auto outside = [&](const profiles::ComparedReading& r) {
-    return !r.used && r.time_days >= axes.times_day.front() && r.time_days <= axes.times_day.back() &&
-           (r.depth_cm < axes.depths_cm.front() || r.depth_cm > axes.depths_cm.back());
+    return !r.used && r.time_days >= times.front().time_days && r.time_days <= times.back().time_days &&
+           (r.depth_cm < depths.front() || r.depth_cm > depths.back());
   };
   const auto& c = *record.sensor_comparison;
   for (const auto* readings : {&c.pressure_head, &c.water_content}) {

@@ -26,7 +26,7 @@ std::string pooled_name(const std::vector<const SensorRecord*>& records, bool he
   return probes && cores ? "all probes and cores" : cores ? "all core samples" : "all probes";
 }
 
-void compare_kind(const std::vector<SensorRecord>& compared, const solver::ColumnRun& run, bool heads,
+void compare_kind(const std::vector<SensorRecord>& compared, const obs::SimulatedProfiles& profiles, bool heads,
                   SensorCheck& check, std::vector<std::size_t>& order) {
   std::vector<obs::SensorSeries> series;
   std::vector<const SensorRecord*> records;
@@ -35,8 +35,8 @@ void compare_kind(const std::vector<SensorRecord>& compared, const solver::Colum
     series.push_back(r.series);
     records.push_back(&r);
   }
-  if (series.empty() || run.profiles.size() < 2) return;
-  const auto report = obs::compare_with_simulation(series, simulated_profiles(run, heads));
+  if (series.empty() || profiles.times_day.size() < 2) return;
+  const auto report = obs::compare_with_simulation(series, profiles);
   for (std::size_t i = 0; i < records.size(); ++i) {
     const SensorRecord& r = *records[i];
     check.sensors.push_back({r.name, r.kind, r.depth_cm, r.quantity, r.unit, report.sensors[i].metrics,
@@ -214,7 +214,10 @@ void choose_storage_depths(const std::vector<StorageSource>& sources, StorageChe
   }
 }
 
-StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record) {
+namespace {
+
+StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record,
+                           const obs::SimulatedProfiles& profiles) {
   StorageCheck check;
   std::vector<const SensorRecord*> probes, cores;
   for (const auto& r : readings) {
@@ -229,9 +232,7 @@ StorageCheck check_storage(const std::vector<SensorRecord>& readings, const prof
   choose_storage_depths(sources, check);
   if (!check.usable() || record.visit_balance.empty()) return check;
 
-  const bool simulated_available = record.run.profiles.size() >= 2;
-  const obs::SimulatedProfiles profiles =
-      simulated_available ? simulated_profiles(record.run, false) : obs::SimulatedProfiles{};
+  const bool simulated_available = profiles.times_day.size() >= 2;
   // The storage at one visit: at each depth the mean of the readings there, and the model at
   // the same reading times and depths.
   auto storage_at = [&](double day) {
@@ -273,13 +274,24 @@ StorageCheck check_storage(const std::vector<SensorRecord>& readings, const prof
   return check;
 }
 
+}  // namespace
+
+StorageCheck check_storage(const std::vector<SensorRecord>& readings, const profiles::RunRecord& record) {
+  return check_storage(readings, record, simulated_profiles(record.run, false));
+}
+
 SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings,
                           const profiles::RunRecord& record) {
+  return check_sensors(season, readings, record, sensor_profiles(record.run));
+}
+
+SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings,
+                          const profiles::RunRecord& record, const SensorProfiles& simulated) {
   SensorCheck check;
   const std::vector<SensorRecord> compared = compared_series(readings);
   std::vector<std::size_t> order;
-  compare_kind(compared, record.run, true, check, order);
-  compare_kind(compared, record.run, false, check, order);
+  compare_kind(compared, simulated.heads, true, check, order);
+  compare_kind(compared, simulated.water_contents, false, check, order);
   // Back to site-file order.
   std::vector<SensorFitRow> rows;
   for (std::size_t index = 0; index < compared.size(); ++index) {
@@ -290,17 +302,22 @@ SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>&
   check.sensors = std::move(rows);
   check.darcy = darcy_check(season, readings, record);
   check.water_table = check_water_table(season, readings, record);
-  check.storage = check_storage(readings, record);
+  check.storage = check_storage(readings, record, simulated.water_contents);
   return check;
 }
 
 profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
                                                    const solver::ColumnRun& run) {
+  return comparison_record(check, readings, sensor_profiles(run));
+}
+
+profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
+                                                   const SensorProfiles& simulated) {
   profiles::SensorComparisonRecord stored;
   const std::vector<SensorRecord> compared = compared_series(readings);
   for (const bool heads : {true, false}) {
-    if (run.profiles.size() < 2) break;
-    const obs::SimulatedProfiles profiles = simulated_profiles(run, heads);
+    const obs::SimulatedProfiles& profiles = heads ? simulated.heads : simulated.water_contents;
+    if (profiles.times_day.size() < 2) break;
     for (const auto& r : compared) {
       if (!compares(r, heads)) continue;
       for (const auto& o : r.series.observations) {

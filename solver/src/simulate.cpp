@@ -76,8 +76,8 @@ void validate(const ColumnProblem& p) {
 
 class Integrator {
  public:
-  Integrator(const ColumnProblem& problem, ColumnModel& model)
-      : problem_(problem), model_(model), ctx_(detail::make_context()) {
+  Integrator(const ColumnProblem& problem, ColumnModel& model, const OutputObserver* observe)
+      : problem_(problem), model_(model), observe_(observe), ctx_(detail::make_context()) {
     for (double d : problem.flux_plane_depths_cm) plane_faces_.push_back(model.grid().face_at(d));
     const std::size_t n = model.unknowns();
     y_ = detail::make_vector(n, ctx_.get());
@@ -257,7 +257,7 @@ class Integrator {
   }
 
   void record(double t, std::span<const double> y, ColumnRun& result) {
-    result.profiles.push_back(model_.snapshot(t, y));
+    ProfileSnapshot snapshot = model_.snapshot(t, y);
     const auto& totals = model_.totals();
     const auto surface = model_.surface_accounts(t, y);
     auto face_total = [&](std::size_t face) { return totals.face[face] + y[model_.face_index(face)]; };
@@ -277,6 +277,10 @@ class Integrator {
     const double net_in =
         b.water_input_cm - b.actual_evaporation_cm - b.runoff_cm - b.transpiration_cm - b.bottom_flux_cm;
     b.balance_error_cm = change - net_in;
+    if (observe_ != nullptr)
+      (*observe_)(snapshot, b);
+    else
+      result.profiles.push_back(std::move(snapshot));
     result.balances.push_back(std::move(b));
   }
 
@@ -306,6 +310,7 @@ class Integrator {
 
   const ColumnProblem& problem_;
   ColumnModel& model_;
+  const OutputObserver* observe_;  // null: the run keeps every profile
   detail::ContextHandle ctx_;
   detail::VectorHandle y_, yp_, output_y_;
   std::vector<std::size_t> plane_faces_;
@@ -322,13 +327,19 @@ class Integrator {
   RunStatistics stats_, counted_;
 };
 
-}  // namespace
-
-ColumnRun simulate(const ColumnProblem& problem) {
+ColumnRun run_column(const ColumnProblem& problem, const OutputObserver* observe) {
   validate(problem);
   ColumnModel model(problem);
-  Integrator integrator(problem, model);
+  Integrator integrator(problem, model, observe);
   return integrator.run();
+}
+
+}  // namespace
+
+ColumnRun simulate(const ColumnProblem& problem) { return run_column(problem, nullptr); }
+
+ColumnRun simulate(const ColumnProblem& problem, const OutputObserver& observe) {
+  return run_column(problem, &observe);
 }
 
 }  // namespace wetfront::solver

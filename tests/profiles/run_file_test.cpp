@@ -12,6 +12,7 @@
 #include <fstream>
 #include <set>
 
+#include "file_test_folder.hpp"
 #include "record_comparison.hpp"
 #include "sample_record.hpp"
 #include "wetfront/profiles/run_file.hpp"
@@ -21,24 +22,8 @@ namespace {
 
 namespace fs = std::filesystem;
 
-class RunFileTest : public ::testing::Test {
+class RunFileTest : public testing::FileTestFolder {
  protected:
-  void SetUp() override {
-    const auto* info = ::testing::UnitTest::GetInstance()->current_test_info();
-    directory_ = fs::temp_directory_path() / fmt::format("wetfront-profiles-{}-{}", getpid(), info->name());
-    fs::remove_all(directory_);
-    fs::create_directories(directory_);
-  }
-  void TearDown() override { fs::remove_all(directory_); }
-
-  // Names of everything in the test directory (to see leftover temporary files).
-  std::vector<std::string> directory_listing() const {
-    std::vector<std::string> names;
-    for (const auto& entry : fs::directory_iterator(directory_)) names.push_back(entry.path().filename().string());
-    std::sort(names.begin(), names.end());
-    return names;
-  }
-
   // Writes `record` as `name` in the test directory, reads it back and expects every field
   // unchanged; returns what was read.
   RunRecord round_trip(const RunRecord& record, const std::string& name) const {
@@ -47,19 +32,9 @@ class RunFileTest : public ::testing::Test {
     testing::expect_same_record(record, read);
     return read;
   }
-
-  fs::path directory_;
 };
 
-std::string message_of(const std::function<void()>& action) {
-  try {
-    action();
-  } catch (const RunFileError& error) {
-    return error.what();
-  }
-  ADD_FAILURE() << "expected RunFileError";
-  return {};
-}
+using testing::message_of;
 
 TEST_F(RunFileTest, CompleteRecordRoundTripsEveryField) {
   round_trip(testing::sample_record(), "season.h5");

@@ -15,9 +15,15 @@ namespace wetfront::profiles {
 class StagedFile {
  public:
   StagedFile(std::filesystem::path path, std::string_view bytes);
+  // Only names the temporary file, for a writer that creates and fills it itself (the HDF5
+  // library writing a run file as the run goes); it then calls written().
+  explicit StagedFile(std::filesystem::path path);
   ~StagedFile();
   StagedFile(const StagedFile&) = delete;
   StagedFile& operator=(const StagedFile&) = delete;
+  const std::filesystem::path& temporary() const { return temporary_; }
+  // Forces the temporary file, filled and closed by its writer, to the disk.
+  void written();
   void commit();
 
  private:

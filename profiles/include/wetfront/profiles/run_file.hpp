@@ -32,9 +32,14 @@ void check_record(const RunRecord& record);
 // On any error the temporary file is removed and RunFileError names `path` and the cause.
 void write_run(const std::filesystem::path& path, const RunRecord& record);
 
+// Whether read_run reads the profiles (per output time and cell) or leaves them out, for a reader
+// of a long run that needs only its report (balances, visits, checks): its memory then does not
+// grow with cells times output times.
+enum class ProfileReading { keep, leave_out };
+
 // Reads a file written by write_run. Throws RunFileError for a missing file, a file that
 // is not HDF5, an HDF5 file that is not a run record, or a record with missing or
 // mis-shaped parts (naming the dataset).
-RunRecord read_run(const std::filesystem::path& path);
+RunRecord read_run(const std::filesystem::path& path, ProfileReading profiles = ProfileReading::keep);
 
 }  // namespace wetfront::profiles

@@ -9,6 +9,7 @@
 
 #include "wetfront/site/season_setup.hpp"
 #include "wetfront/site/sensor_readings.hpp"
+#include "wetfront/site/simulated_profiles.hpp"
 #include "wetfront/observations/fit_metrics.hpp"
 #include "wetfront/profiles/run_record.hpp"
 
@@ -118,6 +119,10 @@ StorageCheck check_storage(const std::vector<SensorRecord>& readings, const prof
 
 SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings,
                           const profiles::RunRecord& record);
+// The same with the simulated values given (gathered as the run went when the record keeps no
+// profiles).
+SensorCheck check_sensors(const Season& season, const std::vector<SensorRecord>& readings,
+                          const profiles::RunRecord& record, const SensorProfiles& simulated);
 
 // Per visit interval the water-table-fluctuation estimate from the first observation well,
 // or nothing without a well.
@@ -134,6 +139,8 @@ void compare_with_model(EstimateInterval& interval);
 // The readings beside the simulated values, and the metrics, for the run file.
 profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
                                                    const solver::ColumnRun& run);
+profiles::SensorComparisonRecord comparison_record(const SensorCheck& check, const std::vector<SensorRecord>& readings,
+                                                   const SensorProfiles& simulated);
 
 // Puts the Darcy and water-table estimates and the stored water into the record (its
 // optionals stay empty for the checks the site does not have). field_check_record.cpp.

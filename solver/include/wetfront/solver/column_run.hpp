@@ -1,6 +1,7 @@
 // What a run returns: profiles and cumulative water-balance terms at the output times.
 #pragma once
 
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -68,5 +69,15 @@ struct ColumnRun {
 // Runs the column. Never throws for a solver failure: the run comes back incomplete with
 // what it computed. Throws std::invalid_argument for an inconsistent problem.
 ColumnRun simulate(const ColumnProblem& problem);
+
+// Receives each output time as the run reaches it, in time order: the profile and the
+// cumulative balance there.
+using OutputObserver = std::function<void(const ProfileSnapshot&, const CumulativeBalance&)>;
+
+// As simulate(problem), but each profile goes to `observe` instead of into the run, whose
+// `profiles` stay empty (its `balances`, a few numbers per output time, are kept): memory does
+// not grow with the number of cells times output times. An exception from `observe` ends the
+// run and leaves simulate.
+ColumnRun simulate(const ColumnProblem& problem, const OutputObserver& observe);
 
 }  // namespace wetfront::solver
