@@ -48,6 +48,19 @@ double predicted(const EnsembleMember& member, const std::vector<double>& centre
   return observations::simulated_value_at(profile, 0.0, reading.depth_cm).value();
 }
 
+// Heads enter the filter as log10(1 cm + suction): members' heads span orders of magnitude in
+// dry soil (a few metres of suction in one member, centimetres in another), and on this scale
+// their spread is closer to the Gaussian the update assumes. A reading's uncertainty carries over
+// to first order at the reading. Water contents enter as they are.
+double filter_value(const VisitReading& reading, double value) {
+  return reading.quantity == kPressureHead ? std::log10(1.0 + std::max(-value, 0.0)) : value;
+}
+double filter_uncertainty(const VisitReading& reading) {
+  return reading.quantity == kPressureHead
+             ? reading.uncertainty / ((1.0 + std::max(-reading.value, 0.0)) * std::log(10.0))
+             : reading.uncertainty;
+}
+
 double mean_of(const Eigen::VectorXd& row) { return row.mean(); }
 double spread_of(const Eigen::VectorXd& row) {
   return std::sqrt((row.array() - row.mean()).square().sum() / static_cast<double>(row.size() - 1));
@@ -73,8 +86,9 @@ class Ensemble {
     Eigen::MatrixXd forecasts(n_readings, n_members);
     Eigen::VectorXd readings(n_readings), sd(n_readings);
     for (Eigen::Index r = 0; r < n_readings; ++r) {
-      readings[r] = visit.readings[static_cast<std::size_t>(r)].value;
-      sd[r] = visit.readings[static_cast<std::size_t>(r)].uncertainty;
+      const VisitReading& reading = visit.readings[static_cast<std::size_t>(r)];
+      readings[r] = filter_value(reading, reading.value);
+      sd[r] = filter_uncertainty(reading);
     }
     for (Eigen::Index j = 0; j < n_members; ++j) {
       const EnsembleMember& m = members[alive[static_cast<std::size_t>(j)]];
@@ -91,7 +105,12 @@ class Ensemble {
     Eigen::MatrixXd perturbed(n_readings, n_members);
     for (Eigen::Index j = 0; j < n_members; ++j)
       perturbed.col(j) = all_perturbed.col(static_cast<Eigen::Index>(alive[static_cast<std::size_t>(j)]));
-    const Eigen::MatrixXd analysed = studies::analysed_states(states, forecasts, perturbed, sd.array().square());
+    Eigen::MatrixXd filtered(n_readings, n_members);
+    for (Eigen::Index r = 0; r < n_readings; ++r)
+      for (Eigen::Index j = 0; j < n_members; ++j)
+        filtered(r, j) = filter_value(visit.readings[static_cast<std::size_t>(r)], forecasts(r, j));
+    const Eigen::MatrixXd analysed = studies::analysed_states(states, filtered, perturbed, sd.array().square(),
+                                                              localisation(visit, states.rows()));
 
     VisitUpdate update;
     update.readings = visit.readings;
@@ -122,6 +141,25 @@ class Ensemble {
   }
 
  private:
+  // Weights by distance in depth: cell to reading and reading to reading; parameters take every
+  // reading in full.
+  studies::Localisation localisation(const detail::ReadingsAtVisit& visit, Eigen::Index rows) const {
+    studies::Localisation weights;
+    if (!(settings_.reach_cm > 0)) return weights;
+    const auto n_readings = static_cast<Eigen::Index>(visit.readings.size());
+    auto depth = [&](Eigen::Index r) { return visit.readings[static_cast<std::size_t>(r)].depth_cm; };
+    weights.state_reading = Eigen::MatrixXd::Ones(rows, n_readings);
+    weights.reading_reading = Eigen::MatrixXd::Ones(n_readings, n_readings);
+    for (Eigen::Index r = 0; r < n_readings; ++r) {
+      for (std::size_t i = 0; i < centres_.size(); ++i)
+        weights.state_reading(static_cast<Eigen::Index>(i), r) =
+            studies::gaspari_cohn(centres_[i] - depth(r), settings_.reach_cm);
+      for (Eigen::Index q = 0; q < n_readings; ++q)
+        weights.reading_reading(q, r) = studies::gaspari_cohn(depth(q) - depth(r), settings_.reach_cm);
+    }
+    return weights;
+  }
+
   // The analysed column of one member: parameters first (its soil may change), then heads.
   void apply(EnsembleMember& m, const Eigen::VectorXd& analysed, Eigen::Index n_cells) {
     const auto& parameters = shared_.study.parameters;

@@ -9,6 +9,10 @@
 // it within kVisitReadingWindowDays) and updated, and the next stretch restarts from the
 // analysed heads.
 //
+// Localisation: a cell is updated only from readings within 2 x AnchorSettings::reach_cm of it,
+// with weights falling smoothly with distance; the parameters (with --update-parameters) from
+// every reading.
+//
 // Update variable: the water content of every cell (and, on request, the adjustable parameters
 // on their search scale: state augmentation). Analysed water contents are held strictly inside
 // (theta_r, theta_s) of the member's soil and turned back into heads, so every member stays
@@ -32,6 +36,9 @@ struct AnchorSettings {
   std::uint64_t seed = 1;
   bool update_parameters = false;  // state augmentation with the adjustable parameters
   unsigned threads = 0;            // 0: all cores; results do not depend on it
+  // Localisation: a cell's update from a reading fades with their distance apart and stops at
+  // twice this (studies::gaspari_cohn); 0: every cell from every reading.
+  double reach_cm = 30.0;
 };
 
 // One member over one visit interval, cm of water.
