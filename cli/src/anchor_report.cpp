@@ -50,7 +50,7 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
       out += fmt::format("  member {} stopped: {}\n", j + 1, season.member_failures[j]);
 
   const site::ReportTable intervals = site::anchored_interval_table(season);
-  out += "\n" + site::format_table(intervals);
+  out += fmt::format("\n{}", site::format_table(intervals));
   double free_total = 0, mean_total = 0, update_total = 0;
   for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
     free_total += i < season.free_run_drainage_cm.size() ? season.free_run_drainage_cm[i] : 0.0;
@@ -61,11 +61,11 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
                      site::number(10 * free_total), site::number(10 * mean_total), site::number(10 * update_total));
   if (!season.visits.empty()) {
     const site::ReportTable visits = site::anchored_visit_table(season);
-    out += "\n" + site::format_table(visits);
+    out += fmt::format("\n{}", site::format_table(visits));
   }
   if (!season.warnings.empty()) {
     out += "\nWarnings:\n";
-    for (const auto& w : season.warnings) out += "  - " + w + "\n";
+    for (const auto& w : season.warnings) out += fmt::format("  - {}\n", w);
   }
   return out + kCautions;
 }
