@@ -4,7 +4,10 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <filesystem>
 #include <string>
+
+#include <fmt/format.h>
 
 #include "member_state.hpp"
 #include "site_test_helpers.hpp"
@@ -120,6 +123,27 @@ TEST(AnchoredSeason, RefusesASiteWithoutAdjustableParameters) {
   } catch (const base::InputError& error) {
     EXPECT_NE(std::string(error.what()).find("[[adjustable]]"), std::string::npos) << error.what();
   }
+}
+
+TEST(AnchorCommand, WritesItsThreeFilesAndNeverReplacesAForeignOne) {
+  ScratchSite site("anchor-command");
+  coarsen_grid(site);
+  const std::string command =
+      fmt::format("anchor '{}' --members 3 --threads 2 --to {}", site.site_file().string(), kEnd);
+  const auto run = testing::run_program(command, site.folder());
+  ASSERT_EQ(run.exit_code, 0) << run.out << run.err;
+  EXPECT_NE(run.out.find("updated: the soil water of every cell; the parameters keep their drawn values"),
+            std::string::npos);
+  const std::string intervals = site.read("site-anchored-intervals.csv");
+  EXPECT_EQ(intervals.rfind("from,to,free run [mm],anchored mean [mm],anchored 5 % [mm]", 0), 0u) << intervals;
+  EXPECT_NE(site.read("site-anchored-visits.csv").find("run id"), std::string::npos);
+  EXPECT_TRUE(std::filesystem::exists(site.folder() / "site-anchored.h5"));
+  // Its own files it replaces; a file of someone else's it leaves alone, and writes nothing.
+  EXPECT_EQ(testing::run_program(command + " --update-parameters", site.folder()).exit_code, 0);
+  site.write("site-anchored-visits.csv", "my notes\n");
+  const auto refused = testing::run_program(command, site.folder());
+  EXPECT_EQ(refused.exit_code, 1) << refused.out << refused.err;
+  EXPECT_EQ(site.read("site-anchored-visits.csv"), "my notes\n");
 }
 
 // The water-content update of one member on a van Genuchten loam (theta_r 0.08, theta_s 0.42).
