@@ -5,6 +5,8 @@
 #include <fmt/format.h>
 
 #include "anchor_report.hpp"
+#include "wetfront/base/input_error.hpp"
+#include "wetfront/base/quantity.hpp"
 #include "progress_line.hpp"
 #include "wetfront/site/anchored_output.hpp"
 #include "wetfront/site/output_files.hpp"
@@ -22,6 +24,7 @@ std::filesystem::path with_suffix(const std::filesystem::path& path, const std::
 void add_anchor_command(CLI::App& app) {
   struct Options {
     std::string site, out, from, to;
+    std::string reach = "30 cm";
     std::size_t members = 64;
     std::uint64_t seed = 1;
     bool update_parameters = false;
@@ -38,6 +41,9 @@ void add_anchor_command(CLI::App& app) {
   cmd->add_option("--seed", o->seed, "seed of the random draws (default 1); the same seed gives the same ensemble");
   cmd->add_flag("--update-parameters", o->update_parameters,
                 "update the adjustable parameters with the soil water (default: they keep their drawn values)");
+  cmd->add_option("--reach", o->reach,
+                  "how far in depth a reading updates the soil water: its weight falls to zero at twice this, "
+                  "\"0 cm\" lets every reading update every cell (default \"30 cm\")");
   cmd->add_option("--threads", o->threads, "threads to run on (default: all cores); results do not depend on it");
   cmd->add_option("--out", o->out, "HDF5 file to write (default: the site file's name with -anchored.h5)");
   cmd->add_option("--from", o->from, "start the season on this date instead (YYYY-MM-DD)");
@@ -51,6 +57,8 @@ void add_anchor_command(CLI::App& app) {
       "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
       "Example:\n  wetfront anchor examples/demo/site.toml --members 64");
   cmd->callback([o] {
+    const double reach_cm = base::parse_quantity(o->reach, base::Dimension::length, "option --reach");
+    if (!(reach_cm >= 0)) throw base::InputError("option --reach: give a length of zero or more, e.g. \"30 cm\"");
     const site::SiteSetup site = site::load_site_file(o->site, {o->from, o->to});
     const site::ParameterStudy study = site::load_parameter_study(site);
     const std::filesystem::path out =
@@ -61,7 +69,11 @@ void add_anchor_command(CLI::App& app) {
         {.outputs = {out, intervals_csv, visits_csv}, .inputs = site::site_input_files(site), .force = o->force});
     ProgressLine progress(o->quiet);
     const site::AnchorSettings settings{
-        .members = o->members, .seed = o->seed, .update_parameters = o->update_parameters, .threads = o->threads};
+        .members = o->members,
+        .seed = o->seed,
+        .update_parameters = o->update_parameters,
+        .threads = o->threads,
+        .reach_cm = reach_cm};
     const site::AnchoredSeason season = site::run_anchored_season(
         site, study, settings, WETFRONT_VERSION,
         [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });

@@ -42,6 +42,10 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
   out += s.update_parameters
              ? "  updated: the soil water of every cell and the adjustable parameters (state augmentation)\n"
              : "  updated: the soil water of every cell; the parameters keep their drawn values\n";
+  out += s.reach_cm > 0 ? fmt::format("  a reading updates the soil water within {} cm of its depth, fading to none "
+                                       "at {} cm (localisation)\n",
+                                       site::number(s.reach_cm), site::number(2 * s.reach_cm))
+                         : std::string("  every reading updates the soil water of every cell (no localisation)\n");
   out += fmt::format("  recharge plane {} cm below the surface; drainage positive downward\n",
                      site.recharge_plane_depth_cm);
   out += fmt::format("  {:.1f} s on {} threads\n", seconds, threads);

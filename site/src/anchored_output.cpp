@@ -123,6 +123,8 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
                                     "Leeuwen & Evensen 1998); update variable: water content of every cell"});
   record.notes.push_back({"members", std::to_string(s.members)});
   record.notes.push_back({"seed", std::to_string(s.seed)});
+  record.notes.push_back({"localisation_reach", fmt::format("{} cm (Gaspari-Cohn weights, zero beyond twice this; 0: "
+                                                           "none)", s.reach_cm)});
   record.notes.push_back({"parameters_updated", s.update_parameters ? "yes (state augmentation)" : "no"});
   std::string warnings;
   for (const auto& w : season.warnings) warnings += w + "\n";

@@ -114,3 +114,5 @@ wetfront_cli_check(anchor_demo_season 0 "4 members drawn .*updated at 28 visits.
 set_tests_properties(cli.anchor_demo_season PROPERTIES LABELS slow)
 wetfront_cli_check(anchor_one_member 1 "--members: Value 1 not in range 2 to 10000"
                    anchor ${demo_site} --members 1 --out anchor-one-member.h5)
+wetfront_cli_check(anchor_reach_without_unit 1 "option --reach.*mm, cm or m"
+                   anchor ${demo_site} --reach 30 --out anchor-reach.h5)
