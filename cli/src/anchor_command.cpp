@@ -5,6 +5,7 @@
 #include <fmt/format.h>
 
 #include "anchor_report.hpp"
+#include "command_output.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/base/quantity.hpp"
 #include "progress_line.hpp"
@@ -35,7 +36,8 @@ void add_anchor_command(CLI::App& app) {
   auto o = std::make_shared<Options>();
   CLI::App* cmd = app.add_subcommand(
       "anchor", "Run an ensemble of the season and update it at each visit from the readings (ensemble Kalman filter)");
-  cmd->add_option("SITE", o->site, "site file (TOML) with [[adjustable]] parameters and [fit]; see docs/anchored-season.md")
+  cmd->add_option("SITE", o->site,
+                  "site file (TOML) with [[adjustable]] parameters and [fit]; see docs/anchored-season.md")
       ->required();
   cmd->add_option("--members", o->members, "ensemble members (default 64)")->check(CLI::Range(2, 10000));
   cmd->add_option("--seed", o->seed, "seed of the random draws (default 1); the same seed gives the same ensemble");
@@ -49,8 +51,7 @@ void add_anchor_command(CLI::App& app) {
   cmd->add_option("--from", o->from, "start the season on this date instead (YYYY-MM-DD)");
   cmd->add_option("--to", o->to, "end the season on this date instead (YYYY-MM-DD)");
   cmd->add_flag("--quiet", o->quiet, "print only errors");
-  cmd->add_flag("--force", o->force,
-                "replace output files that wetfront did not write (files the runs read are never replaced)");
+  add_force_flag(cmd, o->force);
   cmd->footer(
       "Writes the HDF5 file and, next to it, NAME-intervals.csv (drainage per visit interval) and\n"
       "NAME-visits.csv (the update at each visit).\n"
@@ -68,24 +69,22 @@ void add_anchor_command(CLI::App& app) {
     const site::OutputGuard guard(
         {.outputs = {out, intervals_csv, visits_csv}, .inputs = site::site_input_files(site), .force = o->force});
     ProgressLine progress(o->quiet);
-    const site::AnchorSettings settings{
-        .members = o->members,
-        .seed = o->seed,
-        .update_parameters = o->update_parameters,
-        .threads = o->threads,
-        .reach_cm = reach_cm};
-    const site::AnchoredSeason season = site::run_anchored_season(
-        site, study, settings, WETFRONT_VERSION,
-        [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });
+    const site::AnchorSettings settings{.members = o->members,
+                                        .seed = o->seed,
+                                        .update_parameters = o->update_parameters,
+                                        .threads = o->threads,
+                                        .reach_cm = reach_cm};
+    const site::AnchoredSeason season =
+        site::run_anchored_season(site, study, settings, WETFRONT_VERSION,
+                                  [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });
     const double seconds = progress.seconds();
     progress.finish();
     const std::string run_id = site::new_run_id();
     site::ReportTable intervals = site::anchored_interval_table(season);
     site::ReportTable visits = site::anchored_visit_table(season);
     intervals.run_id = visits.run_id = run_id;
-    site::write_files_together({{intervals_csv, intervals}, {visits_csv, visits}}, [&] {
-      site::write_anchored_file(out, site, study, season, WETFRONT_VERSION, run_id);
-    });
+    site::write_files_together({{intervals_csv, intervals}, {visits_csv, visits}},
+                               [&] { site::write_anchored_file(out, site, study, season, WETFRONT_VERSION, run_id); });
     if (!o->quiet) {
       const unsigned threads = std::min<unsigned>(studies::thread_count(o->threads), static_cast<unsigned>(o->members));
       fmt::print("{}", anchored_report(site, study, season, seconds, threads));

@@ -24,11 +24,12 @@ constexpr const char* kCautions =
 std::string anchored_report(const site::SiteSetup& site, const site::ParameterStudy& study,
                             const site::AnchoredSeason& season, double seconds, unsigned threads) {
   const auto& s = season.settings;
-  const auto complete = static_cast<std::size_t>(
-      std::count(season.member_complete.begin(), season.member_complete.end(), true));
+  const auto complete =
+      static_cast<std::size_t>(std::count(season.member_complete.begin(), season.member_complete.end(), true));
   std::size_t readings = 0;
   for (const auto& visit : season.visits) readings += visit.readings.size();
-  std::string out = fmt::format("Anchored season of {} ({} to {})\n", site.name, site.run_start_text, site.run_end_text);
+  std::string out =
+      fmt::format("Anchored season of {} ({} to {})\n", site.name, site.run_start_text, site.run_end_text);
   out += fmt::format("  {} members drawn from the [[adjustable]] ranges (seed {}), {} ran the whole season\n",
                      s.members, s.seed, complete);
   out += fmt::format("  updated at {} visits from {} readings (reading uncertainty: heads {} cm{})\n",
@@ -42,16 +43,16 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
   out += s.update_parameters
              ? "  updated: the soil water of every cell and the adjustable parameters (state augmentation)\n"
              : "  updated: the soil water of every cell; the parameters keep their drawn values\n";
-  out += s.reach_cm > 0 ? fmt::format("  a reading updates the soil water within {} cm of its depth, fading to none "
-                                       "at {} cm (localisation)\n",
-                                       site::number(s.reach_cm), site::number(2 * s.reach_cm))
-                         : std::string("  every reading updates the soil water of every cell (no localisation)\n");
+  out += s.reach_cm > 0 ? fmt::format(
+                              "  a reading updates the soil water within {} cm of its depth, fading to none "
+                              "at {} cm (localisation)\n",
+                              site::number(s.reach_cm), site::number(2 * s.reach_cm))
+                        : std::string("  every reading updates the soil water of every cell (no localisation)\n");
   out += fmt::format("  recharge plane {} cm below the surface; drainage positive downward\n",
                      site.recharge_plane_depth_cm);
   out += fmt::format("  {:.1f} s on {} threads\n", seconds, threads);
   for (std::size_t j = 0; j < season.member_failures.size(); ++j)
-    if (!season.member_complete[j])
-      out += fmt::format("  member {} stopped: {}\n", j + 1, season.member_failures[j]);
+    if (!season.member_complete[j]) out += fmt::format("  member {} stopped: {}\n", j + 1, season.member_failures[j]);
 
   const site::ReportTable intervals = site::anchored_interval_table(season);
   out += fmt::format("\n{}", site::format_table(intervals));

@@ -114,17 +114,18 @@ ReportTable anchored_visit_table(const AnchoredSeason& season) {
 }
 
 void write_anchored_file(const std::filesystem::path& path, const SiteSetup& site, const ParameterStudy& study,
-                         const AnchoredSeason& season, const std::string& program_version,
-                         const std::string& run_id) {
+                         const AnchoredSeason& season, const std::string& program_version, const std::string& run_id) {
   profiles::StudyRecord record =
       detail::study_record(site, study, season.input_hash, "anchored season", program_version, run_id);
   const AnchorSettings& s = season.settings;
-  record.notes.push_back({"method", "ensemble Kalman filter with perturbed readings (Evensen 1994; Burgers, van "
-                                    "Leeuwen & Evensen 1998); update variable: water content of every cell"});
+  record.notes.push_back({"method",
+                          "ensemble Kalman filter with perturbed readings (Evensen 1994; Burgers, van "
+                          "Leeuwen & Evensen 1998); update variable: water content of every cell"});
   record.notes.push_back({"members", std::to_string(s.members)});
   record.notes.push_back({"seed", std::to_string(s.seed)});
   record.notes.push_back({"localisation_reach", fmt::format("{} cm (Gaspari-Cohn weights, zero beyond twice this; 0: "
-                                                           "none)", s.reach_cm)});
+                                                            "none)",
+                                                            s.reach_cm)});
   record.notes.push_back({"parameters_updated", s.update_parameters ? "yes (state augmentation)" : "no"});
   std::string warnings;
   for (const auto& w : season.warnings) warnings += w + "\n";
@@ -141,17 +142,20 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
   intervals.axis = {"interval_end", "days since run start",
                     "end of the visit interval (its start is the previous end, or the run start)",
                     season.interval_end_days};
-  StudyColumn free_run{"free_run_drainage", "cm", "drainage at the recharge plane of the free run with the site's values", {}};
+  StudyColumn free_run{
+      "free_run_drainage", "cm", "drainage at the recharge plane of the free run with the site's values", {}};
   StudyColumn mean{"drainage_mean", "cm", "ensemble mean of the drainage at the recharge plane", {}};
   StudyColumn lower{"drainage_5th_percentile", "cm", "5th percentile of the members' drainage", {}};
   StudyColumn upper{"drainage_95th_percentile", "cm", "95th percentile of the members' drainage", {}};
   StudyColumn darcy{"darcy_estimate", "cm", "Darcy estimate from the tensiometer pair (NaN: none)", {}};
   StudyColumn water_table{"water_table_estimate", "cm", "water-table-fluctuation estimate (NaN: none)", {}};
-  profiles::StudyMatrix drainage{"member_drainage", "cm", "each member's drainage at the recharge plane (positive downward)",
-                                 member_numbers, {}};
-  profiles::StudyMatrix update{"member_update", "cm",
+  profiles::StudyMatrix drainage{
+      "member_drainage", "cm", "each member's drainage at the recharge plane (positive downward)", member_numbers, {}};
+  profiles::StudyMatrix update{"member_update",
+                               "cm",
                                "stored water each member's update added at the interval's start (negative: removed)",
-                               member_numbers, {}};
+                               member_numbers,
+                               {}};
   for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
     const EnsembleBand band = drainage_band(season, i);
     free_run.values.push_back(free_run_at(season, i));
@@ -174,8 +178,8 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
   visits.group = "visits";
   visits.axis = {"visit", "days since run start", "time of the visit whose readings updated the members", {}};
   StudyColumn count{"readings", "1", "readings used in the update", {}};
-  profiles::StudyMatrix added{"stored_water_added", "cm", "stored water each member's update added (NaN: member failed)",
-                              member_numbers, {}};
+  profiles::StudyMatrix added{
+      "stored_water_added", "cm", "stored water each member's update added (NaN: member failed)", member_numbers, {}};
   for (const auto& visit : season.visits) {
     visits.axis.values.push_back(visit.day);
     count.values.push_back(static_cast<double>(visit.readings.size()));
@@ -222,11 +226,10 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
   StudyColumn complete{"complete", "1", "1 when the member ran the whole season, else 0", {}};
   StudyColumn parameter_axis{"parameter_number", "1", "number of the adjustable parameter (site-file order)", {}};
   for (std::size_t k = 0; k < study.parameters.size(); ++k) parameter_axis.values.push_back(static_cast<double>(k + 1));
-  profiles::StudyMatrix drawn{"drawn_values", "", "parameter values as drawn, in the unit of each parameter",
-                              parameter_axis, {}};
-  profiles::StudyMatrix final_values{"final_values", "",
-                                     "parameter values after the last update, in the unit of each parameter",
-                                     parameter_axis, {}};
+  profiles::StudyMatrix drawn{
+      "drawn_values", "", "parameter values as drawn, in the unit of each parameter", parameter_axis, {}};
+  profiles::StudyMatrix final_values{
+      "final_values", "", "parameter values after the last update, in the unit of each parameter", parameter_axis, {}};
   for (std::size_t j = 0; j < members; ++j) {
     complete.values.push_back(season.member_complete[j] ? 1 : 0);
     drawn.values.insert(drawn.values.end(), season.drawn_parameters[j].begin(), season.drawn_parameters[j].end());

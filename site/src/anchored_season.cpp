@@ -94,8 +94,8 @@ class Ensemble {
       const EnsembleMember& m = members[alive[static_cast<std::size_t>(j)]];
       for (Eigen::Index i = 0; i < n_cells; ++i) states(i, j) = m.water_content[static_cast<std::size_t>(i)];
       for (Eigen::Index k = 0; k < n_parameters; ++k)
-        states(n_cells + k, j) =
-            studies::to_search_scale(parameters[static_cast<std::size_t>(k)].range, m.values[static_cast<std::size_t>(k)]);
+        states(n_cells + k, j) = studies::to_search_scale(parameters[static_cast<std::size_t>(k)].range,
+                                                          m.values[static_cast<std::size_t>(k)]);
       for (Eigen::Index r = 0; r < n_readings; ++r)
         forecasts(r, j) = predicted(m, centres_, visit.readings[static_cast<std::size_t>(r)], m.water_content);
     }
@@ -109,8 +109,8 @@ class Ensemble {
     for (Eigen::Index r = 0; r < n_readings; ++r)
       for (Eigen::Index j = 0; j < n_members; ++j)
         filtered(r, j) = filter_value(visit.readings[static_cast<std::size_t>(r)], forecasts(r, j));
-    const Eigen::MatrixXd analysed = studies::analysed_states(states, filtered, perturbed, sd.array().square(),
-                                                              localisation(visit, states.rows()));
+    const Eigen::MatrixXd analysed =
+        studies::analysed_states(states, filtered, perturbed, sd.array().square(), localisation(visit, states.rows()));
 
     VisitUpdate update;
     update.readings = visit.readings;
@@ -169,7 +169,9 @@ class Ensemble {
         const double low = studies::to_search_scale(range, range.lower);
         const double high = studies::to_search_scale(range, range.upper);
         const double value = std::clamp(analysed[n_cells + static_cast<Eigen::Index>(k)], low, high);
-        m.values[k] = value == low ? range.lower : value == high ? range.upper : studies::from_search_scale(range, value);
+        m.values[k] = value == low    ? range.lower
+                      : value == high ? range.upper
+                                      : studies::from_search_scale(range, value);
       }
       m.season.reset();
       if (!detail::ensure_season(shared_, m)) return;
@@ -264,9 +266,9 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
   season.interval_end_days.assign(boundaries.begin() + 1, boundaries.end());
   season.interval_end_dates = visit_dates;
   season.interval_end_dates.push_back(site.run_end_text);
-  const std::vector<detail::ReadingsAtVisit> visits = detail::readings_by_visit(
-      records.sensor_readings, visit_days, study.weights, base.problem.end_day, centres,
-      season.readings_not_at_a_visit);
+  const std::vector<detail::ReadingsAtVisit> visits =
+      detail::readings_by_visit(records.sensor_readings, visit_days, study.weights, base.problem.end_day, centres,
+                                season.readings_not_at_a_visit);
 
   const detail::EnsembleSite shared{site, study, records};
   Ensemble ensemble(shared, settings, centres);

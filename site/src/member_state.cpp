@@ -6,8 +6,7 @@
 namespace wetfront::site::detail {
 
 std::vector<double> analysed_heads(const soils::LayeredProfile& soil, std::span<const double> cell_depths_cm,
-                                   std::span<const double> forecast_heads_cm,
-                                   std::span<const double> forecast_contents,
+                                   std::span<const double> forecast_heads_cm, std::span<const double> forecast_contents,
                                    std::span<const double> analysed_contents) {
   const std::size_t n = cell_depths_cm.size();
   if (forecast_heads_cm.size() != n || forecast_contents.size() != n || analysed_contents.size() != n)

@@ -16,8 +16,7 @@ namespace wetfront::site::detail {
 // left unchanged keeps its forecast head, and so does a saturated cell pushed to or past
 // saturation (its positive head carries the water table, which water content cannot tell).
 std::vector<double> analysed_heads(const soils::LayeredProfile& soil, std::span<const double> cell_depths_cm,
-                                   std::span<const double> forecast_heads_cm,
-                                   std::span<const double> forecast_contents,
+                                   std::span<const double> forecast_heads_cm, std::span<const double> forecast_contents,
                                    std::span<const double> analysed_contents);
 
 inline constexpr double kContentMargin = 1e-4;  // fraction of theta_s - theta_r

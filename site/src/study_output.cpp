@@ -93,14 +93,14 @@ void save_study(const std::filesystem::path& path, const profiles::StudyRecord& 
   } catch (const profiles::RunFileError& error) {
     throw base::InputError(error.what());
   }
-
 }
 }  // namespace detail
 
 void write_sweep_file(const std::filesystem::path& path, const SeasonModel& model, const SweepResult& sweep,
                       std::size_t kept, unsigned threads, const std::string& program_version,
                       const std::string& run_id) {
-  profiles::StudyRecord record = detail::study_record(model.site(), model.study(), model.records().input_hash, "parameter sweep", program_version, run_id);
+  profiles::StudyRecord record = detail::study_record(model.site(), model.study(), model.records().input_hash,
+                                                      "parameter sweep", program_version, run_id);
   record.notes.push_back({"sampling", sweep.method});
   record.tables.push_back(detail::parameter_table(model.study()));
 
@@ -165,7 +165,8 @@ void write_sweep_file(const std::filesystem::path& path, const SeasonModel& mode
 void write_calibration_file(const std::filesystem::path& path, const SeasonModel& model, const CalibrationStudy& study,
                             const std::string& program_version, const std::string& run_id) {
   const studies::CalibrationResult& fit = study.fit;
-  profiles::StudyRecord record = detail::study_record(model.site(), model.study(), model.records().input_hash, "calibration", program_version, run_id);
+  profiles::StudyRecord record = detail::study_record(model.site(), model.study(), model.records().input_hash,
+                                                      "calibration", program_version, run_id);
   record.notes.push_back({"stop_reason", fit.stop_reason});
   record.notes.push_back({"model_runs", std::to_string(fit.runs)});
   if (!fit.covariance_note.empty()) record.notes.push_back({"covariance_note", fit.covariance_note});

@@ -22,8 +22,8 @@ std::vector<ReadingsAtVisit> readings_by_visit(const std::vector<SensorRecord>& 
       for (std::size_t v = 0; v < visit_days.size(); ++v) {
         if (std::abs(visit_days[v] - o.day) < distance) distance = std::abs(visit_days[v] - o.day), nearest = v;
       }
-      const bool inside = !cell_centres_cm.empty() && o.depth_cm >= cell_centres_cm.front() &&
-                          o.depth_cm <= cell_centres_cm.back();
+      const bool inside =
+          !cell_centres_cm.empty() && o.depth_cm >= cell_centres_cm.front() && o.depth_cm <= cell_centres_cm.back();
       if (nearest == visit_days.size() || distance >= kVisitReadingWindowDays || !inside) {
         ++unused;
         continue;

@@ -23,12 +23,13 @@ Eigen::MatrixXd kalman_gain(const Eigen::MatrixXd& states, const Eigen::MatrixXd
   const Eigen::MatrixXd a = ensemble_anomalies(states);
   const Eigen::MatrixXd b = ensemble_anomalies(predicted);
   const double scale = 1.0 / static_cast<double>(members - 1);
-  Eigen::MatrixXd cross = scale * a * b.transpose();  // C_xy
+  Eigen::MatrixXd cross = scale * a * b.transpose();                  // C_xy
   Eigen::MatrixXd innovation_covariance = scale * b * b.transpose();  // C_yy
   const auto& rho_xy = localisation.state_reading;
   const auto& rho_yy = localisation.reading_reading;
   if ((rho_xy.size() > 0 && (rho_xy.rows() != cross.rows() || rho_xy.cols() != cross.cols())) ||
-      (rho_yy.size() > 0 && (rho_yy.rows() != innovation_covariance.rows() || rho_yy.cols() != innovation_covariance.cols())))
+      (rho_yy.size() > 0 &&
+       (rho_yy.rows() != innovation_covariance.rows() || rho_yy.cols() != innovation_covariance.cols())))
     throw std::invalid_argument("kalman_gain: the localisation weights do not fit the states and readings");
   if (rho_xy.size() > 0) cross = cross.cwiseProduct(rho_xy);
   if (rho_yy.size() > 0) innovation_covariance = innovation_covariance.cwiseProduct(rho_yy);
@@ -53,7 +54,7 @@ Eigen::MatrixXd perturbed_readings(const Eigen::VectorXd& readings, const Eigen:
     // std::seed_seq and the engine's seeding from it are fixed by the standard.
     std::seed_seq sequence{static_cast<std::uint32_t>(seed), static_cast<std::uint32_t>(seed >> 32),
                            static_cast<std::uint32_t>(step), static_cast<std::uint32_t>(step >> 32),
-                           static_cast<std::uint32_t>(j), static_cast<std::uint32_t>(j >> 32)};
+                           static_cast<std::uint32_t>(j),    static_cast<std::uint32_t>(j >> 32)};
     std::mt19937_64 generator(sequence);
     for (Eigen::Index i = 0; i < readings.size(); ++i)
       perturbed(i, static_cast<Eigen::Index>(j)) = readings[i] + reading_sd[i] * detail::standard_normal(generator);

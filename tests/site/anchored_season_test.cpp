@@ -148,9 +148,12 @@ TEST(AnchorCommand, WritesItsThreeFilesAndNeverReplacesAForeignOne) {
 
 // The water-content update of one member on a van Genuchten loam (theta_r 0.08, theta_s 0.42).
 TEST(AnalysedHeads, ContentsOutsideTheRangeGiveFiniteHeadsInsideIt) {
-  const soils::HydraulicModel loam = soils::VanGenuchtenMualem{
-      .residual_water_content = 0.08, .saturated_water_content = 0.42, .alpha_per_cm = 0.03, .n = 1.5,
-      .saturated_conductivity_cm_per_d = 20, .pore_connectivity = 0.5};
+  const soils::HydraulicModel loam = soils::VanGenuchtenMualem{.residual_water_content = 0.08,
+                                                               .saturated_water_content = 0.42,
+                                                               .alpha_per_cm = 0.03,
+                                                               .n = 1.5,
+                                                               .saturated_conductivity_cm_per_d = 20,
+                                                               .pore_connectivity = 0.5};
   const soils::LayeredProfile soil({{"loam", 0, 100, loam}});
   const std::vector<double> depths{10, 30, 50, 70, 90};
   const std::vector<double> heads{-100, -100, -100, 5, -100};

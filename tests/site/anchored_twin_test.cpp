@@ -61,8 +61,8 @@ TEST(AnchoredTwin, AnchoredBandHoldsTheTrueRechargeWhereTheFreeRunMissesIt) {
 
   scale_rain(site, kRainFactor);
   const SiteSetup setup = load_site_file(site.site_file(), {"", kEnd});
-  const AnchoredSeason season = run_anchored_season(setup, load_parameter_study(setup),
-                                                    {.members = 32, .seed = 2, .threads = 2}, "test");
+  const AnchoredSeason season =
+      run_anchored_season(setup, load_parameter_study(setup), {.members = 32, .seed = 2, .threads = 2}, "test");
   ASSERT_EQ(season.interval_end_days.size(), true_recharge.size());
   ASSERT_EQ(season.free_run_drainage_cm.size(), true_recharge.size());
 

@@ -82,7 +82,7 @@ TEST(EnsembleFilter, PerturbationsBelongToTheirMember) {
   const Eigen::VectorXd sd = Eigen::VectorXd::Constant(3, 2.0);
   const Eigen::MatrixXd few = perturbed_readings(readings, sd, 4, 5, 2);
   const Eigen::MatrixXd more = perturbed_readings(readings, sd, 9, 5, 2);
-  EXPECT_EQ(few, more.leftCols(4));  // member j draws the same whatever the ensemble size
+  EXPECT_EQ(few, more.leftCols(4));                           // member j draws the same whatever the ensemble size
   EXPECT_NE(few, perturbed_readings(readings, sd, 4, 5, 3));  // another visit, other draws
   EXPECT_NE(few, perturbed_readings(readings, sd, 4, 6, 2));  // another seed, other draws
   const Eigen::MatrixXd many = perturbed_readings(readings, sd, 20000, 5, 2);

@@ -24,6 +24,7 @@ ReportTable anchored_visit_table(const AnchoredSeason& season);
 // member's drainage and update), /visits, /readings and /members. Throws base::InputError naming
 // the file when it cannot be written.
 void write_anchored_file(const std::filesystem::path& path, const SiteSetup& site, const ParameterStudy& study,
-                         const AnchoredSeason& season, const std::string& program_version, const std::string& run_id = {});
+                         const AnchoredSeason& season, const std::string& program_version,
+                         const std::string& run_id = {});
 
 }  // namespace wetfront::site

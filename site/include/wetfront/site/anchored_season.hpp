@@ -43,12 +43,12 @@ struct AnchorSettings {
 
 // One member over one visit interval, cm of water.
 struct MemberInterval {
-  double drainage_cm = 0;        // across the recharge plane, positive downward
-  double net_inflow_cm = 0;      // water input - evaporation - runoff - transpiration - bottom flux
-  double update_cm = 0;          // added by the update at the interval's start (negative: removed)
-  double storage_start_cm = 0;   // soil and pond at the start, before the update
-  double storage_end_cm = 0;     // soil and pond at the end, before any update there
-  double balance_error_cm = 0;   // (end - start) - net inflow - update
+  double drainage_cm = 0;       // across the recharge plane, positive downward
+  double net_inflow_cm = 0;     // water input - evaporation - runoff - transpiration - bottom flux
+  double update_cm = 0;         // added by the update at the interval's start (negative: removed)
+  double storage_start_cm = 0;  // soil and pond at the start, before the update
+  double storage_end_cm = 0;    // soil and pond at the end, before any update there
+  double balance_error_cm = 0;  // (end - start) - net inflow - update
 };
 
 // One reading compared at a visit.
@@ -56,9 +56,9 @@ struct VisitReading {
   std::string sensor;
   std::string quantity;  // kPressureHead or kWaterContent
   double depth_cm = 0;
-  double day = 0;           // when it was read
-  double value = 0;         // cm or cm3/cm3
-  double uncertainty = 0;   // sd of the reading error, same unit
+  double day = 0;          // when it was read
+  double value = 0;        // cm or cm3/cm3
+  double uncertainty = 0;  // sd of the reading error, same unit
   double forecast_mean = 0;
   double forecast_spread = 0;  // sd of the members' forecasts
   double analysis_mean = 0;    // the members' mean after the update, at the same place
@@ -69,8 +69,8 @@ struct VisitUpdate {
   std::string date;  // ISO 8601, as the site file gives it
   std::vector<VisitReading> readings;
   std::vector<double> stored_water_increment_cm;  // per member (dropped members: NaN)
-  bool collapsed = false;  // forecast spread far below the reading uncertainty
-  bool outside = false;    // innovations well outside spread and uncertainty together
+  bool collapsed = false;                         // forecast spread far below the reading uncertainty
+  bool outside = false;                           // innovations well outside spread and uncertainty together
 };
 
 struct AnchoredSeason {
@@ -86,9 +86,9 @@ struct AnchoredSeason {
   std::vector<double> free_run_drainage_cm;             // the site's own values, per interval
   std::optional<DarcyCheck> darcy;                      // of the free run's readings, per interval
   std::optional<WaterTableCheck> water_table;
-  std::vector<std::string> warnings;                    // collapse, innovations outside the spread
-  std::vector<std::string> interval_end_dates;          // ISO 8601, for reports
-  std::string input_hash;                               // of the site file and its records
+  std::vector<std::string> warnings;            // collapse, innovations outside the spread
+  std::vector<std::string> interval_end_dates;  // ISO 8601, for reports
+  std::string input_hash;                       // of the site file and its records
 };
 
 // The mean and central 90 % band (5th and 95th percentiles, studies::percentile) of values over
