@@ -115,13 +115,17 @@ class Ensemble {
     VisitUpdate update;
     update.readings = visit.readings;
     update.stored_water_increment_cm.assign(members.size(), kMissing);
-    Eigen::MatrixXd after(n_readings, n_members);
+    // The readings as the analysed members give them (members that an update made unphysical
+    // are left out).
+    Eigen::VectorXd after_sum = Eigen::VectorXd::Zero(n_readings);
+    double after_count = 0;
     for (Eigen::Index j = 0; j < n_members; ++j) {
       EnsembleMember& m = members[alive[static_cast<std::size_t>(j)]];
       apply(m, analysed.col(j), n_cells);
       if (!m.complete) continue;
+      ++after_count;
       for (Eigen::Index r = 0; r < n_readings; ++r)
-        after(r, j) = predicted(m, centres_, visit.readings[static_cast<std::size_t>(r)], m.water_content);
+        after_sum[r] += predicted(m, centres_, visit.readings[static_cast<std::size_t>(r)], m.water_content);
     }
     std::vector<double> spread_ratios;
     double mean_square = 0;
@@ -129,7 +133,7 @@ class Ensemble {
       VisitReading& reading = update.readings[static_cast<std::size_t>(r)];
       reading.forecast_mean = mean_of(forecasts.row(r));
       reading.forecast_spread = spread_of(forecasts.row(r));
-      reading.analysis_mean = mean_of(after.row(r));
+      reading.analysis_mean = after_count > 0 ? after_sum[r] / after_count : kMissing;
       spread_ratios.push_back(reading.forecast_spread / reading.uncertainty);
       const double innovation = reading.value - reading.forecast_mean;
       mean_square += innovation * innovation /
