@@ -118,6 +118,8 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
   profiles::StudyRecord record =
       detail::study_record(site, study, season.input_hash, "anchored season", program_version, run_id);
   const AnchorSettings& s = season.settings;
+  // The readings weigh in through their uncertainties, not through a calibration's objective.
+  std::erase_if(record.notes, [](const auto& note) { return note.first == "objective"; });
   record.notes.push_back({"method",
                           "ensemble Kalman filter with perturbed readings (Evensen 1994; Burgers, van "
                           "Leeuwen & Evensen 1998); update variable: water content of every cell"});

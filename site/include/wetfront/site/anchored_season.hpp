@@ -13,6 +13,8 @@
 // with weights falling smoothly with distance; the parameters (with --update-parameters) from
 // every reading.
 //
+// Heads enter the update as log10(1 cm + suction), water contents as they are.
+//
 // Update variable: the water content of every cell (and, on request, the adjustable parameters
 // on their search scale: state augmentation). Analysed water contents are held strictly inside
 // (theta_r, theta_s) of the member's soil and turned back into heads, so every member stays
