@@ -1,6 +1,7 @@
 // The `wetfront` program: one registration function per command family.
 #include <CLI/CLI.hpp>
 
+#include "anchor_command.hpp"
 #include "network_command.hpp"
 #include "parameter_commands.hpp"
 #include "run_app.hpp"
@@ -20,5 +21,6 @@ int main(int argc, char** argv) {
   wetfront::cli::add_season_commands(app);
   wetfront::cli::add_parameter_commands(app);
   wetfront::cli::add_network_command(app);
+  wetfront::cli::add_anchor_command(app);
   return wetfront::cli::run_app(app, argc, argv);
 }

@@ -37,8 +37,8 @@ void write_table(hid_t file, const StudyTable& table, const std::string& time_un
     if (column.values.size() != axis.values.size())
       throw std::invalid_argument(fmt::format("{}/{} has {} values for {} rows", table.group, column.name,
                                               column.values.size(), axis.values.size()));
-    const h5::Dataset dataset =
-        h5::write_vector(group.id(), column.name, column.values, {column.units, column.long_name});
+    const std::string& units = column.units == "days since run start" ? time_units : column.units;
+    const h5::Dataset dataset = h5::write_vector(group.id(), column.name, column.values, {units, column.long_name});
     h5::attach_dimension_scale(dataset, axis_dataset, 0);
   }
   for (const StudyTextColumn& column : table.texts) {

@@ -7,28 +7,17 @@
 #include <fmt/format.h>
 
 #include "wetfront/base/input_error.hpp"
+#include "fit_readings.hpp"
 #include "wetfront/site/simulated_profiles.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
 #include "wetfront/observations/profile_interpolation.hpp"
 #include "wetfront/solver/column_run.hpp"
 
 namespace wetfront::site {
-namespace {
 
 namespace obs = observations;
-
-// Heads from tensiometers; water contents from probes and core samples. Well levels are not
-// compared: they describe the water table below the column, which the bottom boundary holds.
-bool is_head(const SensorRecord& r) { return r.quantity == kPressureHead; }
-bool is_water_content(const SensorRecord& r) { return r.quantity == kWaterContent; }
-
-// Whether a reading enters the objective.
-bool compared(const SensorRecord& r, const obs::Observation& o, const FitWeights& weights, double end_day) {
-  if (!o.reliable || o.day < 0 || o.day > end_day + 1e-9) return false;
-  return is_head(r) || (is_water_content(r) && weights.water_content_uncertainty.has_value());
-}
-
-}  // namespace
+using detail::compared;
+using detail::is_head;
 
 SeasonModel::SeasonModel(SiteSetup site, ParameterStudy study)
     : site_(std::move(site)), study_(std::move(study)), records_(read_field_records(site_)) {
@@ -93,7 +82,7 @@ ScoredRun SeasonModel::run(const studies::ParameterSet& values, profiles::RunRec
         scored.failure = fmt::format("no simulated value for {} at day {:.3f}", r.name, o.day);
         return scored;
       }
-      const double sigma = tensiometer ? study_.weights.head_uncertainty_cm : *study_.weights.water_content_uncertainty;
+      const double sigma = detail::reading_uncertainty(r, study_.weights);
       residuals.push_back((*value - o.value) / sigma);
       (tensiometer ? head_sim : content_sim).push_back(*value);
       (tensiometer ? head_obs : content_obs).push_back(o.value);

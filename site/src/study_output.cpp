@@ -10,6 +10,7 @@
 #include "wetfront/studies/parallel_batch.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/profiles/study_file.hpp"
+#include "study_tables.hpp"
 
 namespace wetfront::site {
 namespace {
@@ -19,31 +20,51 @@ using profiles::StudyColumn;
 
 constexpr double kMissing = std::numeric_limits<double>::quiet_NaN();
 
-profiles::StudyRecord study_record(const SeasonModel& model, std::string kind, const std::string& version,
-                                   const std::string& run_id) {
+StudyColumn interval_axis(const SeasonModel& model) {
+  return {"interval_end", "days since run start",
+          "end of the visit interval (its start is the previous end, or the run start)", model.interval_end_days()};
+}
+
+std::vector<std::pair<std::string, double>> labelled_values(const SeasonModel& model,
+                                                            const studies::ParameterSet& values) {
+  std::vector<std::pair<std::string, double>> out;
+  const auto& parameters = model.study().parameters;
+  for (std::size_t k = 0; k < values.size(); ++k) {
+    const auto& r = parameters[k].range;
+    out.push_back({r.unit.empty() ? r.name : fmt::format("{} [{}]", r.name, r.unit), values[k]});
+  }
+  return out;
+}
+
+}  // namespace
+
+namespace detail {
+
+profiles::StudyRecord study_record(const SiteSetup& site, const ParameterStudy& study, const std::string& input_hash,
+                                   std::string kind, const std::string& version, const std::string& run_id) {
   profiles::StudyRecord record;
   record.run_id = run_id;
   record.study_kind = std::move(kind);
-  record.site_name = model.site().name;
-  record.run_start_date = model.site().run_start_text;
+  record.site_name = site.name;
+  record.run_start_date = site.run_start_text;
   record.program_version = version;
-  record.input_hash = model.records().input_hash;
-  const FitWeights& w = model.study().weights;
+  record.input_hash = input_hash;
+  const FitWeights& w = study.weights;
   record.notes.push_back({"objective", "sum of squared weighted residuals (simulated - observed) / uncertainty"});
   record.notes.push_back({"head_uncertainty", fmt::format("{} cm", w.head_uncertainty_cm)});
   record.notes.push_back({"water_content_uncertainty", w.water_content_uncertainty
                                                            ? fmt::format("{} cm3/cm3", *w.water_content_uncertainty)
                                                            : "not compared"});
   record.notes.push_back({"recharge_plane", fmt::format("{} cm below the surface; recharge positive downward",
-                                                        model.site().recharge_plane_depth_cm)});
+                                                        site.recharge_plane_depth_cm)});
   return record;
 }
 
 // /parameters: one row per adjustable parameter.
-profiles::StudyTable parameter_table(const SeasonModel& model) {
+profiles::StudyTable parameter_table(const ParameterStudy& study) {
   profiles::StudyTable table;
   table.group = "parameters";
-  const auto& parameters = model.study().parameters;
+  const auto& parameters = study.parameters;
   table.axis = {"parameter_number", "1", "number of the adjustable parameter (site-file order)", {}};
   profiles::StudyTextColumn names{"name", "layer and key, or site key", {}};
   profiles::StudyTextColumn units{"unit", "unit of the values of this parameter", {}};
@@ -66,38 +87,22 @@ profiles::StudyTable parameter_table(const SeasonModel& model) {
   return table;
 }
 
-StudyColumn interval_axis(const SeasonModel& model) {
-  return {"interval_end", "days since run start",
-          "end of the visit interval (its start is the previous end, or the run start)", model.interval_end_days()};
-}
-
-std::vector<std::pair<std::string, double>> labelled_values(const SeasonModel& model,
-                                                            const studies::ParameterSet& values) {
-  std::vector<std::pair<std::string, double>> out;
-  const auto& parameters = model.study().parameters;
-  for (std::size_t k = 0; k < values.size(); ++k) {
-    const auto& r = parameters[k].range;
-    out.push_back({r.unit.empty() ? r.name : fmt::format("{} [{}]", r.name, r.unit), values[k]});
-  }
-  return out;
-}
-
-void save(const std::filesystem::path& path, const profiles::StudyRecord& record) {
+void save_study(const std::filesystem::path& path, const profiles::StudyRecord& record) {
   try {
     profiles::write_study(path, record);
   } catch (const profiles::RunFileError& error) {
     throw base::InputError(error.what());
   }
 }
-
-}  // namespace
+}  // namespace detail
 
 void write_sweep_file(const std::filesystem::path& path, const SeasonModel& model, const SweepResult& sweep,
                       std::size_t kept, unsigned threads, const std::string& program_version,
                       const std::string& run_id) {
-  profiles::StudyRecord record = study_record(model, "parameter sweep", program_version, run_id);
+  profiles::StudyRecord record = detail::study_record(model.site(), model.study(), model.records().input_hash,
+                                                      "parameter sweep", program_version, run_id);
   record.notes.push_back({"sampling", sweep.method});
-  record.tables.push_back(parameter_table(model));
+  record.tables.push_back(detail::parameter_table(model.study()));
 
   profiles::StudyTable sets;
   sets.group = "sets";
@@ -154,13 +159,14 @@ void write_sweep_file(const std::filesystem::path& path, const SeasonModel& mode
          fmt::format("set {}, rank {} by objective ({})", sweep.ranking[r] + 1, r + 1, best.objective),
          labelled_values(model, best.values), std::move(records[r].run)});
   }
-  save(path, record);
+  detail::save_study(path, record);
 }
 
 void write_calibration_file(const std::filesystem::path& path, const SeasonModel& model, const CalibrationStudy& study,
                             const std::string& program_version, const std::string& run_id) {
   const studies::CalibrationResult& fit = study.fit;
-  profiles::StudyRecord record = study_record(model, "calibration", program_version, run_id);
+  profiles::StudyRecord record = detail::study_record(model.site(), model.study(), model.records().input_hash,
+                                                      "calibration", program_version, run_id);
   record.notes.push_back({"stop_reason", fit.stop_reason});
   record.notes.push_back({"model_runs", std::to_string(fit.runs)});
   if (!fit.covariance_note.empty()) record.notes.push_back({"covariance_note", fit.covariance_note});
@@ -168,7 +174,7 @@ void write_calibration_file(const std::filesystem::path& path, const SeasonModel
   for (const auto& w : fit.warnings) warnings += w + "\n";
   record.notes.push_back({"warnings", warnings});
 
-  profiles::StudyTable parameters = parameter_table(model);
+  profiles::StudyTable parameters = detail::parameter_table(model.study());
   const auto n = fit.parameters.size();
   StudyColumn start{"start", "", "value the calibration started from, in the unit given by unit", fit.start};
   StudyColumn best{"calibrated", "", "calibrated value, in the unit given by unit", fit.best};
@@ -270,7 +276,7 @@ void write_calibration_file(const std::filesystem::path& path, const SeasonModel
     record.runs.push_back({"calibrated", "the run with the calibrated values", labelled_values(model, fit.best),
                            std::move(run_record.run)});
   }
-  save(path, record);
+  detail::save_study(path, record);
 }
 
 }  // namespace wetfront::site

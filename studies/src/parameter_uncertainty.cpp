@@ -3,28 +3,17 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
-#include <numbers>
 #include <random>
 #include <stdexcept>
 
 #include <fmt/format.h>
 #include "wetfront/base/input_error.hpp"
+#include "random_draws.hpp"
 
 namespace wetfront::studies {
 namespace {
 
 constexpr double kNormal95 = 1.959964;  // two-sided 95 % point of the standard normal (common practice)
-
-double uniform_open(std::mt19937_64& generator) {  // on (0, 1)
-  return (static_cast<double>(generator() >> 11) + 0.5) * 0x1.0p-53;
-}
-
-// Standard normal by the Box-Muller transform (Box & Muller 1958), one value per pair of draws.
-double standard_normal(std::mt19937_64& generator) {
-  const double u1 = uniform_open(generator);
-  const double u2 = uniform_open(generator);
-  return std::sqrt(-2.0 * std::log(u1)) * std::cos(2.0 * std::numbers::pi * u2);
-}
 
 }  // namespace
 
@@ -79,7 +68,7 @@ std::vector<ParameterSet> draw_parameter_sets(std::span<const AdjustableParamete
   while (sets.size() < count) {
     if (++attempts > max_attempts)
       throw base::InputError("parameter draws: almost every draw falls outside the parameter ranges");
-    for (Eigen::Index k = 0; k < n; ++k) z[k] = standard_normal(generator);
+    for (Eigen::Index k = 0; k < n; ++k) z[k] = detail::standard_normal(generator);
     const Eigen::VectorXd x = mean + root * z;
     if ((x.array() < lower.array()).any() || (x.array() > upper.array()).any()) continue;
     ParameterSet set;

@@ -102,3 +102,17 @@ wetfront_cli_check(bad_retention_rising 1 "retention-rising\\.csv"
                    soil retention ${bad_dir}/retention-rising.csv)
 wetfront_cli_check(bad_cores_mass 1 "cores-dry-above-wet\\.csv:2: core sample .ring X.: wet mass"
                    soil cores ${bad_dir}/cores-dry-above-wet.csv)
+
+# `wetfront anchor` on the demo with few members (the files go to this build folder): the report's
+# heading, its tables and its caution. The short season runs in about a second; the whole demo
+# season takes longer and is labelled slow.
+set(demo_site ${PROJECT_SOURCE_DIR}/examples/demo/site.toml)
+wetfront_cli_check(anchor_demo_short 0 "Anchored season of Demo plot 7.*anchored 95 % \\[mm\\].*licensed professionals"
+                   anchor ${demo_site} --members 4 --threads 2 --to 2025-05-13 --out anchor-demo-short.h5)
+wetfront_cli_check(anchor_demo_season 0 "4 members drawn .*updated at 28 visits.*Wrote anchor-demo-season\\.h5"
+                   anchor ${demo_site} --members 4 --threads 2 --out anchor-demo-season.h5)
+set_tests_properties(cli.anchor_demo_season PROPERTIES LABELS slow)
+wetfront_cli_check(anchor_one_member 1 "--members: Value 1 not in range 2 to 10000"
+                   anchor ${demo_site} --members 1 --out anchor-one-member.h5)
+wetfront_cli_check(anchor_reach_without_unit 1 "option --reach.*mm, cm or m"
+                   anchor ${demo_site} --reach 30 --out anchor-reach.h5)

@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-"""The demo's run file, small sweep and calibration files and the demo network's summary are netCDF-4 files that follow CF-1.10, read by
+"""The demo's run file, small sweep, calibration and anchored-season files and the demo network's summary are netCDF-4 files that follow CF-1.10, read by
 the tools hydrologists use: xarray (default engine, netCDF-C underneath), ncdump, UDUNITS-2.
 
 Usage: cf_files_test.py WETFRONT_PROGRAM DEMO_DIRECTORY
@@ -201,6 +201,14 @@ def main(program, demo):
         checks.expect(done.returncode == 0, f"calibration failed: {done.stderr}")
         if done.returncode == 0:
             check_netcdf_file(checks, calibration_path, udunits)
+
+        anchored_path = scratch / "anchored.h5"
+        done = subprocess.run([program, "anchor", str(tenth / "site.toml"), "--to", "2025-05-01", "--out",
+                               str(anchored_path), "--members", "3", "--threads", "1", "--quiet"],
+                              capture_output=True, text=True)
+        checks.expect(done.returncode == 0, f"anchored season failed: {done.stderr}")
+        if done.returncode == 0:
+            check_netcdf_file(checks, anchored_path, udunits)
 
         # The summary of the demo network (examples/network).
         network = scratch / "network"
