@@ -112,7 +112,7 @@ void write_site_files(const SeasonResult& result, bool force) {
 
 }  // namespace
 
-void add_network_command(CLI::App& app) {
+void add_network_command(CLI::App& app, const cluster::Session&) {
   struct Options {
     std::string network;
     std::vector<std::string> sites;

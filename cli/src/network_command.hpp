@@ -3,8 +3,11 @@
 
 #include <CLI/CLI.hpp>
 
+#include "wetfront/cluster/ranks.hpp"
+
 namespace wetfront::cli {
 
-void add_network_command(CLI::App& app);
+// Under mpirun rank 0 runs the network on its threads (the sites are not spread over ranks yet).
+void add_network_command(CLI::App& app, const cluster::Session& session);
 
 }  // namespace wetfront::cli
