@@ -154,7 +154,7 @@ void add_sweep_command(CLI::App& app, const cluster::Session& session) {
   cmd->add_option("--keep", o->kept, "profiles of this many best runs go into the HDF5 file (default 3)");
   cmd->footer(
       "Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
-      "Under mpirun the runs are spread over the ranks (docs/parameter-studies.md, \"Many machines\").\n"
+      "Under mpirun the runs are spread over the ranks (docs/many-machines.md).\n"
       "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
       "Example:\n  wetfront sweep examples/demo/site.toml --grid");
   cmd->callback([o, &session] {
@@ -214,7 +214,7 @@ void add_calibrate_command(CLI::App& app, const cluster::Session& session) {
                   "parameter sets drawn for the sampled recharge band (default 40; 0: none)");
   cmd->footer(
       "Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
-      "Under mpirun each batch of runs is spread over the ranks (docs/parameter-studies.md, \"Many machines\").\n"
+      "Under mpirun each batch of runs is spread over the ranks (docs/many-machines.md).\n"
       "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
       "Example:\n  wetfront calibrate examples/demo/site.toml");
   cmd->callback([o, &session] {
