@@ -7,7 +7,7 @@
 
 namespace wetfront::cli {
 
-// Under mpirun rank 0 runs the network on its threads (the sites are not spread over ranks yet).
+// Under mpirun the sites are spread over the session's ranks (study_ranks.hpp, network_sites.hpp).
 void add_network_command(CLI::App& app, const cluster::Session& session);
 
 }  // namespace wetfront::cli

@@ -7,7 +7,7 @@
 namespace wetfront::cli {
 
 bool spreads_over_ranks(int argc, char** argv) {
-  static constexpr std::array<std::string_view, 2> kCommands{"sweep", "calibrate"};
+  static constexpr std::array<std::string_view, 3> kCommands{"sweep", "calibrate", "network"};
   for (int k = 1; k < argc; ++k) {
     const std::string_view word = argv[k];
     if (word.starts_with('-')) continue;

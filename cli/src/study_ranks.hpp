@@ -1,4 +1,4 @@
-// The commands that spread their runs over MPI ranks (sweep, calibrate) start here:
+// The commands that spread their runs over MPI ranks (sweep, calibrate, network) start here:
 // on one process the study runs on threads; under mpirun the leader loads the inputs (keeping
 // their bytes), shares them and runs the study with a runner that hands its tasks to every
 // rank, while each other rank loads the same study from the shared bytes and answers tasks.

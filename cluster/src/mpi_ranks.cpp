@@ -152,7 +152,7 @@ LeaderRunner::~LeaderRunner() {
 }
 
 std::vector<std::string> LeaderRunner::run(const std::vector<std::string>& requests,
-                                           const std::function<void(std::size_t)>& finished) {
+                                           const studies::TaskFinished& finished) {
   const std::size_t count = requests.size();
   std::vector<std::string> results(count);
   std::vector<std::exception_ptr> errors(count);
@@ -168,7 +168,7 @@ std::vector<std::string> LeaderRunner::run(const std::vector<std::string>& reque
     const std::lock_guard guard(lock);
     ++done;
     try {
-      if (finished) finished(done);
+      if (finished) finished(done, task, results[task]);
     } catch (...) {  // a failing callback counts against its task, as on threads
       if (!errors[task]) errors[task] = std::current_exception();
     }

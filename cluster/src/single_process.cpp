@@ -22,7 +22,7 @@ LeaderRunner::LeaderRunner(const Session& session, const base::InputFileBytes&, 
   no_ranks();
 }
 LeaderRunner::~LeaderRunner() = default;
-std::vector<std::string> LeaderRunner::run(const std::vector<std::string>&, const std::function<void(std::size_t)>&) {
+std::vector<std::string> LeaderRunner::run(const std::vector<std::string>&, const studies::TaskFinished&) {
   no_ranks();
 }
 

@@ -129,7 +129,10 @@ std::vector<ScoredRun> SeasonModel::run_all(const std::vector<studies::Parameter
   std::vector<std::string> requests;
   for (const auto& set : sets) requests.push_back(encode_parameter_set(set));
   std::vector<ScoredRun> runs;
-  for (const std::string& result : runner.run(requests, finished)) runs.push_back(decode_scored_run(result));
+  const auto each = [&finished](std::size_t done, std::size_t, std::string_view) {
+    if (finished) finished(done);
+  };
+  for (const std::string& result : runner.run(requests, each)) runs.push_back(decode_scored_run(result));
   return runs;
 }
 

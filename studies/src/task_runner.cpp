@@ -1,5 +1,8 @@
 #include "wetfront/studies/task_runner.hpp"
 
+#include <exception>
+#include <mutex>
+
 #include "wetfront/studies/parallel_batch.hpp"
 
 namespace wetfront::studies {
@@ -8,10 +11,24 @@ ThreadTaskRunner::ThreadTaskRunner(TaskHandler handler, unsigned threads)
     : handler_(std::move(handler)), threads_(threads) {}
 
 std::vector<std::string> ThreadTaskRunner::run(const std::vector<std::string>& requests,
-                                               const std::function<void(std::size_t)>& finished) {
+                                               const TaskFinished& finished) {
   std::vector<std::string> results(requests.size());
-  run_batch(
-      requests.size(), threads_, [&](std::size_t i) { results[i] = handler_(requests[i]); }, finished);
+  std::mutex lock;
+  std::size_t done = 0;
+  run_batch(requests.size(), threads_, [&](std::size_t i) {
+    std::exception_ptr error;
+    try {
+      results[i] = handler_(requests[i]);
+    } catch (...) {
+      error = std::current_exception();
+    }
+    {
+      const std::lock_guard guard(lock);
+      ++done;
+      if (finished) finished(done, i, results[i]);
+    }
+    if (error) std::rethrow_exception(error);
+  });
   return results;
 }
 

@@ -59,7 +59,7 @@ class LeaderRunner final : public studies::TaskRunner {
   LeaderRunner& operator=(const LeaderRunner&) = delete;
 
   std::vector<std::string> run(const std::vector<std::string>& requests,
-                               const std::function<void(std::size_t done)>& finished) override;
+                               const studies::TaskFinished& finished) override;
   unsigned workers() const override { return static_cast<unsigned>(session_.size()); }
 
  private:

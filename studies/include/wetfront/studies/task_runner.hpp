@@ -16,15 +16,17 @@ namespace wetfront::studies {
 // that fails says so in its result rather than throwing.
 using TaskHandler = std::function<std::string(std::string_view request)>;
 
+// Called after each task, one call at a time, with the number of tasks done so far, the task's
+// number and its result (empty when the handler threw).
+using TaskFinished = std::function<void(std::size_t done, std::size_t task, std::string_view result)>;
+
 class TaskRunner {
  public:
   virtual ~TaskRunner() = default;
-  // The results of every request, in the order of the requests. finished(done) is called on the
-  // calling thread or under a lock, one call at a time, after each task. A handler that throws
-  // stops nothing: the other tasks still run, and then the error of the lowest-numbered failing
-  // task is thrown.
-  virtual std::vector<std::string> run(const std::vector<std::string>& requests,
-                                       const std::function<void(std::size_t done)>& finished) = 0;
+  // The results of every request, in the order of the requests. A handler (or a finished
+  // callback) that throws stops nothing: the other tasks still run, and then the error of the
+  // lowest-numbered failing task is thrown.
+  virtual std::vector<std::string> run(const std::vector<std::string>& requests, const TaskFinished& finished) = 0;
   // How many tasks run at once, for reports.
   virtual unsigned workers() const = 0;
 };
@@ -34,8 +36,7 @@ class ThreadTaskRunner final : public TaskRunner {
  public:
   // threads: 0 for all cores.
   ThreadTaskRunner(TaskHandler handler, unsigned threads);
-  std::vector<std::string> run(const std::vector<std::string>& requests,
-                               const std::function<void(std::size_t done)>& finished) override;
+  std::vector<std::string> run(const std::vector<std::string>& requests, const TaskFinished& finished) override;
   unsigned workers() const override;
 
  private:
