@@ -128,7 +128,7 @@ void run_network_command(const NetworkOptions& options, const CLI::App& cmd, con
       ranks ? run_network_on_ranks(plan, *ranks, WETFRONT_VERSION, force, progress)
             : run_network(
                   plan, workers, WETFRONT_VERSION, [force](const SeasonResult& r) { write_site_files(r, force); },
-                  progress, [force](const SiteSetup& setup) { check_outputs(site_outputs(setup, force)); });
+                  progress, [force](const SiteSetup& setup) { check_site_outputs(setup, force); });
   const std::string run_id = new_run_id();
   ReportTable per_site = sites_table(results);
   ReportTable per_interval = intervals_table(results);
@@ -184,11 +184,12 @@ void add_network_command(CLI::App& app, const cluster::Session& session) {
     run_study(
         session,
         [&] {
+          if (!session.leader()) return NetworkPlan{};  // the requests name the site files
           NetworkPlan plan = network_plan(*options);
           if (session.distributed()) read_network_inputs(plan);  // for the other ranks
           return plan;
         },
-        [](const NetworkPlan& plan) { return network_site_task(plan, WETFRONT_VERSION); },
+        [](const NetworkPlan&) { return network_site_task(WETFRONT_VERSION); },
         [&](const NetworkPlan& plan, studies::TaskRunner* ranks) { run_network_command(*options, *cmd, plan, ranks); });
   });
 }

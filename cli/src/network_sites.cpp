@@ -67,8 +67,8 @@ SiteFileBytes write_to_scratch(const SeasonResult& result, std::size_t site_numb
 // Rank 0: the bytes as the site's files, all or none, under the usual output guard.
 void place_site_files(const SiteSetup& setup, const SiteFileBytes& files, bool force) {
   const OutputPlan plan = site_outputs(setup, force);
+  const std::lock_guard lock(hdf5_lock());  // the guard reads existing HDF5 files
   const OutputGuard guard(plan);
-  const std::lock_guard lock(hdf5_lock());
   std::vector<std::unique_ptr<profiles::StagedFile>> staged;
   for (std::size_t i = 0; i < files.size(); ++i) {
     if (files[i]) staged.push_back(std::make_unique<profiles::StagedFile>(plan.outputs[i], *files[i]));
@@ -90,10 +90,15 @@ OutputPlan site_outputs(const SiteSetup& setup, bool force) {
           .force = force};
 }
 
+void check_site_outputs(const SiteSetup& setup, bool force) {
+  const std::lock_guard lock(hdf5_lock());  // reads existing HDF5 files
+  check_outputs(site_outputs(setup, force));
+}
+
 void write_site_files(const SeasonResult& result, bool force) {
   const OutputPlan plan = site_outputs(result.season.site, force);
+  const std::lock_guard lock(hdf5_lock());  // the guard reads existing HDF5 files
   const OutputGuard guard(plan);
-  const std::lock_guard lock(hdf5_lock());
   profiles::RunRecord record = result.record;
   write_season_files(record, result.sensors, plan.outputs[0], plan.outputs[1], plan.outputs[2]);
 }
@@ -107,12 +112,13 @@ void read_network_inputs(const NetworkPlan& plan) {
   }
 }
 
-studies::TaskHandler network_site_task(const NetworkPlan& plan, const std::string& program_version) {
-  return [&plan, program_version](std::string_view request) {
+studies::TaskHandler network_site_task(const std::string& program_version) {
+  return [program_version](std::string_view request) {
     studies::ByteReader in(request);
     const auto k = in.number<std::uint64_t>();
+    const std::filesystem::path site_file = in.text();
     std::optional<SiteFileBytes> files;
-    const NetworkSite site = run_network_site(plan.site_files.at(k), program_version,
+    const NetworkSite site = run_network_site(site_file, program_version,
                                               [&](const SeasonResult& result) { files = write_to_scratch(result, k); });
     studies::ByteWriter out;
     out.text(encode_network_site(site));
@@ -131,7 +137,7 @@ studies::TaskHandler network_site_task(const NetworkPlan& plan, const std::strin
 std::vector<NetworkSite> run_network_on_ranks(const NetworkPlan& plan, studies::TaskRunner& ranks,
                                               const std::string& program_version, bool force,
                                               const NetworkProgress& progress) {
-  const auto check = [force](const SiteSetup& setup) { check_outputs(site_outputs(setup, force)); };
+  const auto check = [force](const SiteSetup& setup) { check_site_outputs(setup, force); };
   std::vector<NetworkSite> sites(plan.site_files.size());
   std::vector<std::optional<SiteSetup>> setups(sites.size());
   std::vector<std::string> requests;
@@ -143,6 +149,7 @@ std::vector<NetworkSite> run_network_on_ranks(const NetworkPlan& plan, studies::
       check(*setups[k]);
       studies::ByteWriter request;
       request.number<std::uint64_t>(k);
+      request.text(plan.site_files[k].string());
       requests.push_back(request.take());
       site_of_task.push_back(k);
     } catch (const std::exception&) {  // fails before its run: here, with the message it gives

@@ -15,6 +15,9 @@ namespace wetfront::cli {
 // SITE-visits.csv and, with sensors, SITE-sensors.csv.
 site::OutputPlan site_outputs(const site::SiteSetup& setup, bool force);
 
+// check_outputs of site_outputs, one site at a time with the writers (it reads HDF5 files).
+void check_site_outputs(const site::SiteSetup& setup, bool force);
+
 // Writes a season's own files (site_outputs), one site at a time (HDF5 is not thread-safe here).
 void write_site_files(const site::SeasonResult& result, bool force);
 
@@ -22,9 +25,10 @@ void write_site_files(const site::SeasonResult& result, bool force);
 // holds them all; a site that cannot be read is left to its run, which reports it.
 void read_network_inputs(const site::NetworkPlan& plan);
 
-// One site on any rank: the request is the site's number in the plan, the result its summary
-// and the bytes of its files (written to a scratch folder of that rank, then removed).
-studies::TaskHandler network_site_task(const site::NetworkPlan& plan, const std::string& program_version);
+// One site on any rank: the request is the site's number in the plan and its site file, the
+// result its summary and the bytes of its files (written to a scratch folder of that rank, then
+// removed). The other ranks need no plan: nothing of the summary's folder is checked there.
+studies::TaskHandler network_site_task(const std::string& program_version);
 
 // Rank 0: every site over `ranks`, each site's files written as its result arrives; the same
 // summaries as site::run_network with write_site_files and the output check. Sites that cannot
