@@ -18,6 +18,9 @@ FOLDER=demo  # the example a case works in
 SHORT=(--to 2025-04-20)  # a short season keeps each case to seconds
 MPIRUN=(mpirun -n 2 --oversubscribe)
 [[ $(id -u) == 0 ]] && MPIRUN+=(--allow-run-as-root)  # CI runs as root
+# Containers often forbid one process reading another's memory, which Open MPI's shared-memory
+# transport uses for large messages (a network site's files); plain copies work everywhere.
+export OMPI_MCA_btl_vader_single_copy_mechanism=none
 
 fail() { printf 'FAIL %s: %s\n' "$NAME" "$*" >&2; exit 1; }
 # run_in COPY EXIT ARGS...: runs wetfront (on threads, or ranks under mpirun) in that copy, checks
