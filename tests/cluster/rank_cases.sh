@@ -119,6 +119,18 @@ case_network_failed_site_recorded() {
   same_files "${kept[@]}"
   [[ ! -e $work/ranks/network/plot-b.h5 ]] || fail "a run file of the failed site"
 }
+# Rank 1 starts in an empty folder: it can build the study only from the bytes rank 0 sends.
+case_other_ranks_read_no_user_files() {
+  run_in threads 0 sweep site.toml "${SHORT[@]}" --sample 6 --threads 2 --quiet
+  mkdir "$work/empty"
+  local options=(--oversubscribe)
+  [[ $(id -u) == 0 ]] && options+=(--allow-run-as-root)
+  OUT=$(mpirun "${options[@]}" -n 1 -wdir "$work/ranks/demo" "$WETFRONT" sweep site.toml "${SHORT[@]}" --sample 6 : \
+        -n 1 -wdir "$work/empty" "$WETFRONT" sweep site.toml "${SHORT[@]}" --sample 6 2>&1) || fail "exit $?: $OUT"
+  [[ $OUT =~ "on 2 " ]] || fail "not run on 2 ranks: $OUT"
+  [[ -z $(ls -A "$work/empty") ]] || fail "rank 1 wrote into its folder"
+  same_files site-sweep.csv site-sweep.h5
+}
 case_bad_option_printed_once() {
   run_in ranks 1 sweep site.toml --sample 0
   [[ $(grep -c "sample" <<<"$OUT") == 1 ]] || fail "the option error is not printed once: $OUT"
