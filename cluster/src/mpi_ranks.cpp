@@ -60,7 +60,7 @@ MPI_Status wait_for(int from) {
     MPI_Iprobe(from, MPI_ANY_TAG, MPI_COMM_WORLD, &arrived, &status);
     if (arrived) return status;
     std::this_thread::sleep_for(pause);
-    pause = std::min(pause * 2, std::chrono::microseconds(2000));
+    pause = std::min(pause * 2, std::chrono::microseconds(500));
   }
 }
 
