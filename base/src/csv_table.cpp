@@ -1,8 +1,9 @@
 #include "wetfront/base/csv_table.hpp"
+#include "wetfront/base/input_files.hpp"
 
 #include <algorithm>
 #include <cctype>
-#include <fstream>
+#include <sstream>
 
 #include <fmt/format.h>
 
@@ -72,8 +73,9 @@ CsvTable CsvTable::read(const std::filesystem::path& path) {
   std::error_code error;
   if (std::filesystem::is_directory(path, error))
     throw InputError(path.string(), 0, "", "is a folder, not a CSV file; give the name of a file");
-  std::ifstream in(path);
-  if (!in) throw InputError(path.string(), 0, "", "cannot open the file for reading");
+  const std::optional<std::string> bytes = read_input_file(path);
+  if (!bytes) throw InputError(path.string(), 0, "", "cannot open the file for reading");
+  std::istringstream in(*bytes);
   return parse(in, path.string());
 }
 

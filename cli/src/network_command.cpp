@@ -2,14 +2,15 @@
 
 #include <cstdio>
 #include <memory>
-#include <mutex>
 
 #include <fmt/format.h>
 
 #include "command_output.hpp"
 #include "exit_codes.hpp"
+#include "network_sites.hpp"
 #include "season_report.hpp"
 #include "sensor_report.hpp"
+#include "study_ranks.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/site/network.hpp"
@@ -86,42 +87,78 @@ ReportTable intervals_table(const std::vector<NetworkSite>& sites) {
   return table;
 }
 
-// The site's own files, as `wetfront run` writes them: SITE.h5 beside the site file, with
-// SITE-visits.csv and, with sensors, SITE-sensors.csv.
-OutputPlan site_outputs(const SiteSetup& setup, bool force) {
-  std::filesystem::path out = setup.site_file;
-  out.replace_extension(".h5");
-  const std::filesystem::path stem = out.parent_path() / out.stem();
-  return {.outputs = {out, with_suffix(stem, "-visits.csv"), with_suffix(stem, "-sensors.csv")},
-          .inputs = site_input_files(setup),
-          .force = force};
+struct NetworkOptions {
+  std::string network;
+  std::vector<std::string> sites;
+  std::string summary;
+  unsigned threads = 0;
+  bool quiet = false;
+  bool force = false;
+};
+
+NetworkPlan network_plan(const NetworkOptions& options) {
+  if (!options.network.empty()) {
+    NetworkPlan plan = load_network_file(options.network);
+    if (!options.summary.empty()) plan.summary = options.summary;
+    return plan;
+  }
+  if (options.sites.empty()) throw base::InputError("give a network file or --sites with one or more site files");
+  std::vector<std::filesystem::path> files(options.sites.begin(), options.sites.end());
+  return network_of_sites(std::move(files), options.summary.empty() ? "network" : options.summary);
 }
 
-void write_site_files(const SeasonResult& result, bool force) {
-  const OutputPlan plan = site_outputs(result.season.site, force);
-  const OutputGuard guard(plan);
-  // The HDF5 library is not built thread-safe: one site's files at a time.
-  static std::mutex hdf5_lock;
-  const std::lock_guard lock(hdf5_lock);
-  const std::filesystem::path& out = plan.outputs[0];
-  const std::filesystem::path& visits = plan.outputs[1];
-  const std::filesystem::path& sensors_csv = plan.outputs[2];
-  profiles::RunRecord record = result.record;
-  write_season_files(record, result.sensors, out, visits, sensors_csv);
+// The network of a loaded plan; `ranks` runs the sites (null: this machine's threads).
+void run_network_command(const NetworkOptions& options, const CLI::App& cmd, const NetworkPlan& plan, studies::TaskRunner* ranks) {
+  const std::filesystem::path h5 = with_suffix(plan.summary, ".h5");
+  const std::filesystem::path sites_csv = with_suffix(plan.summary, "-sites.csv");
+  const std::filesystem::path intervals_csv = with_suffix(plan.summary, "-intervals.csv");
+  // Before any run: the summary's folder, the files read, files of other programs, another writer.
+  const auto guard = guard_outputs(cmd, {h5, sites_csv, intervals_csv}, options.force, plan.site_files);
+  const unsigned workers = ranks ? ranks->workers() : studies::thread_count(options.threads);
+  if (!options.quiet)
+    fmt::print(stderr, "wetfront: {} sites on {} {}\n", plan.site_files.size(),
+               std::min<std::size_t>(workers, plan.site_files.size()), ranks ? "ranks" : "threads");
+  const bool quiet = options.quiet;
+  const std::size_t total = plan.site_files.size();
+  const bool force = options.force;
+  const auto progress = [quiet, total](std::size_t done, const NetworkSite& s) {
+    if (!quiet) fmt::print(stderr, "wetfront: [{}/{}] {}: {}\n", done, total, s.name, status_text(s.status));
+  };
+  const std::vector<NetworkSite> results =
+      ranks ? run_network_on_ranks(plan, *ranks, WETFRONT_VERSION, force, progress)
+            : run_network(
+                  plan, workers, WETFRONT_VERSION, [force](const SeasonResult& r) { write_site_files(r, force); },
+                  progress, [force](const SiteSetup& setup) { check_site_outputs(setup, force); });
+  const std::string run_id = new_run_id();
+  ReportTable per_site = sites_table(results);
+  ReportTable per_interval = intervals_table(results);
+  per_site.run_id = per_interval.run_id = run_id;
+  write_files_together({{sites_csv, per_site}, {intervals_csv, per_interval}}, [&] {
+    try {
+      profiles::write_study(h5, network_record(plan, results, WETFRONT_VERSION, run_id));
+    } catch (const profiles::RunFileError& error) {
+      throw base::InputError(error.what());
+    }
+  });
+  std::size_t failed = 0;
+  for (const auto& s : results) {
+    if (s.status == SiteStatus::done) continue;
+    ++failed;
+    fmt::print(stderr, "error: site {} ({}): {}: {}\n", s.name, s.site_file.string(), status_text(s.status), s.reason);
+  }
+  if (!options.quiet) {
+    fmt::print("{}\n", format_table(per_site));
+    fmt::print("{}\n", format_table(per_interval));
+    fmt::print("{} of {} sites done. Wrote {}, {} and {}\n", results.size() - failed, results.size(), h5.string(),
+               sites_csv.string(), intervals_csv.string());
+  }
+  if (failed > 0) throw CLI::RuntimeError(exit_some_sites_failed);
 }
 
 }  // namespace
 
-void add_network_command(CLI::App& app) {
-  struct Options {
-    std::string network;
-    std::vector<std::string> sites;
-    std::string summary;
-    unsigned threads = 0;
-    bool quiet = false;
-    bool force = false;
-  };
-  auto options = std::make_shared<Options>();
+void add_network_command(CLI::App& app, const cluster::Session& session) {
+  auto options = std::make_shared<NetworkOptions>();
   CLI::App* cmd = app.add_subcommand("network", "Run the seasons of many plots and summarise them side by side");
   auto* network = cmd->add_option("NETWORK", options->network, "network file (TOML); see docs/network-file.md");
   auto* sites = cmd->add_option("--sites", options->sites, "site files to run instead of a network file");
@@ -143,59 +180,17 @@ void add_network_command(CLI::App& app) {
       "failed (the summary names them; the others' files are written).\n"
       "Examples:\n  wetfront network examples/network/network.toml\n"
       "  wetfront network --sites a/site.toml b/site.toml --summary plots");
-  cmd->callback([options, cmd] {
-    NetworkPlan plan;
-    if (!options->network.empty()) {
-      plan = load_network_file(options->network);
-      if (!options->summary.empty()) plan.summary = options->summary;
-    } else {
-      if (options->sites.empty()) throw base::InputError("give a network file or --sites with one or more site files");
-      std::vector<std::filesystem::path> files(options->sites.begin(), options->sites.end());
-      plan = network_of_sites(std::move(files), options->summary.empty() ? "network" : options->summary);
-    }
-    const std::filesystem::path h5 = with_suffix(plan.summary, ".h5");
-    const std::filesystem::path sites_csv = with_suffix(plan.summary, "-sites.csv");
-    const std::filesystem::path intervals_csv = with_suffix(plan.summary, "-intervals.csv");
-    // Before any run: the summary's folder, the files read, files of other programs, another writer.
-    const auto guard = guard_outputs(*cmd, {h5, sites_csv, intervals_csv}, options->force, plan.site_files);
-    const unsigned threads = studies::thread_count(options->threads);
-    if (!options->quiet)
-      fmt::print(stderr, "wetfront: {} sites on {} threads\n", plan.site_files.size(),
-                 std::min<std::size_t>(threads, plan.site_files.size()));
-    const bool quiet = options->quiet;
-    const std::size_t total = plan.site_files.size();
-    const bool force = options->force;
-    const std::vector<NetworkSite> results = run_network(
-        plan, threads, WETFRONT_VERSION, [force](const SeasonResult& r) { write_site_files(r, force); },
-        [quiet, total](std::size_t done, const NetworkSite& s) {
-          if (!quiet) fmt::print(stderr, "wetfront: [{}/{}] {}: {}\n", done, total, s.name, status_text(s.status));
+  cmd->callback([options, cmd, &session] {
+    run_study(
+        session,
+        [&] {
+          if (!session.leader()) return NetworkPlan{};  // the requests name the site files
+          NetworkPlan plan = network_plan(*options);
+          if (session.distributed()) read_network_inputs(plan);  // for the other ranks
+          return plan;
         },
-        [force](const SiteSetup& setup) { check_outputs(site_outputs(setup, force)); });
-    const std::string run_id = new_run_id();
-    ReportTable per_site = sites_table(results);
-    ReportTable per_interval = intervals_table(results);
-    per_site.run_id = per_interval.run_id = run_id;
-    write_files_together({{sites_csv, per_site}, {intervals_csv, per_interval}}, [&] {
-      try {
-        profiles::write_study(h5, network_record(plan, results, WETFRONT_VERSION, run_id));
-      } catch (const profiles::RunFileError& error) {
-        throw base::InputError(error.what());
-      }
-    });
-    std::size_t failed = 0;
-    for (const auto& s : results) {
-      if (s.status == SiteStatus::done) continue;
-      ++failed;
-      fmt::print(stderr, "error: site {} ({}): {}: {}\n", s.name, s.site_file.string(), status_text(s.status),
-                 s.reason);
-    }
-    if (!options->quiet) {
-      fmt::print("{}\n", format_table(per_site));
-      fmt::print("{}\n", format_table(per_interval));
-      fmt::print("{} of {} sites done. Wrote {}, {} and {}\n", results.size() - failed, results.size(), h5.string(),
-                 sites_csv.string(), intervals_csv.string());
-    }
-    if (failed > 0) throw CLI::RuntimeError(exit_some_sites_failed);
+        [](const NetworkPlan&) { return network_site_task(WETFRONT_VERSION); },
+        [&](const NetworkPlan& plan, studies::TaskRunner* ranks) { run_network_command(*options, *cmd, plan, ranks); });
   });
 }
 

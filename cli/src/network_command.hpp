@@ -3,8 +3,11 @@
 
 #include <CLI/CLI.hpp>
 
+#include "wetfront/cluster/ranks.hpp"
+
 namespace wetfront::cli {
 
-void add_network_command(CLI::App& app);
+// Under mpirun the sites are spread over the session's ranks (study_ranks.hpp, network_sites.hpp).
+void add_network_command(CLI::App& app, const cluster::Session& session);
 
 }  // namespace wetfront::cli

@@ -7,6 +7,7 @@
 #include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
 #include "progress_line.hpp"
+#include "study_ranks.hpp"
 #include "wetfront/site/output_files.hpp"
 #include "wetfront/site/parameter_study.hpp"
 #include "wetfront/site/study_output.hpp"
@@ -63,14 +64,44 @@ SeasonModel load_model(const CommonOptions& o) {
   return SeasonModel(std::move(site), std::move(study));
 }
 
-void add_sweep_command(CLI::App& app) {
-  struct Options : CommonOptions {
-    bool grid = false;
-    std::size_t sample = 50;
-    std::size_t shown = 10;
-    std::size_t kept = 3;
-  };
-  auto o = std::make_shared<Options>();
+struct SweepOptions : CommonOptions {
+  bool grid = false;
+  std::size_t sample = 50;
+  std::size_t shown = 10;
+  std::size_t kept = 3;
+};
+
+// The sweep of a loaded model; `ranks` runs the sets (null: this machine's threads).
+void sweep(const SweepOptions& o, const SeasonModel& model, studies::TaskRunner* ranks) {
+  const std::filesystem::path out = o.out.empty() ? sibling(o.site, "-sweep.h5") : std::filesystem::path(o.out);
+  const std::filesystem::path csv = sibling(out, ".csv");
+  const OutputGuard guard(output_plan(o, model, out, csv));
+  ProgressLine progress(o.quiet);
+  SweepSettings settings{
+      .full_grid = o.grid, .sample_size = o.sample, .seed = o.seed, .threads = o.threads, .runner = ranks};
+  SweepResult sweep;
+  try {
+    sweep = run_sweep(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });
+  } catch (const base::InputError& error) {
+    throw base::InputError(o.site, 0, "", error.what());
+  }
+  const double seconds = progress.seconds();
+  progress.finish();
+  const unsigned workers = ranks ? ranks->workers() : studies::thread_count(o.threads);
+  const std::string run_id = new_run_id();
+  ReportTable table = sweep_table(model, sweep);
+  table.run_id = run_id;
+  write_files_together({{csv, table}},
+                       [&] { write_sweep_file(out, model, sweep, o.kept, o.threads, WETFRONT_VERSION, run_id); });
+  if (!o.quiet) {
+    fmt::print("{}", sweep_report(model, sweep, o.shown, seconds,
+                                  std::min<unsigned>(workers, static_cast<unsigned>(sweep.runs.size()))));
+    fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
+  }
+}
+
+void add_sweep_command(CLI::App& app, const cluster::Session& session) {
+  auto o = std::make_shared<SweepOptions>();
   CLI::App* cmd =
       app.add_subcommand("sweep", "Run a site under many parameter sets and rank them against the sensor readings");
   add_common(cmd, *o, "-sweep.h5");
@@ -82,44 +113,57 @@ void add_sweep_command(CLI::App& app) {
   cmd->add_option("--keep", o->kept, "profiles of this many best runs go into the HDF5 file (default 3)");
   cmd->footer(
       "Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
+      "Under mpirun the runs are spread over the ranks (docs/many-machines.md).\n"
       "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
       "Example:\n  wetfront sweep examples/demo/site.toml --grid");
-  cmd->callback([o] {
-    const SeasonModel model = load_model(*o);
-    const std::filesystem::path out = o->out.empty() ? sibling(o->site, "-sweep.h5") : std::filesystem::path(o->out);
-    const std::filesystem::path csv = sibling(out, ".csv");
-    const OutputGuard guard(output_plan(*o, model, out, csv));
-    ProgressLine progress(o->quiet);
-    SweepSettings settings{.full_grid = o->grid, .sample_size = o->sample, .seed = o->seed, .threads = o->threads};
-    SweepResult sweep;
-    try {
-      sweep =
-          run_sweep(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });
-    } catch (const base::InputError& error) {
-      throw base::InputError(o->site, 0, "", error.what());
-    }
-    const double seconds = progress.seconds();
-    progress.finish();
-    const unsigned threads =
-        std::min<unsigned>(studies::thread_count(o->threads), static_cast<unsigned>(sweep.runs.size()));
-    const std::string run_id = new_run_id();
-    ReportTable table = sweep_table(model, sweep);
-    table.run_id = run_id;
-    write_files_together({{csv, table}},
-                         [&] { write_sweep_file(out, model, sweep, o->kept, o->threads, WETFRONT_VERSION, run_id); });
-    if (!o->quiet) {
-      fmt::print("{}", sweep_report(model, sweep, o->shown, seconds, threads));
-      fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
-    }
+  cmd->callback([o, &session] {
+    run_study(
+        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
+        [&](const SeasonModel& model, studies::TaskRunner* ranks) { sweep(*o, model, ranks); });
   });
 }
 
-void add_calibrate_command(CLI::App& app) {
-  struct Options : CommonOptions {
-    int max_runs = 150;
-    std::size_t band_runs = 40;
-  };
-  auto o = std::make_shared<Options>();
+struct CalibrateOptions : CommonOptions {
+  int max_runs = 150;
+  std::size_t band_runs = 40;
+};
+
+// The calibration of a loaded model; `ranks` runs each batch of sets (null: threads).
+void calibrate(const CalibrateOptions& o, const SeasonModel& model, studies::TaskRunner* ranks) {
+  const std::filesystem::path out = o.out.empty() ? sibling(o.site, "-calibration.h5") : std::filesystem::path(o.out);
+  const std::filesystem::path csv = sibling(out, ".csv");
+  const OutputGuard guard(output_plan(o, model, out, csv));
+  ProgressLine progress(o.quiet);
+  CalibrationSettings settings;
+  settings.options.max_runs = o.max_runs;
+  settings.threads = o.threads;
+  settings.band_runs = o.band_runs;
+  settings.seed = o.seed;
+  settings.runner = ranks;
+  CalibrationStudy study;
+  try {
+    study =
+        run_calibration(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, true); });
+  } catch (const base::InputError& error) {
+    throw base::InputError(o.site, 0, "", error.what());
+  } catch (const std::runtime_error& error) {
+    throw base::InputError(o.site, 0, "", fmt::format("the calibration stopped: {}", error.what()));
+  }
+  const double seconds = progress.seconds();
+  progress.finish();
+  const std::string run_id = new_run_id();
+  ReportTable table = calibration_recharge_table(model, study);
+  table.run_id = run_id;
+  write_files_together({{csv, table}}, [&] { write_calibration_file(out, model, study, WETFRONT_VERSION, run_id); });
+  if (!o.quiet) {
+    const unsigned workers = ranks ? ranks->workers() : studies::thread_count(o.threads);
+    fmt::print("{}", calibration_report(model, study, seconds, workers));
+    fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
+  }
+}
+
+void add_calibrate_command(CLI::App& app, const cluster::Session& session) {
+  auto o = std::make_shared<CalibrateOptions>();
   CLI::App* cmd = app.add_subcommand(
       "calibrate", "Fit the adjustable parameters to the sensor readings and give recharge with an uncertainty band");
   add_common(cmd, *o, "-calibration.h5");
@@ -129,47 +173,21 @@ void add_calibrate_command(CLI::App& app) {
                   "parameter sets drawn for the sampled recharge band (default 40; 0: none)");
   cmd->footer(
       "Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
+      "Under mpirun each batch of runs is spread over the ranks (docs/many-machines.md).\n"
       "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
       "Example:\n  wetfront calibrate examples/demo/site.toml");
-  cmd->callback([o] {
-    const SeasonModel model = load_model(*o);
-    const std::filesystem::path out =
-        o->out.empty() ? sibling(o->site, "-calibration.h5") : std::filesystem::path(o->out);
-    const std::filesystem::path csv = sibling(out, ".csv");
-    const OutputGuard guard(output_plan(*o, model, out, csv));
-    ProgressLine progress(o->quiet);
-    CalibrationSettings settings;
-    settings.options.max_runs = o->max_runs;
-    settings.threads = o->threads;
-    settings.band_runs = o->band_runs;
-    settings.seed = o->seed;
-    CalibrationStudy study;
-    try {
-      study = run_calibration(model, settings,
-                              [&](std::size_t done, std::size_t planned) { progress(done, planned, true); });
-    } catch (const base::InputError& error) {
-      throw base::InputError(o->site, 0, "", error.what());
-    } catch (const std::runtime_error& error) {
-      throw base::InputError(o->site, 0, "", fmt::format("the calibration stopped: {}", error.what()));
-    }
-    const double seconds = progress.seconds();
-    progress.finish();
-    const std::string run_id = new_run_id();
-    ReportTable table = calibration_recharge_table(model, study);
-    table.run_id = run_id;
-    write_files_together({{csv, table}}, [&] { write_calibration_file(out, model, study, WETFRONT_VERSION, run_id); });
-    if (!o->quiet) {
-      fmt::print("{}", calibration_report(model, study, seconds, studies::thread_count(o->threads)));
-      fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
-    }
+  cmd->callback([o, &session] {
+    run_study(
+        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
+        [&](const SeasonModel& model, studies::TaskRunner* ranks) { calibrate(*o, model, ranks); });
   });
 }
 
 }  // namespace
 
-void add_parameter_commands(CLI::App& app) {
-  add_sweep_command(app);
-  add_calibrate_command(app);
+void add_parameter_commands(CLI::App& app, const cluster::Session& session) {
+  add_sweep_command(app, session);
+  add_calibrate_command(app, session);
 }
 
 }  // namespace wetfront::cli

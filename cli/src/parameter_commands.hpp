@@ -3,8 +3,11 @@
 
 #include <CLI/CLI.hpp>
 
+#include "wetfront/cluster/ranks.hpp"
+
 namespace wetfront::cli {
 
-void add_parameter_commands(CLI::App& app);
+// Under mpirun both spread their runs over the session's ranks (study_ranks.hpp).
+void add_parameter_commands(CLI::App& app, const cluster::Session& session);
 
 }  // namespace wetfront::cli

@@ -154,40 +154,46 @@ NetworkSite summarise_site(const std::filesystem::path& site_file, const SeasonR
   return site;
 }
 
+NetworkSite run_network_site(const std::filesystem::path& file, const std::string& program_version,
+                             const SiteFinished& finished, const SiteStarting& starting) {
+  NetworkSite site;
+  site.site_file = file;
+  site.name = file.stem().string();
+  // Every exception of a site is caught here, so a network never stops early.
+  try {
+    const SiteSetup setup = load_site_file(file);
+    site.name = setup.name;
+    if (starting) starting(setup);
+    const SeasonResult result = run_season(setup, program_version);
+    site = summarise_site(file, result);
+    if (finished) {
+      try {
+        finished(result);
+      } catch (const std::exception& error) {
+        // The run is summarised, but its own files are not there: the site counts as failed.
+        site.status = SiteStatus::bad_input;
+        site.reason = fmt::format("its run files could not be written: {}", error.what());
+      }
+    }
+  } catch (const base::InputError& error) {
+    site.status = SiteStatus::bad_input;
+    site.reason = error.what();
+  } catch (const std::exception& error) {
+    site.status = SiteStatus::program_fault;
+    site.reason = error.what();
+  }
+  return site;
+}
+
 std::vector<NetworkSite> run_network(const NetworkPlan& plan, unsigned threads, const std::string& program_version,
                                      const SiteFinished& finished, const NetworkProgress& progress,
                                      const SiteStarting& starting) {
   std::vector<NetworkSite> sites(plan.site_files.size());
   std::mutex progress_lock;
   std::size_t done = 0;
-  // Every exception of a site is caught here, so the batch never stops early.
   studies::run_batch(sites.size(), threads, [&](std::size_t k) {
-    const std::filesystem::path& file = plan.site_files[k];
     NetworkSite& site = sites[k];
-    site.site_file = file;
-    site.name = file.stem().string();
-    try {
-      const SiteSetup setup = load_site_file(file);
-      site.name = setup.name;
-      if (starting) starting(setup);
-      const SeasonResult result = run_season(setup, program_version);
-      site = summarise_site(file, result);
-      if (finished) {
-        try {
-          finished(result);
-        } catch (const std::exception& error) {
-          // The run is summarised, but its own files are not there: the site counts as failed.
-          site.status = SiteStatus::bad_input;
-          site.reason = fmt::format("its run files could not be written: {}", error.what());
-        }
-      }
-    } catch (const base::InputError& error) {
-      site.status = SiteStatus::bad_input;
-      site.reason = error.what();
-    } catch (const std::exception& error) {
-      site.status = SiteStatus::program_fault;
-      site.reason = error.what();
-    }
+    site = run_network_site(plan.site_files[k], program_version, finished, starting);
     if (progress) {
       const std::lock_guard lock(progress_lock);
       progress(++done, site);

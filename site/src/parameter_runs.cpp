@@ -8,8 +8,8 @@
 
 #include "wetfront/base/input_error.hpp"
 #include "fit_readings.hpp"
+#include "scored_run_bytes.hpp"
 #include "wetfront/site/simulated_profiles.hpp"
-#include "wetfront/studies/parallel_batch.hpp"
 #include "wetfront/observations/profile_interpolation.hpp"
 #include "wetfront/solver/column_run.hpp"
 
@@ -102,18 +102,34 @@ ScoredRun SeasonModel::run(const studies::ParameterSet& values, profiles::RunRec
   return scored;
 }
 
+studies::TaskHandler SeasonModel::handler() const {
+  return [this](std::string_view request) { return encode_scored_run(run(decode_parameter_set(request))); };
+}
+
 std::vector<ScoredRun> SeasonModel::run_all(const std::vector<studies::ParameterSet>& sets, unsigned threads,
                                             const std::function<void(std::size_t)>& finished) const {
-  std::vector<ScoredRun> runs(sets.size());
-  studies::run_batch(
-      sets.size(), threads, [&](std::size_t i) { runs[i] = run(sets[i]); }, finished);
+  studies::ThreadTaskRunner runner(handler(), threads);
+  return run_all(sets, runner, finished);
+}
+
+std::vector<ScoredRun> SeasonModel::run_all(const std::vector<studies::ParameterSet>& sets,
+                                            studies::TaskRunner& runner,
+                                            const std::function<void(std::size_t)>& finished) const {
+  std::vector<std::string> requests;
+  for (const auto& set : sets) requests.push_back(encode_parameter_set(set));
+  std::vector<ScoredRun> runs;
+  const auto each = [&finished](std::size_t done, std::size_t, std::string_view) {
+    if (finished) finished(done);
+  };
+  for (const std::string& result : runner.run(requests, each)) runs.push_back(decode_scored_run(result));
   return runs;
 }
 
-studies::ModelBatch SeasonModel::batch(unsigned threads, const std::function<void(std::size_t)>& finished) const {
-  return [this, threads, finished](const std::vector<studies::ParameterSet>& sets) {
+studies::ModelBatch SeasonModel::batch(studies::TaskRunner& runner,
+                                       const std::function<void(std::size_t)>& finished) const {
+  return [this, &runner, finished](const std::vector<studies::ParameterSet>& sets) {
     std::vector<studies::ModelRun> out;
-    for (ScoredRun& scored : run_all(sets, threads, finished)) {
+    for (ScoredRun& scored : run_all(sets, runner, finished)) {
       studies::ModelRun model_run;
       model_run.ok = scored.complete;
       model_run.failure = std::move(scored.failure);

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <atomic>
+#include <optional>
 #include <stdexcept>
 
 #include <fmt/format.h>
@@ -22,6 +23,18 @@ std::vector<studies::AdjustableParameter> checked_ranges(const SeasonModel& mode
   return ranges;
 }
 
+// The settings' runner, or the machine's threads.
+class ChosenRunner {
+ public:
+  ChosenRunner(const SeasonModel& model, studies::TaskRunner* given, unsigned threads)
+      : runner_(given ? *given : own_.emplace(model.handler(), threads)) {}
+  studies::TaskRunner& operator*() { return runner_; }
+
+ private:
+  std::optional<studies::ThreadTaskRunner> own_;
+  studies::TaskRunner& runner_;
+};
+
 }  // namespace
 
 SweepResult run_sweep(const SeasonModel& model, const SweepSettings& settings, const StudyProgress& progress) {
@@ -35,7 +48,8 @@ SweepResult run_sweep(const SeasonModel& model, const SweepSettings& settings, c
     sets = studies::latin_hypercube(ranges, settings.sample_size, settings.seed);
     result.method = fmt::format("Latin hypercube sample (seed {})", settings.seed);
   }
-  result.runs = model.run_all(sets, settings.threads, [&](std::size_t done) {
+  ChosenRunner runner(model, settings.runner, settings.threads);
+  result.runs = model.run_all(sets, *runner, [&](std::size_t done) {
     if (progress) progress(done, sets.size());
   });
   result.ranking.resize(result.runs.size());
@@ -55,7 +69,8 @@ CalibrationStudy run_calibration(const SeasonModel& model, const CalibrationSett
   const auto tick = [&](std::size_t) {
     if (progress) progress(++done, planned);
   };
-  study.fit = studies::calibrate(ranges, model.batch(settings.threads, tick), settings.options);
+  ChosenRunner runner(model, settings.runner, settings.threads);
+  study.fit = studies::calibrate(ranges, model.batch(*runner, tick), settings.options);
   if (!study.fit.converged)
     study.fit.warnings.push_back(
         fmt::format("the fit did not converge ({}): the values, standard errors and bands describe the "
@@ -63,7 +78,7 @@ CalibrationStudy run_calibration(const SeasonModel& model, const CalibrationSett
                     study.fit.stop_reason));
   // The runs at the start and at the optimum again, with their metrics (cheap next to the fit).
   const std::vector<studies::ParameterSet> ends{study.fit.start, study.fit.best};
-  auto end_runs = model.run_all(ends, settings.threads);
+  auto end_runs = model.run_all(ends, *runner);
   study.before = std::move(end_runs[0]);
   study.after = std::move(end_runs[1]);
 
@@ -87,7 +102,7 @@ CalibrationStudy run_calibration(const SeasonModel& model, const CalibrationSett
     study.band_note = fmt::format("no sampled band: {}", error.what());
     return study;
   }
-  const auto runs = model.run_all(sets, settings.threads, tick);
+  const auto runs = model.run_all(sets, *runner, tick);
   std::vector<std::vector<double>> values(static_cast<std::size_t>(outputs.size()));
   for (const auto& run : runs) {
     if (!run.complete) {

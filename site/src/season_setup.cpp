@@ -3,14 +3,13 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
-#include <fstream>
-#include <iterator>
 #include <memory>
 #include <optional>
 
 #include <fmt/format.h>
 
 #include "wetfront/base/input_error.hpp"
+#include "wetfront/base/input_files.hpp"
 #include "wetfront/forcing/csv_readers.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/forcing/pan_gauge.hpp"
@@ -26,10 +25,8 @@ namespace {
 class InputDigest {
  public:
   void add_file(const std::filesystem::path& path) {
-    std::ifstream stream(path, std::ios::binary);
     add_text(path.filename().string());
-    const std::string bytes((std::istreambuf_iterator<char>(stream)), std::istreambuf_iterator<char>());
-    add_text(bytes);
+    add_text(base::read_input_file(path).value_or(""));
   }
   void add_text(std::string_view text) {
     for (const char c : text) {

@@ -12,6 +12,7 @@
 #include <toml++/toml.h>
 
 #include "wetfront/base/input_error.hpp"
+#include "wetfront/base/input_files.hpp"
 #include "wetfront/site/site_keys.hpp"
 #include "wetfront/forcing/dry_limit.hpp"
 #include "wetfront/soils/model_parameters.hpp"
@@ -78,7 +79,7 @@ std::filesystem::path existing_file(const SiteTable& table, std::string_view key
   std::error_code error;
   if (std::filesystem::is_directory(path, error))
     table.fail(key, fmt::format("'{}' is a folder; give the name of a file in it", path.string()));
-  if (!std::filesystem::is_regular_file(path, error)) {
+  if (!base::is_input_file(path)) {
     table.fail(key, fmt::format("file '{}' not found (paths are relative to the site file's folder)", path.string()));
   }
   return path;

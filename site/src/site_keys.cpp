@@ -2,13 +2,12 @@
 
 #include <algorithm>
 #include <cctype>
-#include <fstream>
-#include <sstream>
 
 #include <fmt/format.h>
 
 #include "wetfront/base/did_you_mean.hpp"
 #include "wetfront/base/input_error.hpp"
+#include "wetfront/base/input_files.hpp"
 
 namespace wetfront::site {
 
@@ -17,12 +16,10 @@ toml::table read_site_document(const std::filesystem::path& site_file) {
   std::error_code status;
   if (std::filesystem::is_directory(site_file, status))
     throw base::InputError(file, 0, "", "is a folder, not a site file; give the site file (TOML) in it");
-  std::ifstream stream(site_file, std::ios::binary);
-  if (!stream) throw base::InputError(file, 0, "", "cannot open the site file (missing or unreadable)");
-  std::stringstream buffer;
-  buffer << stream.rdbuf();
+  const std::optional<std::string> bytes = base::read_input_file(site_file);
+  if (!bytes) throw base::InputError(file, 0, "", "cannot open the site file (missing or unreadable)");
   try {
-    return toml::parse(buffer.str(), file);
+    return toml::parse(*bytes, file);
   } catch (const toml::parse_error& error) {
     throw base::InputError(file, error.source().begin.line, "", fmt::format("not valid TOML: {}", error.description()));
   }

@@ -76,6 +76,15 @@ using NetworkProgress = std::function<void(std::size_t done, const NetworkSite& 
 // The summary of one season result.
 NetworkSite summarise_site(const std::filesystem::path& site_file, const SeasonResult& result);
 
+// One site of a network: loads it, calls starting, runs the season, summarises it and calls
+// finished. Never throws: a failure is the site's status and reason.
+NetworkSite run_network_site(const std::filesystem::path& site_file, const std::string& program_version,
+                             const SiteFinished& finished = {}, const SiteStarting& starting = {});
+
+// A site's summary as bytes (for a studies::TaskRunner); decode(encode(s)) == s bit for bit.
+std::string encode_network_site(const NetworkSite& site);
+NetworkSite decode_network_site(std::string_view bytes);
+
 // Runs every site of the plan on studies::thread_count(threads) threads. The result lists the
 // sites in plan order and does not depend on the number of threads.
 std::vector<NetworkSite> run_network(const NetworkPlan& plan, unsigned threads, const std::string& program_version,

@@ -14,6 +14,7 @@
 #include "wetfront/site/season_setup.hpp"
 #include "wetfront/observations/fit_metrics.hpp"
 #include "wetfront/studies/parameter_calibration.hpp"
+#include "wetfront/studies/task_runner.hpp"
 #include "wetfront/profiles/run_record.hpp"
 
 namespace wetfront::site {
@@ -49,14 +50,21 @@ class SeasonModel {
   // failed run or an unphysical set: the result says so.
   ScoredRun run(const studies::ParameterSet& values, profiles::RunRecord* record = nullptr) const;
 
-  // Every set on `threads` threads (0: all cores); results in the order of `sets`, the same
-  // whatever the thread count. finished(done) is called after each run.
+  // run() as a task of a studies::TaskRunner: an encoded parameter set in, an encoded scored
+  // run out. Every process that holds the same model answers a request with the same bytes.
+  studies::TaskHandler handler() const;
+
+  // Every set on `threads` threads (0: all cores), or by `runner` (tasks from handler());
+  // results in the order of `sets`, the same whatever runs them. finished(done) is called after
+  // each run.
   std::vector<ScoredRun> run_all(const std::vector<studies::ParameterSet>& sets, unsigned threads,
+                                 const std::function<void(std::size_t)>& finished = {}) const;
+  std::vector<ScoredRun> run_all(const std::vector<studies::ParameterSet>& sets, studies::TaskRunner& runner,
                                  const std::function<void(std::size_t)>& finished = {}) const;
 
   // The model as the calibration sees it: residuals, and outputs = season recharge followed
-  // by the per-visit recharge (cm).
-  studies::ModelBatch batch(unsigned threads, const std::function<void(std::size_t)>& finished = {}) const;
+  // by the per-visit recharge (cm). The runner must outlive the batch.
+  studies::ModelBatch batch(studies::TaskRunner& runner, const std::function<void(std::size_t)>& finished = {}) const;
 
  private:
   SiteSetup site_;

@@ -23,6 +23,7 @@ struct SweepSettings {
   std::uint64_t seed = 1;
   unsigned threads = 0;  // 0: all cores
   std::size_t max_grid_sets = 10000;
+  studies::TaskRunner* runner = nullptr;  // runs the sets instead of the threads (tasks of SeasonModel::handler)
 };
 
 struct SweepResult {
@@ -39,6 +40,7 @@ struct CalibrationSettings {
   unsigned threads = 0;
   std::size_t band_runs = 40;  // parameter sets drawn for the sampled band; 0: none
   std::uint64_t seed = 1;
+  studies::TaskRunner* runner = nullptr;  // runs the sets instead of the threads (tasks of SeasonModel::handler)
 };
 
 // Percentiles of an output over the sampled runs: the central 95 %, like the first-order
