@@ -95,8 +95,10 @@ booleantype inverse_test(N_Vector x, N_Vector z) {
   const auto xs = data(x), zs = data(z);
   booleantype no_zero = SUNTRUE;
   for (std::size_t i = 0; i < zs.size(); ++i) {
-    if (xs[i] == 0.0) no_zero = SUNFALSE;
-    else zs[i] = 1.0 / xs[i];
+    if (xs[i] == 0.0)
+      no_zero = SUNFALSE;
+    else
+      zs[i] = 1.0 / xs[i];
   }
   return no_zero;
 }
@@ -330,18 +332,25 @@ void use_compiled_vector_ops(N_Vector v) {
   ops->nvwsqrsummasklocal = weighted_square_sum_masked;
 }
 
-SUNLinearSolver make_band_lu_solver(N_Vector like, SUNContext context) {
-  if (N_VGetVectorID(like) != SUNDIALS_NVEC_SERIAL) return nullptr;
+SUNLinearSolver new_direct_solver(SUNContext context, void* content, const DirectSolverOps& ops) {
   SUNLinearSolver s = SUNLinSolNewEmpty(context);
   if (!s) return nullptr;
-  s->content = new BandLu;
+  s->content = content;
   s->ops->gettype = solver_type;
   s->ops->getid = solver_id;
-  s->ops->initialize = initialize;
-  s->ops->setup = setup;
-  s->ops->solve = solve;
-  s->ops->lastflag = last_flag;
-  s->ops->free = free_solver;
+  s->ops->initialize = ops.initialize;
+  s->ops->setup = ops.setup;
+  s->ops->solve = ops.solve;
+  s->ops->lastflag = ops.last_flag;
+  s->ops->free = ops.free;
+  return s;
+}
+
+SUNLinearSolver make_band_lu_solver(N_Vector like, SUNContext context) {
+  if (N_VGetVectorID(like) != SUNDIALS_NVEC_SERIAL) return nullptr;
+  auto* content = new BandLu;
+  SUNLinearSolver s = new_direct_solver(context, content, {initialize, setup, solve, last_flag, free_solver});
+  if (!s) delete content;
   return s;
 }
 

@@ -29,4 +29,16 @@ void use_compiled_zero(SUNMatrix band_matrix);
 // with the storage upper bandwidth mu + ml that pivoting can fill.
 SUNLinearSolver make_band_lu_solver(N_Vector like, SUNContext context);
 
+// The operations of a direct solver of our own over SUNDIALS' matrices.
+struct DirectSolverOps {
+  int (*initialize)(SUNLinearSolver);
+  int (*setup)(SUNLinearSolver, SUNMatrix);
+  int (*solve)(SUNLinearSolver, SUNMatrix, N_Vector, N_Vector, double);
+  sunindextype (*last_flag)(SUNLinearSolver);
+  int (*free)(SUNLinearSolver);
+};
+// An empty SUNDIALS linear solver of type "direct, custom" holding `content` with these
+// operations; nullptr if SUNDIALS cannot allocate it (the caller still owns `content` then).
+SUNLinearSolver new_direct_solver(SUNContext context, void* content, const DirectSolverOps& ops);
+
 }  // namespace wetfront::solver::detail

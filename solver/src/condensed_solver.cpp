@@ -84,8 +84,6 @@ void solve_tridiagonal(const Condensed& c, double* x) {
   }
 }
 
-SUNLinearSolver_Type solver_type(SUNLinearSolver) { return SUNLINEARSOLVER_DIRECT; }
-SUNLinearSolver_ID solver_id(SUNLinearSolver) { return SUNLINEARSOLVER_CUSTOM; }
 int initialize(SUNLinearSolver s) {
   content(s).last_flag = 0;
   return SUNLinSolInitialize(content(s).fallback);
@@ -187,22 +185,14 @@ int free_solver(SUNLinearSolver s) {
 SUNLinearSolver make_condensed_column_solver(N_Vector like, SUNContext context, std::size_t uptake_cells) {
   SUNLinearSolver fallback = make_band_lu_solver(like, context);
   if (!fallback) return nullptr;
-  SUNLinearSolver s = SUNLinSolNewEmpty(context);
+  auto* content = new Condensed;
+  content->uptake_cells = uptake_cells;
+  content->fallback = fallback;
+  SUNLinearSolver s = new_direct_solver(context, content, {initialize, setup, solve, last_flag, free_solver});
   if (!s) {
     SUNLinSolFree(fallback);
-    return nullptr;
+    delete content;
   }
-  auto* c = new Condensed;
-  c->uptake_cells = uptake_cells;
-  c->fallback = fallback;
-  s->content = c;
-  s->ops->gettype = solver_type;
-  s->ops->getid = solver_id;
-  s->ops->initialize = initialize;
-  s->ops->setup = setup;
-  s->ops->solve = solve;
-  s->ops->lastflag = last_flag;
-  s->ops->free = free_solver;
   return s;
 }
 
