@@ -18,6 +18,8 @@ inline solver::ColumnProblem year200_column(const std::string& flux_csv) {
   const soils::VanGenuchtenMualem loam{0.078, 0.43, 0.036, 1.56, 24.96, 0.5};
   soils::LayeredProfile soil({{"sandy loam", 0, 60, sandy_loam}, {"loam", 60, 200, loam}});
   solver::ColumnProblem problem{.soil = soil, .grid = solver::uniform_grid(200.0, 200)};
+  // The arithmetic face mean of the Picard scheme, so that both schemes solve the same equations.
+  problem.face_conductivity = solver::FaceConductivity::arithmetic;
 
   std::ifstream in(flux_csv);
   if (!in) throw std::runtime_error("cannot open " + flux_csv);

@@ -644,9 +644,10 @@ void read_numerics(const SiteTable& root, SiteSetup& site) {
     if (!(site.specific_storage_per_cm > 0 && site.specific_storage_per_cm < 0.01)) {
       solver->fail("specific_storage", "must lie in (0, 0.01) 1/cm");
     }
-    static constexpr std::array<std::string_view, 3> means = {"arithmetic", "geometric", "harmonic"};
+    static constexpr std::array<std::string_view, 4> means = {"arithmetic", "geometric", "harmonic", "integral"};
     if (const auto mean = solver->optional_choice("face_conductivity", means)) {
-      site.face_conductivity = *mean == "harmonic"    ? solver::FaceConductivity::harmonic
+      site.face_conductivity = *mean == "integral"    ? solver::FaceConductivity::integral
+                               : *mean == "harmonic"    ? solver::FaceConductivity::harmonic
                                : *mean == "geometric" ? solver::FaceConductivity::geometric
                                                       : solver::FaceConductivity::arithmetic;
     }

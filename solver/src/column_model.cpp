@@ -92,7 +92,7 @@ ColumnModel::ColumnModel(const ColumnProblem& problem)
     while (uptake_cells_ < cells() && faces[uptake_cells_] < deepest) ++uptake_cells_;
   }
   const std::size_t n = cells();
-  for (auto* v : {&head_, &head_per_storage_, &conductivity_, &conductivity_per_storage_, &base_storage_})
+  for (auto* v : {&potential_, &head_, &head_per_storage_, &conductivity_, &conductivity_per_storage_, &base_storage_})
     v->assign(n, 0.0);
   sink_rate_.assign(uptake_cells_, 0.0);
   sink_slope_.assign(uptake_cells_, 0.0);
@@ -188,6 +188,37 @@ double ColumnModel::transpiration(std::span<const double> y) const {
 }
 
 // Head, conductivity and their slopes with respect to the cell's stored water S = dz s.
+FaceFlux ColumnModel::interior_face(std::size_t j) const {
+  auto side = [&](std::size_t i) {
+    return FaceSide{head_[i], conductivity_[i], head_per_storage_[i], conductivity_per_storage_[i]};
+  };
+  if (face_kind_ != FaceConductivity::integral || cell_table_[j - 1] != cell_table_[j])
+    return darcy_face(face_kind_ == FaceConductivity::integral ? FaceConductivity::arithmetic : face_kind_, side(j - 1),
+                      side(j), centre_distance_[j]);
+  return integral_face(side(j - 1), potential_[j - 1], side(j), potential_[j], centre_distance_[j]);
+}
+
+FaceFlux ColumnModel::boundary_face(const FaceSide& upper, double upper_potential, const FaceSide& lower,
+                                    double lower_potential, double distance_cm) const {
+  if (face_kind_ == FaceConductivity::integral)
+    return integral_face(upper, upper_potential, lower, lower_potential, distance_cm);
+  return darcy_face(FaceConductivity::arithmetic, upper, lower, distance_cm);
+}
+
+// Phi of a boundary cell's soil at the boundary head. The boundary heads of a run are few (the
+// dry limit, a prescribed head, the water table), and a head below saturation needs the table's
+// inverse, so the last two are kept.
+double ColumnModel::boundary_potential(std::size_t cell, double head_cm) const {
+  if (face_kind_ != FaceConductivity::integral) return 0.0;
+  const StorageTable* table = cell_table_[cell];
+  for (const auto& kept : boundary_potentials_)
+    if (kept.table == table && kept.head_cm == head_cm) return kept.potential;
+  const double potential = table->potential_at_head(head_cm);
+  boundary_potentials_[next_kept_potential_] = {table, head_cm, potential};
+  next_kept_potential_ = (next_kept_potential_ + 1) % boundary_potentials_.size();
+  return potential;
+}
+
 StoragePoint ColumnModel::cell_point(std::size_t i, std::span<const double> y) const {
   auto p = cell_table_[i]->at(cell_storage(i, y) * inverse_thickness_[i]);
   p.head_per_storage *= inverse_thickness_[i];
@@ -212,6 +243,7 @@ void ColumnModel::evaluate_cells(std::span<const double> y) {
     head_per_storage_[i] = p.head_per_storage * per_thickness;
     conductivity_[i] = p.conductivity;
     conductivity_per_storage_[i] = p.conductivity_per_storage * per_thickness;
+    potential_[i] = p.potential;
   }
   // Sinks are constant in time over a forcing period (their changes are breakpoints), so they
   // see the period start: a residual evaluated exactly at the period end keeps this period's values.
@@ -251,7 +283,8 @@ double ColumnModel::surface_head(double t, std::span<const double> y) const {
 // would shut the surface to rain (the surface value is a boundary condition, not a cell).
 ColumnModel::SurfaceFlux ColumnModel::head_limited_flux(double hs, const StoragePoint& top) const {
   const FaceSide cell{top.head_cm, top.conductivity, top.head_per_storage, top.conductivity_per_storage};
-  const auto f = darcy_face(FaceConductivity::arithmetic, boundary_side(*cell_model_[0], hs), cell, centre_distance_[0]);
+  const auto f = boundary_face(boundary_side(*cell_model_[0], hs), boundary_potential(0, hs), cell, top.potential,
+                               centre_distance_[0]);
   return {f.flux, f.slope_lower, f.slope_upper};
 }
 
@@ -267,7 +300,8 @@ ColumnModel::BottomFlux ColumnModel::bottom_flux(const StoragePoint& last) const
   const FaceSide cell{last.head_cm, last.conductivity, last.head_per_storage, last.conductivity_per_storage};
   auto fixed = [&](double hb) {
     const double distance = grid_.total_depth_cm() - grid_.cell_depths_cm()[n - 1];
-    const auto f = darcy_face(FaceConductivity::arithmetic, cell, boundary_side(*cell_model_[n - 1], hb), distance);
+    const auto f = boundary_face(cell, last.potential, boundary_side(*cell_model_[n - 1], hb), boundary_potential(n - 1, hb),
+                                 distance);
     return BottomFlux{f.flux, f.slope_upper};
   };
   if (std::holds_alternative<FreeDrainage>(bottom_boundary_)) return {last.conductivity, last.conductivity_per_storage};
@@ -280,10 +314,15 @@ void ColumnModel::residual(double t, std::span<const double> y, std::span<const 
   evaluate_cells(y);
   evaluated_state_.assign(y.begin(), y.end());
   const std::size_t n = cells();
-  const StoragePoint top{head_[0], head_per_storage_[0], conductivity_[0], conductivity_per_storage_[0]};
-  const StoragePoint last{head_[n - 1], head_per_storage_[n - 1], conductivity_[n - 1], conductivity_per_storage_[n - 1]};
+  const StoragePoint top{head_[0], head_per_storage_[0], conductivity_[0], conductivity_per_storage_[0], potential_[0]};
+  const StoragePoint last{head_[n - 1], head_per_storage_[n - 1], conductivity_[n - 1], conductivity_per_storage_[n - 1],
+                          potential_[n - 1]};
   r[face_index(0)] = yp[face_index(0)] - surface_flux(t, y, top).flux;
   for (std::size_t j = 1; j < n; ++j) {
+    if (face_kind_ == FaceConductivity::integral) {
+      r[face_index(j)] = yp[face_index(j)] - interior_face(j).flux;
+      continue;
+    }
     const double gradient = 1.0 - (head_[j] - head_[j - 1]) / centre_distance_[j];
     r[face_index(j)] = yp[face_index(j)] - face_mean(face_kind_, conductivity_[j - 1], conductivity_[j]).mean * gradient;
   }
@@ -308,18 +347,16 @@ void ColumnModel::jacobian(double t, double cj, std::span<const double> y, SUNMa
     at(row, face_index(cell + 1)) -= slope;
     if (cell < uptake_cells_) at(row, uptake_index(cell)) -= slope;
   };
-  auto side = [&](std::size_t i) {
-    return FaceSide{head_[i], conductivity_[i], head_per_storage_[i], conductivity_per_storage_[i]};
-  };
   const std::size_t n = cells();
   const std::size_t f0 = face_index(0);
-  const auto top = surface_flux(t, y, {head_[0], head_per_storage_[0], conductivity_[0], conductivity_per_storage_[0]});
+  const auto top =
+      surface_flux(t, y, {head_[0], head_per_storage_[0], conductivity_[0], conductivity_per_storage_[0], potential_[0]});
   at(f0, f0) += cj;
   add_storage_slope(f0, 0, -top.slope_storage);
   at(f0, f0) += top.slope_pond;  // the pond depth falls as F_0 grows: dP/dF_0 = -1
   for (std::size_t j = 1; j < n; ++j) {
     const std::size_t row = face_index(j);
-    const auto f = darcy_face(face_kind_, side(j - 1), side(j), centre_distance_[j]);
+    const auto f = interior_face(j);
     at(row, row) += cj;
     add_storage_slope(row, j - 1, -f.slope_upper);
     add_storage_slope(row, j, -f.slope_lower);
@@ -327,7 +364,7 @@ void ColumnModel::jacobian(double t, double cj, std::span<const double> y, SUNMa
   const std::size_t last = face_index(n);
   at(last, last) += cj;
   add_storage_slope(last, n - 1, -bottom_flux({head_[n - 1], head_per_storage_[n - 1], conductivity_[n - 1],
-                                               conductivity_per_storage_[n - 1]})
+                                               conductivity_per_storage_[n - 1], potential_[n - 1]})
                                      .slope_storage);
   for (std::size_t i = 0; i < uptake_cells_; ++i) {
     at(uptake_index(i), uptake_index(i)) += cj;

@@ -21,11 +21,13 @@
 // which closes the surface balance W - E - R - F_0 - (P - P_restart) = 0 exactly.
 #pragma once
 
+#include <array>
 #include <span>
 #include <vector>
 
 #include <sundials/sundials_matrix.h>
 
+#include "face_flux.hpp"
 #include "storage_table.hpp"
 #include "wetfront/solver/column_problem.hpp"
 #include "wetfront/solver/column_run.hpp"
@@ -137,6 +139,10 @@ class ColumnModel {
     double slope_storage;  // dq_N / dS_(N-1)
   };
   void evaluate_cells(std::span<const double> y);
+  FaceFlux interior_face(std::size_t face) const;  // from the workspace
+  FaceFlux boundary_face(const FaceSide& upper, double upper_potential, const FaceSide& lower, double lower_potential,
+                         double distance_cm) const;
+  double boundary_potential(std::size_t cell, double head_cm) const;
   StoragePoint cell_point(std::size_t cell, std::span<const double> y) const;
   SurfaceFlux surface_flux(double t, std::span<const double> y, const StoragePoint& top) const;
   SurfaceFlux head_limited_flux(double surface_head_cm, const StoragePoint& top) const;
@@ -177,8 +183,14 @@ class ColumnModel {
   Totals totals_;
 
   // Workspace, refreshed by evaluate_cells(): per cell head, dh/dS, K, dK/dS, sink and its slope.
-  std::vector<double> head_, head_per_storage_, conductivity_, conductivity_per_storage_, sink_rate_, sink_slope_;
-  std::vector<double> evaluated_state_;  // the state of the last residual, while the workspace holds it
+  std::vector<double> potential_, head_, head_per_storage_, conductivity_, conductivity_per_storage_, sink_rate_, sink_slope_;
+  std::vector<double> evaluated_state_;
+  struct KeptPotential {
+    const StorageTable* table = nullptr;
+    double head_cm = 0, potential = 0;
+  };
+  mutable std::array<KeptPotential, 2> boundary_potentials_{};
+  mutable std::size_t next_kept_potential_ = 0;  // the state of the last residual, while the workspace holds it
 };
 
 }  // namespace wetfront::solver::detail

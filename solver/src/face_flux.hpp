@@ -54,4 +54,18 @@ inline FaceFlux darcy_face(FaceConductivity kind, const FaceSide& upper, const F
           k.slope_b * lower.conductivity_slope * gradient - k.mean / distance_cm * lower.head_slope};
 }
 
+// Integral (Kirchhoff) mean of one soil: K_face = (Phi_u - Phi_l) / (h_u - h_l), the mean of K
+// over the heads between the two sides; Phi = integral of K dh.
+inline FaceFlux integral_face(const FaceSide& upper, double phi_upper, const FaceSide& lower, double phi_lower,
+                              double distance_cm) {
+  const double dh = upper.head_cm - lower.head_cm;
+  const double gradient = 1.0 - (lower.head_cm - upper.head_cm) / distance_cm;
+  if (!(std::abs(dh) > 1e-4)) return darcy_face(FaceConductivity::arithmetic, upper, lower, distance_cm);
+  const double k = (phi_upper - phi_lower) / dh;
+  const double k_upper = (upper.conductivity - k) / dh * upper.head_slope;
+  const double k_lower = (k - lower.conductivity) / dh * lower.head_slope;
+  return {k * gradient, k_upper * gradient + k / distance_cm * upper.head_slope,
+          k_lower * gradient - k / distance_cm * lower.head_slope};
+}
+
 }  // namespace wetfront::solver::detail

@@ -97,6 +97,27 @@ StorageTable::StorageTable(const soils::HydraulicModel& model, double specific_s
                          conductivity_slope_[k + 1], iv.conductivity);
     intervals_.push_back(iv);
   }
+  // Kirchhoff potential Phi = integral of K dh, zero at the driest node. Node values integrate
+  // the table's own K(t) h'(t) over each interval (degree 5 in t: three-point Gauss-Legendre is
+  // exact); node slopes are dPhi/ds = K dh/ds, limited as above, so Phi(s) is monotone and every
+  // integral mean of K between two heads is positive.
+  std::vector<double> potential(storage_.size(), 0.0), potential_slope(storage_.size());
+  for (std::size_t k = 0; k + 1 < storage_.size(); ++k) {
+    const Interval& iv = intervals_[k];
+    auto cubic = [](const double* c, double t) { return c[0] + t * (c[1] + t * (c[2] + t * c[3])); };
+    auto rate = [](const double* c, double t) { return c[1] + t * (2 * c[2] + t * 3 * c[3]); };
+    constexpr double half_spread = 0.5 * 0.7745966692414834;  // sqrt(3/5) / 2
+    constexpr double nodes[3] = {0.5 - half_spread, 0.5, 0.5 + half_spread}, weights[3] = {5.0 / 18, 8.0 / 18, 5.0 / 18};
+    double rise = 0;
+    for (int q = 0; q < 3; ++q) rise += weights[q] * cubic(iv.conductivity, nodes[q]) * rate(iv.head, nodes[q]);
+    potential[k + 1] = potential[k] + rise;
+  }
+  for (std::size_t k = 0; k < storage_.size(); ++k) potential_slope[k] = conductivity_[k] * head_slope_[k];
+  limit_slopes(storage_, potential, potential_slope);
+  for (std::size_t k = 0; k + 1 < storage_.size(); ++k)
+    hermite_coefficients(storage_[k + 1] - storage_[k], potential[k], potential_slope[k], potential[k + 1],
+                         potential_slope[k + 1], intervals_[k].potential);
+  full_potential_ = potential.back();
   const std::size_t buckets = 2 * storage_.size();
   bucket_scale_ = static_cast<double>(buckets) / (full_storage() - dry_storage());
   bucket_first_.resize(buckets);
@@ -116,9 +137,10 @@ StorageTable::StorageTable(const soils::HydraulicModel& model, double specific_s
 StoragePoint StorageTable::dry_tail(double s) const {
   const double slope = head_slope_.front();
   const double h = head_.front() + (s - storage_.front()) * slope;
-  if (!std::isfinite(h)) return {h, slope, 0.0, 0.0};
+  if (!std::isfinite(h)) return {h, slope, 0.0, 0.0, 0.0};
   const auto state = soils::evaluate(model_, h);
-  return {h, slope, state.conductivity, state.conductivity_slope * slope};
+  return {h, slope, state.conductivity, state.conductivity_slope * slope,
+          conductivity_.front() * (h - head_.front())};
 }
 
 double StorageTable::storage_at(double h) const {
@@ -140,6 +162,11 @@ double StorageTable::storage_at(double h) const {
     s = next;
   }
   return s;
+}
+
+double StorageTable::potential_at_head(double h) const {
+  if (h >= saturation_head_) return full_potential_ + saturated_conductivity_ * (h - saturation_head_);
+  return at(storage_at(h)).potential;
 }
 
 double StorageTable::water_content(double s, double h) const {

@@ -34,6 +34,7 @@ struct StoragePoint {
   double head_per_storage;         // dh/ds, cm per (cm3/cm3)
   double conductivity;             // K(h(s)), cm/d
   double conductivity_per_storage; // dK/ds, cm/d per (cm3/cm3)
+  double potential = 0;            // Kirchhoff potential Phi(h(s)) = integral of K dh from the driest node, cm2/d
 };
 
 struct StorageTableSettings {
@@ -50,18 +51,23 @@ class StorageTable {
   StoragePoint at(double storage) const {  // inline: the residual's inner loop
     if (storage >= full_storage_) {
       const double slope = 1.0 / specific_storage_;
-      return {saturation_head_ + (storage - full_storage_) * slope, slope, saturated_conductivity_, 0.0};
+      const double above = (storage - full_storage_) * slope;
+      return {saturation_head_ + above, slope, saturated_conductivity_, 0.0, full_potential_ + saturated_conductivity_ * above};
     }
     if (storage < dry_storage_) return dry_tail(storage);
     const Interval& iv = intervals_[interval(storage)];
     const double t = (storage - iv.storage) * iv.inverse_width;
     const double* h = iv.head;
     const double* k = iv.conductivity;
+    const double* f = iv.potential;
     return {h[0] + t * (h[1] + t * (h[2] + t * h[3])), (h[1] + t * (2 * h[2] + t * 3 * h[3])) * iv.inverse_width,
-            k[0] + t * (k[1] + t * (k[2] + t * k[3])), (k[1] + t * (2 * k[2] + t * 3 * k[3])) * iv.inverse_width};
+            k[0] + t * (k[1] + t * (k[2] + t * k[3])), (k[1] + t * (2 * k[2] + t * 3 * k[3])) * iv.inverse_width,
+            f[0] + t * (f[1] + t * (f[2] + t * f[3]))};
   }
   // The inverse of at(s).head_cm, to round-off: the storage that the table maps to this head.
   double storage_at(double head_cm) const;
+  // Phi at a head (a boundary held at that head).
+  double potential_at_head(double head_cm) const;
   // The model's water content belonging to a storage (s minus the specific-storage term).
   double water_content(double storage, double head_cm) const;
 
@@ -88,13 +94,13 @@ class StorageTable {
   double specific_storage_;
   double saturation_head_;
   double saturated_conductivity_;
-  double full_storage_ = 0, dry_storage_ = 0;
+  double full_storage_ = 0, dry_storage_ = 0, full_potential_ = 0;
   // Nodes, driest first.
   std::vector<double> storage_, head_, head_slope_, conductivity_, conductivity_slope_;
   // The same interpolants per interval as cubics in t = (s - s_k) / (s_(k+1) - s_k).
   struct Interval {
     double storage, inverse_width;
-    double head[4], conductivity[4];  // coefficients of 1, t, t^2, t^3
+    double head[4], conductivity[4], potential[4];  // coefficients of 1, t, t^2, t^3
   };
   std::vector<Interval> intervals_;
   // Uniform buckets over [dry_storage, full_storage]: the first and last interval that can hold

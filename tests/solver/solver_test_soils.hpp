@@ -51,13 +51,15 @@ inline solver::ColumnProblem make_column(soils::LayeredProfile soil, solver::Gri
                                solver::SolverSettings{}};
 }
 
-// The three face conductivities, and their names in messages and test properties.
-inline constexpr std::array<solver::FaceConductivity, 3> kFaceConductivities = {
-    solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic};
+// The four face conductivities, and their names in messages and test properties.
+inline constexpr std::array<solver::FaceConductivity, 4> kFaceConductivities = {
+    solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic,
+    solver::FaceConductivity::integral};
 inline const char* face_name(solver::FaceConductivity face) {
   return face == solver::FaceConductivity::arithmetic ? "arithmetic"
          : face == solver::FaceConductivity::geometric ? "geometric"
-                                                        : "harmonic";
+         : face == solver::FaceConductivity::harmonic  ? "harmonic"
+                                                        : "integral";
 }
 
 // One soil down to request.depth_cm on the graded grid `request` asks for: {depth, faces to

@@ -77,15 +77,16 @@ TEST(StorageTable, MonotoneWithFiniteHeadsEverywhere) {
   for (const auto& [name, model] : models()) {
     const StorageTable table(model, specific_storage);
     const double low = table.dry_storage() - 5e-4, high = table.full_storage() + 1e-3;
-    double last_head = -INFINITY, last_k = -INFINITY;
+    double last_head = -INFINITY, last_k = -INFINITY, last_potential = -INFINITY;
     for (int k = 0; k <= 200000; ++k) {
       const double s = low + (high - low) * k / 200000.0;
       const auto p = table.at(s);
       ASSERT_TRUE(std::isfinite(p.head_cm)) << name << " at storage " << s;
       EXPECT_GE(p.head_cm, last_head) << name << " at storage " << s;
       EXPECT_GE(p.conductivity, last_k) << name << " at storage " << s;
+      EXPECT_GE(p.potential, last_potential) << name << " at storage " << s;
       EXPECT_GE(p.head_per_storage, 0.0) << name;
-      last_head = p.head_cm, last_k = p.conductivity;
+      last_head = p.head_cm, last_k = p.conductivity, last_potential = p.potential;
     }
   }
 }
@@ -97,6 +98,39 @@ TEST(StorageTable, InverseIsExactToRoundOff) {
       const double hh = h + table.saturation_head_cm();
       EXPECT_NEAR(table.at(table.storage_at(hh)).head_cm, hh, 1e-9 * std::max(1.0, std::abs(hh))) << name << " " << hh;
     }
+  }
+}
+
+// The integral of K dh between two heads by adaptive Simpson on the model's closed form.
+double integral_of_conductivity(const soils::HydraulicModel& model, double a, double b, int depth = 40) {
+  const auto k = [&](double h) { return soils::conductivity(model, h); };
+  const auto simpson = [&](double x, double y) { return (y - x) / 6 * (k(x) + 4 * k((x + y) / 2) + k(y)); };
+  const double whole = simpson(a, b), m = (a + b) / 2;
+  const double halves = simpson(a, m) + simpson(m, b);
+  if (depth == 0 || std::abs(halves - whole) <= 1e-10 * std::abs(halves) + 1e-300) return halves;
+  return integral_of_conductivity(model, a, m, depth - 1) + integral_of_conductivity(model, m, b, depth - 1);
+}
+
+TEST(StorageTable, PotentialIsTheIntegralOfConductivity) {
+  // The Kirchhoff potential Phi(h) = integral of K dh (Kirchhoff transform; Haverkamp & Vauclin
+  // 1979 use it for mean face conductivities, from memory) must match the integral of the model's
+  // own K between any two heads in the table; its differences give the integral face conductivity.
+  for (const auto& [name, model] : models()) {
+    const StorageTable table(model, specific_storage);
+    const double h_sat = table.saturation_head_cm();
+    const std::vector<double> below{1e4, 1500.0, 330.0, 100.0, 47.3, 10.0, 2.0, 0.3, 0.02};
+    for (std::size_t i = 0; i + 1 < below.size(); ++i) {
+      const double a = h_sat - below[i], b = h_sat - below[i + 1];
+      if (storage_of(model, a) <= table.dry_storage()) continue;  // beyond the resolving range
+      const double expected = integral_of_conductivity(model, a, b);
+      const double got = table.at(table.storage_at(b)).potential - table.at(table.storage_at(a)).potential;
+      EXPECT_NEAR(got, expected, 1e-3 * expected + 1e-12) << name << " from " << a << " to " << b << " cm";
+      EXPECT_NEAR(table.potential_at_head(b) - table.potential_at_head(a), expected, 1e-3 * expected + 1e-12)
+          << name << " from " << a << " to " << b << " cm";
+    }
+    // Above the saturation head K = Ks, so Phi grows by Ks per cm of head.
+    const double ks = soils::saturated_conductivity(model);
+    EXPECT_NEAR(table.potential_at_head(h_sat + 5.0) - table.potential_at_head(h_sat), 5.0 * ks, 1e-9 * ks) << name;
   }
 }
 

@@ -115,7 +115,7 @@ struct SiteSetup {
 
   solver::SolverSettings settings;
   double specific_storage_per_cm = 1e-5;  // Ss: keeps saturated cells well posed
-  solver::FaceConductivity face_conductivity = solver::FaceConductivity::arithmetic;
+  solver::FaceConductivity face_conductivity = solver::FaceConductivity::integral;
 };
 
 // Reads and checks the site file. Throws base::InputError naming the file, line and key for
