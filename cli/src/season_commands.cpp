@@ -20,6 +20,8 @@
 #include "wetfront/site/grid_check.hpp"
 #include "wetfront/site/output_files.hpp"
 #include "wetfront/site/run_season.hpp"
+#include "wetfront/site/season_files.hpp"
+#include "wetfront/site/season_tables.hpp"
 #include "wetfront/site/season_setup.hpp"
 #include "wetfront/site/sensor_check.hpp"
 #include "sensor_report.hpp"
@@ -33,24 +35,6 @@ namespace wetfront::cli {
 
 using namespace wetfront::site;  // the application library these commands drive
 namespace {
-
-std::filesystem::path default_output(const std::filesystem::path& site_file) {
-  std::filesystem::path out = site_file;
-  out.replace_extension(".h5");
-  return out;
-}
-
-std::filesystem::path visits_csv_path(const std::filesystem::path& run_file) {
-  std::filesystem::path csv = run_file;
-  csv.replace_filename(run_file.stem().string() + "-visits.csv");
-  return csv;
-}
-
-std::filesystem::path sensors_csv_path(const std::filesystem::path& run_file) {
-  std::filesystem::path csv = run_file;
-  csv.replace_filename(run_file.stem().string() + "-sensors.csv");
-  return csv;
-}
 
 // Runs the solver on a worker thread, each profile to `observe`; prints a progress line on stderr
 // once it has taken longer than a second.
@@ -211,10 +195,11 @@ void add_run_command(CLI::App& app) {
   cmd->callback([options] {
     const std::filesystem::path site_file = options->site;
     SiteSetup site = load_site_file(site_file, {options->from, options->to});
-    const std::filesystem::path out =
-        options->out.empty() ? default_output(site_file) : std::filesystem::path(options->out);
+    const SeasonFiles files =
+        options->out.empty() ? default_season_files(site_file) : season_files(std::filesystem::path(options->out));
+    const std::filesystem::path& out = files.run_file;
     // Before any work: the folder, the files read, files of other programs, another writer.
-    const OutputGuard guard({.outputs = {out, visits_csv_path(out), sensors_csv_path(out)},
+    const OutputGuard guard({.outputs = {out, files.visits_csv, files.sensors_csv},
                              .inputs = site_input_files(site),
                              .force = options->force});
     Season season = prepare_season(std::move(site));
@@ -239,16 +224,15 @@ void add_run_command(CLI::App& app) {
     const bool complete = result.complete;
     std::optional<GridCheck> grid;
     if (options->grid_check && complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
-    const bool metrics = write_season_files(result.record, result.sensors, out, visits_csv_path(out),
-                                            sensors_csv_path(out), &*stream);
+    const bool metrics = write_season_files(result.record, result.sensors, files, &*stream);
     const profiles::RunRecord& record = result.record;
     const SensorCheck& sensors = result.sensors;
     if (!options->quiet) {
       fmt::print("{}", season_report(record, season_notes(result.season), &sensors));
       if (grid) fmt::print("{}", grid_check_text(*grid));
       fmt::print("\nRun time {:.2f} s. Wrote {}{} and {}\n", seconds, out.string(),
-                 metrics ? fmt::format(", {}", visits_csv_path(out).string()) : std::string(),
-                 (metrics ? sensors_csv_path(out) : visits_csv_path(out)).string());
+                 metrics ? fmt::format(", {}", files.visits_csv.string()) : std::string(),
+                 (metrics ? files.sensors_csv : files.visits_csv).string());
     }
     if (!complete) {
       const auto& failure = record.run.failure;
@@ -299,15 +283,10 @@ void add_check_command(CLI::App& app) {
   });
 }
 
-// The CSV files `run` wrote beside a run file must carry its run id; after a run stopped between
-// its renames, or a file copied from elsewhere, they do not, and the user is told.
-void report_mismatched_set(const std::filesystem::path& run_file, const profiles::RunRecord& record) {
-  if (record.run_id.empty()) return;  // a run file from before run ids
-  for (const auto& csv : {visits_csv_path(run_file), sensors_csv_path(run_file)}) {
-    std::error_code error;
-    if (!std::filesystem::exists(csv, error)) continue;
-    const std::string id = csv_run_id(csv);
-    if (id == record.run_id) continue;
+// The CSV files `run` wrote beside a run file must carry its run id; the user is told of any that
+// does not.
+void report_foreign_tables(const std::filesystem::path& run_file, const profiles::RunRecord& record) {
+  for (const auto& [csv, id] : foreign_tables(season_files(run_file), record)) {
     fmt::print(stderr,
                "warning: {} does not belong to this run file (run id {}, the run file has {}): a run was stopped "
                "while writing or the files come from different runs; run the site again to make a matching set\n",
@@ -356,7 +335,7 @@ void add_show_command(CLI::App& app) {
       }
     }
     fmt::print("{}", season_report(record, {}, sensors ? &*sensors : nullptr));
-    report_mismatched_set(options->run_file, record);
+    report_foreign_tables(options->run_file, record);
     if (!options->csv.empty()) {
       ReportTable table = visit_balance_table(record, sensors ? &*sensors : nullptr);
       table.run_id = record.run_id;

@@ -1,5 +1,6 @@
-// The sites of `wetfront network`: each site's own files, and the sites run over MPI ranks
-// (rank 0 writes every file; the other ranks send a site's summary and the bytes of its files).
+// The sites of a network: each site's own files, and the sites run over the ranks of a
+// studies::TaskRunner (rank 0 writes every file; the other ranks send a site's summary and the
+// bytes of its files). No MPI here: the runner carries the bytes.
 #pragma once
 
 #include <string>
@@ -9,21 +10,21 @@
 #include "wetfront/site/output_files.hpp"
 #include "wetfront/studies/task_runner.hpp"
 
-namespace wetfront::cli {
+namespace wetfront::site {
 
-// The site's own files, as `wetfront run` writes them: SITE.h5 beside the site file, with
-// SITE-visits.csv and, with sensors, SITE-sensors.csv.
-site::OutputPlan site_outputs(const site::SiteSetup& setup, bool force);
+// The site's own files, as a season run writes them by default (default_season_files): SITE.h5
+// beside the site file, with SITE-visits.csv and, with sensors, SITE-sensors.csv.
+OutputPlan site_outputs(const SiteSetup& setup, bool force);
 
 // check_outputs of site_outputs, one site at a time with the writers (it reads HDF5 files).
-void check_site_outputs(const site::SiteSetup& setup, bool force);
+void check_site_outputs(const SiteSetup& setup, bool force);
 
 // Writes a season's own files (site_outputs), one site at a time (HDF5 is not thread-safe here).
-void write_site_files(const site::SeasonResult& result, bool force);
+void write_site_files(const SeasonResult& result, bool force);
 
 // Reads every input of every site through base::read_input_file, so that rank 0's recording
 // holds them all; a site that cannot be read is left to its run, which reports it.
-void read_network_inputs(const site::NetworkPlan& plan);
+void read_network_inputs(const NetworkPlan& plan);
 
 // One site on any rank: the request is the site's number in the plan and its site file, the
 // result its summary and the bytes of its files (written to a scratch folder of that rank, then
@@ -31,10 +32,10 @@ void read_network_inputs(const site::NetworkPlan& plan);
 studies::TaskHandler network_site_task(const std::string& program_version);
 
 // Rank 0: every site over `ranks`, each site's files written as its result arrives; the same
-// summaries as site::run_network with write_site_files and the output check. Sites that cannot
+// summaries as run_network with write_site_files and the output check. Sites that cannot
 // be loaded or whose files may not be written are run on rank 0, which finds the same failure.
-std::vector<site::NetworkSite> run_network_on_ranks(const site::NetworkPlan& plan, studies::TaskRunner& ranks,
+std::vector<NetworkSite> run_network_on_ranks(const NetworkPlan& plan, studies::TaskRunner& ranks,
                                                     const std::string& program_version, bool force,
-                                                    const site::NetworkProgress& progress);
+                                                    const NetworkProgress& progress);
 
-}  // namespace wetfront::cli
+}  // namespace wetfront::site
