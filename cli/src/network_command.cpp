@@ -7,8 +7,8 @@
 
 #include "command_output.hpp"
 #include "exit_codes.hpp"
-#include "study_ranks.hpp"
 #include "wetfront/base/input_error.hpp"
+#include "wetfront/cluster/run_study.hpp"
 #include "wetfront/site/network.hpp"
 #include "wetfront/site/network_sites.hpp"
 #include "wetfront/site/network_summary.hpp"
@@ -102,7 +102,7 @@ void add_network_command(CLI::App& app, const cluster::Session& session) {
       "Examples:\n  wetfront network examples/network/network.toml\n"
       "  wetfront network --sites a/site.toml b/site.toml --summary plots");
   cmd->callback([options, cmd, &session] {
-    run_study(
+    cluster::run_study(
         session,
         [&] {
           if (!session.leader()) return NetworkPlan{};  // the requests name the site files

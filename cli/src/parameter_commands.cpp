@@ -5,11 +5,12 @@
 #include <fmt/format.h>
 
 #include "wetfront/base/input_error.hpp"
+#include "wetfront/cluster/run_study.hpp"
 #include "parameter_report.hpp"
 #include "progress_line.hpp"
-#include "study_ranks.hpp"
 #include "wetfront/site/output_files.hpp"
 #include "wetfront/site/parameter_study.hpp"
+#include "wetfront/site/parameter_study_tables.hpp"
 #include "wetfront/site/study_output.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
 
@@ -117,7 +118,7 @@ void add_sweep_command(CLI::App& app, const cluster::Session& session) {
       "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
       "Example:\n  wetfront sweep examples/demo/site.toml --grid");
   cmd->callback([o, &session] {
-    run_study(
+    cluster::run_study(
         session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
         [&](const SeasonModel& model, studies::TaskRunner* ranks) { sweep(*o, model, ranks); });
   });
@@ -177,7 +178,7 @@ void add_calibrate_command(CLI::App& app, const cluster::Session& session) {
       "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
       "Example:\n  wetfront calibrate examples/demo/site.toml");
   cmd->callback([o, &session] {
-    run_study(
+    cluster::run_study(
         session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
         [&](const SeasonModel& model, studies::TaskRunner* ranks) { calibrate(*o, model, ranks); });
   });

@@ -12,7 +12,7 @@
 #include "wetfront/site/adjustable_parameters.hpp"
 #include "command_output.hpp"
 #include "exit_codes.hpp"
-#include "run_file_probe.hpp"
+#include "wetfront/site/run_file_probe.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
 #include "wetfront/site/report_table.hpp"
