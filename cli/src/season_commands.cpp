@@ -12,7 +12,6 @@
 #include "wetfront/site/adjustable_parameters.hpp"
 #include "command_output.hpp"
 #include "exit_codes.hpp"
-#include "wetfront/site/run_file_probe.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
 #include "wetfront/site/report_table.hpp"
@@ -204,27 +203,22 @@ void add_run_command(CLI::App& app) {
                              .force = options->force});
     Season season = prepare_season(std::move(site));
     const SiteSetup site_setup = season.site;
+    const std::string label = fmt::format("{} to {}", site_setup.run_start_text, site_setup.run_end_text);
     const auto started = std::chrono::steady_clock::now();
-    // The profiles go to the run file's temporary name as the run reaches them.
-    std::optional<profiles::RunFileStream> stream;
-    std::optional<SeasonResult> streamed;
-    try {
-      stream.emplace(out, site_setup.run_start_text, season.problem.grid.cell_depths_cm(),
-                     season.problem.grid.face_depths_cm());
-      const std::string label = fmt::format("{} to {}", site_setup.run_start_text, site_setup.run_end_text);
-      streamed = run_season_streamed(std::move(season), *stream, WETFRONT_VERSION,
-                                     [&](const solver::ColumnProblem& problem, const solver::OutputObserver& observe) {
-                                       return simulate_with_progress(problem, observe, options->quiet, label);
-                                     });
-    } catch (const profiles::RunFileError& error) {
-      throw base::InputError(error.what());
-    }
-    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
-    SeasonResult& result = *streamed;
-    const bool complete = result.complete;
+    double seconds = 0;
     std::optional<GridCheck> grid;
-    if (options->grid_check && complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
-    const bool metrics = write_season_files(result.record, result.sensors, files, &*stream);
+    const WrittenSeason written = run_season_to_files(
+        std::move(season), files, WETFRONT_VERSION,
+        [&](const solver::ColumnProblem& problem, const solver::OutputObserver& observe) {
+          return simulate_with_progress(problem, observe, options->quiet, label);
+        },
+        [&](const SeasonResult& result) {
+          seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+          if (options->grid_check && result.complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
+        });
+    const SeasonResult& result = written.result;
+    const bool complete = result.complete;
+    const bool metrics = written.sensor_table;
     const profiles::RunRecord& record = result.record;
     const SensorCheck& sensors = result.sensors;
     if (!options->quiet) {
@@ -316,17 +310,7 @@ void add_show_command(CLI::App& app) {
       throw base::InputError(options->csv, 0, "", "--csv and --sensors-csv name the same file; give two names");
     const OutputGuard guard(
         {.outputs = {options->csv, options->sensors_csv}, .inputs = {options->run_file}, .force = options->force});
-    profiles::RunRecord record;
-    try {
-      probe_run_file(options->run_file);
-      record = profiles::read_run(options->run_file, profiles::ProfileReading::leave_out);
-    } catch (const profiles::RunFileError& error) {
-      throw base::InputError(error.what());
-    }
-    std::optional<SensorCheck> sensors;
-    if (record.sensor_comparison || record.darcy_estimate || record.water_table_estimate || record.stored_water) {
-      sensors = check_from_record(record);
-    }
+    const auto [record, sensors] = read_stored_run(options->run_file);
     if (!options->sensors_csv.empty()) {
       if (!sensors || (sensors->sensors.empty() && sensors->pooled.empty())) {
         throw base::InputError(

@@ -3,6 +3,7 @@
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/site/output_files.hpp"
+#include "wetfront/site/run_file_probe.hpp"
 #include "wetfront/site/season_tables.hpp"
 
 namespace wetfront::site {
@@ -60,6 +61,38 @@ std::vector<ForeignTable> foreign_tables(const SeasonFiles& files, const profile
     if (id != record.run_id) foreign.push_back({csv, std::move(id)});
   }
   return foreign;
+}
+
+WrittenSeason run_season_to_files(Season season, const SeasonFiles& files, const std::string& program_version,
+                                  const SimulateStreamed& simulate,
+                                  const std::function<void(const SeasonResult&)>& before_writing) {
+  std::optional<profiles::RunFileStream> stream;
+  std::optional<SeasonResult> result;
+  try {
+    stream.emplace(files.run_file, season.site.run_start_text, season.problem.grid.cell_depths_cm(),
+                   season.problem.grid.face_depths_cm());
+    result = run_season_streamed(std::move(season), *stream, program_version, simulate);
+  } catch (const profiles::RunFileError& error) {
+    throw base::InputError(error.what());
+  }
+  if (before_writing) before_writing(*result);
+  const bool sensor_table = write_season_files(result->record, result->sensors, files, &*stream);
+  return {std::move(*result), sensor_table};
+}
+
+StoredRun read_stored_run(const std::filesystem::path& run_file) {
+  StoredRun stored;
+  try {
+    probe_run_file(run_file);
+    stored.record = profiles::read_run(run_file, profiles::ProfileReading::leave_out);
+  } catch (const profiles::RunFileError& error) {
+    throw base::InputError(error.what());
+  }
+  const profiles::RunRecord& r = stored.record;
+  if (r.sensor_comparison || r.darcy_estimate || r.water_table_estimate || r.stored_water) {
+    stored.sensors = check_from_record(r);
+  }
+  return stored;
 }
 
 }  // namespace wetfront::site

@@ -4,11 +4,14 @@
 #pragma once
 
 #include <filesystem>
+#include <functional>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "wetfront/profiles/run_file_stream.hpp"
 #include "wetfront/profiles/run_record.hpp"
+#include "wetfront/site/run_season.hpp"
 #include "wetfront/site/sensor_check.hpp"
 
 namespace wetfront::site {
@@ -44,5 +47,25 @@ struct ForeignTable {
 // The existing tables of `files` that do not belong to `record`; none for a run file from before
 // run ids.
 std::vector<ForeignTable> foreign_tables(const SeasonFiles& files, const profiles::RunRecord& record);
+
+// A season whose profiles go to the run file's temporary name as the run reaches them; then
+// `before_writing` (e.g. a grid check of the result), then the whole set (write_season_files).
+// Throws base::InputError naming a file that cannot be written.
+struct WrittenSeason {
+  SeasonResult result;
+  bool sensor_table = false;  // whether NAME-sensors.csv was written
+};
+WrittenSeason run_season_to_files(Season season, const SeasonFiles& files, const std::string& program_version,
+                                  const SimulateStreamed& simulate,
+                                  const std::function<void(const SeasonResult&)>& before_writing = {});
+
+// A finished run back from its run file, read first in a child process (probe_run_file): the
+// record without its profiles and, where it holds field checks, the sensor check. Throws
+// base::InputError naming a damaged or unreadable file.
+struct StoredRun {
+  profiles::RunRecord record;
+  std::optional<SensorCheck> sensors;
+};
+StoredRun read_stored_run(const std::filesystem::path& run_file);
 
 }  // namespace wetfront::site
