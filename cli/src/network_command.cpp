@@ -51,15 +51,11 @@ void run_network_command(const NetworkOptions& options, const CLI::App& cmd, con
                std::min<std::size_t>(workers, plan.site_files.size()), ranks ? "ranks" : "threads");
   const bool quiet = options.quiet;
   const std::size_t total = plan.site_files.size();
-  const bool force = options.force;
   const auto progress = [quiet, total](std::size_t done, const NetworkSite& s) {
     if (!quiet) fmt::print(stderr, "wetfront: [{}/{}] {}: {}\n", done, total, s.name, status_text(s.status));
   };
   const std::vector<NetworkSite> results =
-      ranks ? run_network_on_ranks(plan, *ranks, WETFRONT_VERSION, force, progress)
-            : run_network(
-                  plan, workers, WETFRONT_VERSION, [force](const SeasonResult& r) { write_site_files(r, force); },
-                  progress, [force](const SiteSetup& setup) { check_site_outputs(setup, force); });
+      run_network_with_files(plan, ranks, workers, WETFRONT_VERSION, options.force, progress);
   const NetworkSummary summary = write_network_summary(files, plan, results, WETFRONT_VERSION);
   std::size_t failed = 0;
   for (const auto& s : results) {

@@ -169,4 +169,13 @@ std::vector<NetworkSite> run_network_on_ranks(const NetworkPlan& plan, studies::
   return sites;
 }
 
+std::vector<NetworkSite> run_network_with_files(const NetworkPlan& plan, studies::TaskRunner* ranks, unsigned threads,
+                                                const std::string& program_version, bool force,
+                                                const NetworkProgress& progress) {
+  if (ranks) return run_network_on_ranks(plan, *ranks, program_version, force, progress);
+  return run_network(
+      plan, threads, program_version, [force](const SeasonResult& r) { write_site_files(r, force); }, progress,
+      [force](const SiteSetup& setup) { check_site_outputs(setup, force); });
+}
+
 }  // namespace wetfront::site

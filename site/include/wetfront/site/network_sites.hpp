@@ -38,4 +38,10 @@ std::vector<NetworkSite> run_network_on_ranks(const NetworkPlan& plan, studies::
                                                     const std::string& program_version, bool force,
                                                     const NetworkProgress& progress);
 
+// Every site of the plan with its own files checked before its run and written after it: over
+// `ranks` when given (run_network_on_ranks), else on `threads` threads (run_network).
+std::vector<NetworkSite> run_network_with_files(const NetworkPlan& plan, studies::TaskRunner* ranks, unsigned threads,
+                                                const std::string& program_version, bool force,
+                                                const NetworkProgress& progress);
+
 }  // namespace wetfront::site
