@@ -19,12 +19,6 @@ namespace wetfront::cli {
 using namespace wetfront::site;  // the application library these commands drive
 namespace {
 
-std::filesystem::path sibling(const std::filesystem::path& site_file, const std::string& suffix) {
-  std::filesystem::path out = site_file;
-  out.replace_filename(site_file.stem().string() + suffix);
-  return out;
-}
-
 struct CommonOptions {
   std::string site;
   std::string out;
@@ -67,8 +61,8 @@ SeasonModel load_model(const CommonOptions& o) {
 template <class Run, class Table, class Write, class Report>
 void run_study_command(const CommonOptions& o, const SeasonModel& model, const std::string& suffix, bool at_most,
                        Run run, Table table_of, Write write, Report report) {
-  const std::filesystem::path out = o.out.empty() ? sibling(o.site, suffix) : std::filesystem::path(o.out);
-  const std::filesystem::path csv = sibling(out, ".csv");
+  const std::filesystem::path out = o.out.empty() ? beside(o.site, suffix) : std::filesystem::path(o.out);
+  const std::filesystem::path csv = beside(out, ".csv");
   const OutputGuard guard({.outputs = {out, csv}, .inputs = site_input_files(model.site()), .force = o.force});
   ProgressLine progress(o.quiet);
   decltype(run(StudyProgress())) result;
@@ -86,6 +80,23 @@ void run_study_command(const CommonOptions& o, const SeasonModel& model, const s
     fmt::print("{}", report(result, seconds));
     fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
   }
+}
+
+// The footer (what the command writes, the exit codes, an example) and the callback of a study
+// command: the model loaded on every rank, `study` run by the leader (cluster::run_study).
+template <class Options>
+void finish_study_command(CLI::App* cmd, const cluster::Session& session, std::shared_ptr<Options> o,
+                          void (*study)(const Options&, const SeasonModel&, studies::TaskRunner*),
+                          const std::string& writes, const std::string& example) {
+  cmd->footer(writes +
+              "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
+              "Example:\n  " +
+              example);
+  cmd->callback([o, &session, study] {
+    cluster::run_study(
+        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
+        [&](const SeasonModel& model, studies::TaskRunner* ranks) { study(*o, model, ranks); });
+  });
 }
 
 struct SweepOptions : CommonOptions {
@@ -123,16 +134,10 @@ void add_sweep_command(CLI::App& app, const cluster::Session& session) {
       ->check(CLI::Range(1, 100000));
   cmd->add_option("--show", o->shown, "rows of the ranked table to print (default 10; the CSV has all)");
   cmd->add_option("--keep", o->kept, "profiles of this many best runs go into the HDF5 file (default 3)");
-  cmd->footer(
-      "Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
-      "Under mpirun the runs are spread over the ranks (docs/many-machines.md).\n"
-      "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
-      "Example:\n  wetfront sweep examples/demo/site.toml --grid");
-  cmd->callback([o, &session] {
-    cluster::run_study(
-        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
-        [&](const SeasonModel& model, studies::TaskRunner* ranks) { sweep(*o, model, ranks); });
-  });
+  finish_study_command(cmd, session, o, sweep,
+                       "Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
+                       "Under mpirun the runs are spread over the ranks (docs/many-machines.md).\n",
+                       "wetfront sweep examples/demo/site.toml --grid");
 }
 
 struct CalibrateOptions : CommonOptions {
@@ -176,16 +181,10 @@ void add_calibrate_command(CLI::App& app, const cluster::Session& session) {
       ->check(CLI::Range(4, 100000));
   cmd->add_option("--band-runs", o->band_runs,
                   "parameter sets drawn for the sampled recharge band (default 40; 0: none)");
-  cmd->footer(
-      "Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
-      "Under mpirun each batch of runs is spread over the ranks (docs/many-machines.md).\n"
-      "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
-      "Example:\n  wetfront calibrate examples/demo/site.toml");
-  cmd->callback([o, &session] {
-    cluster::run_study(
-        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
-        [&](const SeasonModel& model, studies::TaskRunner* ranks) { calibrate(*o, model, ranks); });
-  });
+  finish_study_command(cmd, session, o, calibrate,
+                       "Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
+                       "Under mpirun each batch of runs is spread over the ranks (docs/many-machines.md).\n",
+                       "wetfront calibrate examples/demo/site.toml");
 }
 
 }  // namespace

@@ -10,19 +10,13 @@
 namespace wetfront::site {
 namespace {
 
-std::filesystem::path with_suffix(const std::filesystem::path& base, const std::string& suffix) {
-  std::filesystem::path out = base;
-  out.replace_filename(base.filename().string() + suffix);
-  return out;
-}
-
 std::string mm_or_blank(const std::optional<double>& cm) { return cm ? mm(*cm) : std::string(); }
 
 }  // namespace
 
 NetworkSummaryFiles network_summary_files(const NetworkPlan& plan) {
-  return {with_suffix(plan.summary, ".h5"), with_suffix(plan.summary, "-sites.csv"),
-          with_suffix(plan.summary, "-intervals.csv")};
+  const std::string summary = plan.summary.string();
+  return {summary + ".h5", summary + "-sites.csv", summary + "-intervals.csv"};
 }
 
 ReportTable sites_table(const std::vector<NetworkSite>& sites) {

@@ -7,15 +7,6 @@
 #include "wetfront/site/season_tables.hpp"
 
 namespace wetfront::site {
-namespace {
-
-std::filesystem::path beside(const std::filesystem::path& run_file, const std::string& suffix) {
-  std::filesystem::path csv = run_file;
-  csv.replace_filename(run_file.stem().string() + suffix);
-  return csv;
-}
-
-}  // namespace
 
 SeasonFiles season_files(const std::filesystem::path& run_file) {
   return {run_file, beside(run_file, "-visits.csv"), beside(run_file, "-sensors.csv")};
