@@ -52,6 +52,17 @@ void expect_same_optional(const std::optional<T>& a, const std::optional<T>& b, 
   if (a) compare(*a, *b);
 }
 
+// The same number of elements, alike pairwise (`compare` checks their fields), each traced as
+// "label i".
+template <class T, class Compare>
+void expect_same_each(const std::vector<T>& a, const std::vector<T>& b, const char* label, Compare compare) {
+  ASSERT_EQ(a.size(), b.size()) << label;
+  for (std::size_t i = 0; i < a.size(); ++i) {
+    SCOPED_TRACE(::testing::Message() << label << " " << i);
+    compare(a[i], b[i]);
+  }
+}
+
 // The per-interval columns every recharge estimate has.
 template <class Estimate>
 void expect_same_agreement(const Estimate& x, const Estimate& y) {
@@ -70,16 +81,8 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
   const solver::ColumnRun& rb = b.run;
   EXPECT_EQ(ra.cell_depths_cm, rb.cell_depths_cm);
   EXPECT_EQ(ra.face_depths_cm, rb.face_depths_cm);
-  ASSERT_EQ(ra.profiles.size(), rb.profiles.size());
-  for (std::size_t i = 0; i < ra.profiles.size(); ++i) {
-    SCOPED_TRACE(::testing::Message() << "profile " << i);
-    expect_same_snapshot(ra.profiles[i], rb.profiles[i]);
-  }
-  ASSERT_EQ(ra.balances.size(), rb.balances.size());
-  for (std::size_t i = 0; i < ra.balances.size(); ++i) {
-    SCOPED_TRACE(::testing::Message() << "balance row " << i);
-    expect_same_balance(ra.balances[i], rb.balances[i]);
-  }
+  expect_same_each(ra.profiles, rb.profiles, "profile", expect_same_snapshot);
+  expect_same_each(ra.balances, rb.balances, "balance row", expect_same_balance);
   EXPECT_EQ(ra.statistics.steps, rb.statistics.steps);
   EXPECT_EQ(ra.statistics.residual_evaluations, rb.statistics.residual_evaluations);
   EXPECT_EQ(ra.statistics.jacobian_evaluations, rb.statistics.jacobian_evaluations);
@@ -96,35 +99,29 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
     EXPECT_EQ(ra.failure->reason, rb.failure->reason);
   }
 
-  ASSERT_EQ(a.layers.size(), b.layers.size());
-  for (std::size_t i = 0; i < a.layers.size(); ++i) {
-    SCOPED_TRACE(::testing::Message() << "layer " << i);
-    EXPECT_EQ(a.layers[i].name, b.layers[i].name);
-    EXPECT_EQ(a.layers[i].top_depth_cm, b.layers[i].top_depth_cm);
-    EXPECT_EQ(a.layers[i].bottom_depth_cm, b.layers[i].bottom_depth_cm);
-    EXPECT_EQ(a.layers[i].model_name, b.layers[i].model_name);
-    ASSERT_EQ(a.layers[i].parameters.size(), b.layers[i].parameters.size());
-    for (std::size_t p = 0; p < a.layers[i].parameters.size(); ++p) {
-      EXPECT_EQ(a.layers[i].parameters[p].name, b.layers[i].parameters[p].name);
-      EXPECT_EQ(a.layers[i].parameters[p].value, b.layers[i].parameters[p].value);
-      EXPECT_EQ(a.layers[i].parameters[p].unit, b.layers[i].parameters[p].unit);
-    }
-  }
-  ASSERT_EQ(a.sensors.size(), b.sensors.size());
-  for (std::size_t i = 0; i < a.sensors.size(); ++i) {
-    EXPECT_EQ(a.sensors[i].name, b.sensors[i].name);
-    EXPECT_EQ(a.sensors[i].depth_cm, b.sensors[i].depth_cm);
-  }
+  expect_same_each(a.layers, b.layers, "layer", [](const auto& x, const auto& y) {
+    EXPECT_EQ(x.name, y.name);
+    EXPECT_EQ(x.top_depth_cm, y.top_depth_cm);
+    EXPECT_EQ(x.bottom_depth_cm, y.bottom_depth_cm);
+    EXPECT_EQ(x.model_name, y.model_name);
+    expect_same_each(x.parameters, y.parameters, "parameter", [](const auto& p, const auto& q) {
+      EXPECT_EQ(p.name, q.name);
+      EXPECT_EQ(p.value, q.value);
+      EXPECT_EQ(p.unit, q.unit);
+    });
+  });
+  expect_same_each(a.sensors, b.sensors, "sensor", [](const auto& x, const auto& y) {
+    EXPECT_EQ(x.name, y.name);
+    EXPECT_EQ(x.depth_cm, y.depth_cm);
+  });
   EXPECT_EQ(a.flux_plane_depths_cm, b.flux_plane_depths_cm);
-  ASSERT_EQ(a.forcing.size(), b.forcing.size());
-  for (std::size_t i = 0; i < a.forcing.size(); ++i) {
-    SCOPED_TRACE(::testing::Message() << "forcing interval " << i);
-    EXPECT_EQ(a.forcing[i].start_day, b.forcing[i].start_day);
-    EXPECT_EQ(a.forcing[i].end_day, b.forcing[i].end_day);
-    EXPECT_EQ(a.forcing[i].water_input_cm_per_d, b.forcing[i].water_input_cm_per_d);
-    EXPECT_EQ(a.forcing[i].potential_evaporation_cm_per_d, b.forcing[i].potential_evaporation_cm_per_d);
-    EXPECT_EQ(a.forcing[i].potential_transpiration_cm_per_d, b.forcing[i].potential_transpiration_cm_per_d);
-  }
+  expect_same_each(a.forcing, b.forcing, "forcing interval", [](const auto& x, const auto& y) {
+    EXPECT_EQ(x.start_day, y.start_day);
+    EXPECT_EQ(x.end_day, y.end_day);
+    EXPECT_EQ(x.water_input_cm_per_d, y.water_input_cm_per_d);
+    EXPECT_EQ(x.potential_evaporation_cm_per_d, y.potential_evaporation_cm_per_d);
+    EXPECT_EQ(x.potential_transpiration_cm_per_d, y.potential_transpiration_cm_per_d);
+  });
   EXPECT_EQ(a.visit_days, b.visit_days);
   EXPECT_EQ(a.visit_balance, b.visit_balance);
   ASSERT_EQ(a.sensor_comparison.has_value(), b.sensor_comparison.has_value());
@@ -132,24 +129,17 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
     // NaN: an undefined metric or a reading outside the run.
     const auto& ca = *a.sensor_comparison;
     const auto& cb = *b.sensor_comparison;
-    for (const auto* lists : {&ca.pressure_head, &ca.water_content}) {
-      const auto& other = lists == &ca.pressure_head ? cb.pressure_head : cb.water_content;
-      ASSERT_EQ(lists->size(), other.size());
-      for (std::size_t i = 0; i < other.size(); ++i) {
-        const auto& x = (*lists)[i];
-        const auto& y = other[i];
-        EXPECT_EQ(x.sensor, y.sensor);
-        EXPECT_EQ(x.time_days, y.time_days);
-        EXPECT_EQ(x.depth_cm, y.depth_cm);
-        EXPECT_EQ(x.observed, y.observed);
-        EXPECT_TRUE(same_value(x.simulated, y.simulated)) << x.simulated << " " << y.simulated;
-        EXPECT_EQ(x.used, y.used);
-      }
-    }
-    ASSERT_EQ(ca.metrics.size(), cb.metrics.size());
-    for (std::size_t i = 0; i < ca.metrics.size(); ++i) {
-      const auto& x = ca.metrics[i];
-      const auto& y = cb.metrics[i];
+    const auto same_reading = [](const auto& x, const auto& y) {
+      EXPECT_EQ(x.sensor, y.sensor);
+      EXPECT_EQ(x.time_days, y.time_days);
+      EXPECT_EQ(x.depth_cm, y.depth_cm);
+      EXPECT_EQ(x.observed, y.observed);
+      EXPECT_TRUE(same_value(x.simulated, y.simulated)) << x.simulated << " " << y.simulated;
+      EXPECT_EQ(x.used, y.used);
+    };
+    expect_same_each(ca.pressure_head, cb.pressure_head, "head reading", same_reading);
+    expect_same_each(ca.water_content, cb.water_content, "water content reading", same_reading);
+    expect_same_each(ca.metrics, cb.metrics, "metrics", [](const auto& x, const auto& y) {
       EXPECT_EQ(x.name, y.name);
       EXPECT_EQ(x.quantity, y.quantity);
       EXPECT_EQ(x.unit, y.unit);
@@ -161,7 +151,7 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
       EXPECT_TRUE(same_value(x.root_mean_square_error, y.root_mean_square_error));
       EXPECT_TRUE(same_value(x.nash_sutcliffe, y.nash_sutcliffe));
       EXPECT_TRUE(same_value(x.kling_gupta, y.kling_gupta));
-    }
+    });
   }
   // The field checks, NaN equal to NaN.
   expect_same_optional(a.darcy_estimate, b.darcy_estimate, [](const auto& x, const auto& y) {
