@@ -42,6 +42,10 @@ class ScratchNetwork {
   ScratchNetwork& operator=(const ScratchNetwork&) = delete;
   const fs::path& folder() const { return folder_; }
   fs::path network_file() const { return folder_ / "network.toml"; }
+  // `wetfront network` on the network file, in the folder.
+  testing::ProgramResult run() const {
+    return testing::run_program("network '" + network_file().string() + "'", folder_);
+  }
 
  private:
   fs::path folder_;
@@ -70,7 +74,7 @@ TEST(Network, DemoNetworkRunsThreeSites) {
 TEST(Network, BrokenSiteIsReportedAndTheOthersFinish) {
   const ScratchNetwork network;
   write_text(network.folder() / "plot-b.toml", "[site\nname = broken\n");
-  const auto result = testing::run_program("network \"" + network.network_file().string() + "\"", network.folder());
+  const auto result = network.run();
   EXPECT_EQ(result.exit_code, 4) << result.err;
   EXPECT_NE(result.err.find("plot-b.toml"), std::string::npos) << result.err;
   EXPECT_TRUE(fs::exists(network.folder() / "plot-a.h5"));
@@ -159,7 +163,7 @@ TEST(Network, SolverFailureIsReportedAndTheOthersFinish) {
 TEST(Network, FileOfAnotherProgramIsNotReplaced) {
   const ScratchNetwork network;
   write_text(network.folder() / "plot-b-visits.csv", "kept as it is\n");
-  const auto result = testing::run_program("network '" + network.network_file().string() + "'", network.folder());
+  const auto result = network.run();
   EXPECT_EQ(result.exit_code, 4) << result.err;
   EXPECT_NE(result.err.find("plot-b-visits.csv"), std::string::npos) << result.err;
   EXPECT_EQ(read_text(network.folder() / "plot-b-visits.csv"), "kept as it is\n");
