@@ -164,14 +164,20 @@ std::string grid_check_text(const GridCheck& check) {
   return out;
 }
 
+// What `run` and `check` read: the site file, the period (--from, --to) and whether to check the grid.
+struct SeasonOptions {
+  std::string site;
+  std::string from;
+  std::string to;
+  bool grid_check = false;
+};
+
+SiteSetup load_site(const SeasonOptions& o) { return load_site_file(o.site, {o.from, o.to}); }
+
 void add_run_command(CLI::App& app) {
-  struct Options {
-    std::string site;
+  struct Options : SeasonOptions {
     std::string out;
-    std::string from;
-    std::string to;
     bool quiet = false;
-    bool grid_check = false;
     bool force = false;
   };
   auto options = std::make_shared<Options>();
@@ -193,7 +199,7 @@ void add_run_command(CLI::App& app) {
       "Example:\n  wetfront run examples/demo/site.toml --out season.h5");
   cmd->callback([options] {
     const std::filesystem::path site_file = options->site;
-    SiteSetup site = load_site_file(site_file, {options->from, options->to});
+    SiteSetup site = load_site(*options);
     const SeasonFiles files =
         options->out.empty() ? default_season_files(site_file) : season_files(std::filesystem::path(options->out));
     const std::filesystem::path& out = files.run_file;
@@ -241,13 +247,7 @@ void add_run_command(CLI::App& app) {
 }
 
 void add_check_command(CLI::App& app) {
-  struct Options {
-    std::string site;
-    std::string from;
-    std::string to;
-    bool grid_check = false;
-  };
-  auto options = std::make_shared<Options>();
+  auto options = std::make_shared<SeasonOptions>();
   CLI::App* cmd = app.add_subcommand(
       "check", "Check a site file and its field records, and print the resolved setup without running");
   cmd->add_option("SITE", options->site, "site file (TOML); see docs/site-file.md")->required();
@@ -260,7 +260,7 @@ void add_check_command(CLI::App& app) {
       "Exit codes: 0 the site is usable, 1 it is not (the message names the file, line and key).\n"
       "Example:\n  wetfront check examples/demo/site.toml");
   cmd->callback([options] {
-    const Season season = prepare_season(load_site_file(options->site, {options->from, options->to}));
+    const Season season = prepare_season(load_site(*options));
     const ParameterStudy study = load_parameter_study(season.site);
     fmt::print("{}", resolved_setup(season));
     if (!study.parameters.empty()) fmt::print("{}", parameters_text(study));
