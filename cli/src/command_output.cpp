@@ -4,7 +4,6 @@
 
 #include <fmt/format.h>
 
-
 namespace wetfront::cli {
 
 using namespace wetfront::site;  // the application library these commands drive

@@ -40,7 +40,8 @@ NetworkPlan network_plan(const NetworkOptions& options) {
 }
 
 // The network of a loaded plan; `ranks` runs the sites (null: this machine's threads).
-void run_network_command(const NetworkOptions& options, const CLI::App& cmd, const NetworkPlan& plan, studies::TaskRunner* ranks) {
+void run_network_command(const NetworkOptions& options, const CLI::App& cmd, const NetworkPlan& plan,
+                         studies::TaskRunner* ranks) {
   const NetworkSummaryFiles files = network_summary_files(plan);
   // Before any run: the summary's folder, the files read, files of other programs, another writer.
   const auto guard =

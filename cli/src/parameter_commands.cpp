@@ -169,7 +169,9 @@ void calibrate(const CalibrateOptions& o, const SeasonModel& model, studies::Tas
       [&](const std::filesystem::path& out, const CalibrationStudy& study, const std::string& run_id) {
         write_calibration_file(out, model, study, WETFRONT_VERSION, run_id);
       },
-      [&](const CalibrationStudy& study, double seconds) { return calibration_report(model, study, seconds, workers); });
+      [&](const CalibrationStudy& study, double seconds) {
+        return calibration_report(model, study, seconds, workers);
+      });
 }
 
 void add_calibrate_command(CLI::App& app, const cluster::Session& session) {

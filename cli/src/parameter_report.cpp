@@ -117,7 +117,8 @@ std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std
     out += fmt::format(
         "\nSeason recharge: {} to {} mm over the best {} set(s) (the best tenth); {} to {} mm over all {} complete "
         "sets.\n",
-        mm_hundredths(*low_best), mm_hundredths(*high_best), tenth, mm_hundredths(*low_all), mm_hundredths(*high_all), complete_recharge.size());
+        mm_hundredths(*low_best), mm_hundredths(*high_best), tenth, mm_hundredths(*low_all), mm_hundredths(*high_all),
+        complete_recharge.size());
   }
   if (failed > 0)
     out += fmt::format("{} run(s) did not finish; they are ranked last with the reason in the CSV.\n", failed);
@@ -178,14 +179,12 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   if (contents)
     residuals.headers.insert(residuals.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
   for (const auto* run : {&study.before, &study.after}) {
-    std::vector<std::string> row{run == &study.before ? "at start" : "calibrated",
-                                 number(run->objective, 5),
-                                 metric_text(run->heads.root_mean_square_error),
-                                 metric_text(run->heads.bias),
-                                 metric_text(run->heads.nash_sutcliffe),
-                                 metric_text(run->heads.kling_gupta)};
+    std::vector<std::string> row{run == &study.before ? "at start" : "calibrated", number(run->objective, 5),
+                                 metric_text(run->heads.root_mean_square_error),   metric_text(run->heads.bias),
+                                 metric_text(run->heads.nash_sutcliffe),           metric_text(run->heads.kling_gupta)};
     if (contents && run->water_contents)
-      row.insert(row.end(), {metric_text(run->water_contents->root_mean_square_error), metric_text(run->water_contents->bias)});
+      row.insert(row.end(),
+                 {metric_text(run->water_contents->root_mean_square_error), metric_text(run->water_contents->bias)});
     residuals.add_row(std::move(row));
   }
   out += "\n" + format_table(residuals);

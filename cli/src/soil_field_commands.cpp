@@ -54,10 +54,10 @@ void add_permeameter_command(CLI::App& soil) {
       "Field-saturated conductivity from constant-head well permeameter readings at one or two water depths");
   add_required_options(
       *cmd, {{"FILE", &options->inputs.file,
-               "CSV with columns 'water depth [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)"},
-              {"--well-radius", &options->inputs.well_radius, "radius of the auger hole, with unit (e.g. \"3 cm\")"},
-              {"--reservoir-area", &options->inputs.reservoir_area,
-               "inner cross-section of the reservoir the levels are read on, with unit (e.g. \"35.4 cm2\")"}});
+              "CSV with columns 'water depth [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)"},
+             {"--well-radius", &options->inputs.well_radius, "radius of the auger hole, with unit (e.g. \"3 cm\")"},
+             {"--reservoir-area", &options->inputs.reservoir_area,
+              "inner cross-section of the reservoir the levels are read on, with unit (e.g. \"35.4 cm2\")"}});
   cmd->add_option("--soil", options->inputs.soil_category,
                   "soil category for alpha* and the shape factor: compacted-clay, fine-unstructured, structured, "
                   "coarse-sand, highly-structured")
@@ -82,10 +82,10 @@ void add_infiltrometer_command(CLI::App& soil) {
       "Conductivity near saturation from tension disc infiltrometer readings at two or more supply heads");
   add_required_options(
       *cmd, {{"FILE", &options->inputs.file,
-               "CSV with columns 'supply head [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)"},
-              {"--disc-radius", &options->inputs.disc_radius, "radius of the disc membrane, with unit (e.g. \"10 cm\")"},
-              {"--tower-area", &options->inputs.tower_area,
-               "inner cross-section of the water tower the levels are read on, with unit (e.g. \"19.6 cm2\")"}});
+              "CSV with columns 'supply head [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)"},
+             {"--disc-radius", &options->inputs.disc_radius, "radius of the disc membrane, with unit (e.g. \"10 cm\")"},
+             {"--tower-area", &options->inputs.tower_area,
+              "inner cross-section of the water tower the levels are read on, with unit (e.g. \"19.6 cm2\")"}});
   add_steadiness_options(*cmd, options->inputs.tolerances);
   finish_table_command(cmd, options->csv_path, options->force, "also write the conductivity table to this CSV file",
                        "Example:\n"

@@ -48,7 +48,8 @@ void add_layer_command(CLI::App& soil) {
   cmd->add_option("--top", o->inputs.top, "depth of the layer top, with unit (e.g. \"0 cm\")")->required();
   cmd->add_option("--bottom", o->inputs.bottom, "depth of the layer bottom, with unit (e.g. \"30 cm\")")->required();
   auto* retention = cmd->add_option_group("retention", "where theta_r, theta_s, alpha and n come from");
-  retention->add_option("--retention", o->inputs.retention.points_file, "retention points CSV (as `wetfront soil retention`)");
+  retention->add_option("--retention", o->inputs.retention.points_file,
+                        "retention points CSV (as `wetfront soil retention`)");
   retention->add_option("--cores", o->inputs.retention.cores_file, "ring samples CSV, with --steps");
   retention->add_option("--steps", o->inputs.retention.steps_file, "suction steps CSV, with --cores");
   retention->add_option("--sample", o->inputs.retention.sample, "use this sample only");

@@ -15,11 +15,9 @@ void add_texture_command(CLI::App& soil) {
   CLI::App* cmd = soil.add_subcommand(
       "texture", "Class-average van Genuchten-Mualem parameters of a USDA texture class (Carsel & Parrish 1988)");
   cmd->add_option("NAME", options->inputs, "texture class, e.g. \"sandy loam\"; all classes when left out");
-  finish_table_command(
-      cmd, options->csv_path, options->force, "also write the table to this CSV file",
-      "Examples:\n  wetfront soil texture \"silt loam\"\n  wetfront soil texture --csv classes.csv", [options] {
-        emit_report({texture_table(options->inputs)}, {}, options->csv_path);
-      });
+  finish_table_command(cmd, options->csv_path, options->force, "also write the table to this CSV file",
+                       "Examples:\n  wetfront soil texture \"silt loam\"\n  wetfront soil texture --csv classes.csv",
+                       [options] { emit_report({texture_table(options->inputs)}, {}, options->csv_path); });
 }
 
 }  // namespace wetfront::cli

@@ -28,7 +28,8 @@ void check_calendar(const CropCalendar& calendar, const char* who) {
   length(s.late_season_days, "late season");
   if (!(s.season_days() > 0))
     throw base::InputError(fmt::format("{}: the four stages add up to zero days; expected a season", who));
-  if (!std::isfinite(calendar.planting_day)) throw base::InputError(fmt::format("{}: planting day must be finite", who));
+  if (!std::isfinite(calendar.planting_day))
+    throw base::InputError(fmt::format("{}: planting day must be finite", who));
 }
 
 struct NamedCoefficient {
@@ -68,7 +69,9 @@ GrowthStage growth_stage_at(double planting_day, const GrowthStageLengths& s, do
 
 void check_crop_curve(const CropCoefficientCurve& c) {
   check_curve(c, "crop coefficient curve",
-              {{c.kc_initial, "Kc initial"}, {c.kc_mid, "Kc mid-season"}, {c.kc_end, "Kc end of season"},
+              {{c.kc_initial, "Kc initial"},
+               {c.kc_mid, "Kc mid-season"},
+               {c.kc_end, "Kc end of season"},
                {c.kc_bare_soil, "bare-soil coefficient"}});
 }
 
@@ -89,8 +92,10 @@ double crop_coefficient_at(const CropCoefficientCurve& c, double day) {
 
 void check_pan_to_crop_factors(const PanToCropFactors& f) {
   check_curve(f, "pan-to-crop factors",
-              {{f.initial, "initial stage factor"}, {f.development, "development stage factor"},
-               {f.mid_season, "mid-season factor"}, {f.late_season, "late season factor"},
+              {{f.initial, "initial stage factor"},
+               {f.development, "development stage factor"},
+               {f.mid_season, "mid-season factor"},
+               {f.late_season, "late season factor"},
                {f.bare_soil, "bare-soil factor"}});
 }
 

@@ -52,11 +52,16 @@ py::dict profile_arrays(const Result& r) {
   d["time"] = column(p, [](const auto& s) { return s.time_days; });
   d["cell_depth"] = vector_array(run.cell_depths_cm);
   d["face_depth"] = vector_array(run.face_depths_cm);
-  d["head"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.head_cm; });
-  d["water_content"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.water_content; });
-  d["conductivity"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.conductivity_cm_per_d; });
-  d["root_uptake"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.sink_rate_per_day; });
-  d["flux"] = matrix(p, faces, [](const auto& s) -> const auto& { return s.face_flux_cm_per_d; });
+  d["head"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.head_cm; });
+  d["water_content"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.water_content; });
+  d["conductivity"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.conductivity_cm_per_d; });
+  d["root_uptake"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.sink_rate_per_day; });
+  d["flux"] = matrix(
+      p, faces, [](const auto& s) -> const auto& { return s.face_flux_cm_per_d; });
   d["ponded_depth"] = column(p, [](const auto& s) { return s.ponded_depth_cm; });
   return d;
 }
@@ -72,7 +77,8 @@ void add_flux_columns(py::dict& d, const std::vector<Row>& rows, std::size_t pla
   d["infiltration"] = column(rows, [](const auto& x) { return x.infiltration_cm; });
   d["transpiration"] = column(rows, [](const auto& x) { return x.transpiration_cm; });
   d["bottom_flux"] = column(rows, [](const auto& x) { return x.bottom_flux_cm; });
-  d["plane_flux"] = matrix(rows, planes, [](const auto& x) -> const auto& { return x.plane_flux_cm; });
+  d["plane_flux"] = matrix(
+      rows, planes, [](const auto& x) -> const auto& { return x.plane_flux_cm; });
 }
 
 py::dict balance_arrays(const Result& r) {

@@ -159,8 +159,8 @@ RetentionReport analyse_retention(const RetentionInputs& inputs) {
 std::vector<ReportTable> core_tables(const std::string& cores_file, const std::string& steps_file) {
   const auto cores = soils::read_core_samples_csv(cores_file);
   ReportTable table;
-  table.title = fmt::format("Ring samples of {} (particle density {} g/cm3 for porosity, common practice)",
-                            cores_file, soils::kMineralParticleDensity_g_per_cm3);
+  table.title = fmt::format("Ring samples of {} (particle density {} g/cm3 for porosity, common practice)", cores_file,
+                            soils::kMineralParticleDensity_g_per_cm3);
   table.headers = {"sample", "water content [cm3/cm3]", "water content [g/g]", "dry bulk density [g/cm3]",
                    "porosity [cm3/cm3]"};
   for (const auto& core : cores) {
@@ -194,8 +194,7 @@ std::vector<ReportTable> core_tables(const std::string& cores_file, const std::s
 ReportTable texture_table(const std::string& name) {
   ReportTable table;
   table.title = "Class-average parameters, Carsel & Parrish (1988); pore connectivity l = 0.5 (Mualem 1976)";
-  table.headers = {"texture class", "theta_r [cm3/cm3]", "theta_s [cm3/cm3]", "alpha [1/cm]",
-                   "n [-]",         "Ks [cm/d]"};
+  table.headers = {"texture class", "theta_r [cm3/cm3]", "theta_s [cm3/cm3]", "alpha [1/cm]", "n [-]", "Ks [cm/d]"};
   auto add = [&](std::string_view class_name, const soils::VanGenuchtenMualem& p) {
     table.add_row({std::string(class_name), number(p.residual_water_content), number(p.saturated_water_content),
                    number(p.alpha_per_cm), number(p.n), number(p.saturated_conductivity_cm_per_d)});

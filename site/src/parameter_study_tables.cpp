@@ -52,10 +52,12 @@ ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep) {
     std::vector<std::string> row{std::to_string(rank + 1), std::to_string(sweep.ranking[rank] + 1)};
     for (std::size_t k = 0; k < run.values.size(); ++k) row.push_back(number(run.values[k], 4));
     if (run.complete) {
-      row.insert(row.end(), {number(run.objective, 5), metric_text(run.heads.root_mean_square_error), metric_text(run.heads.bias),
-                             metric_text(run.heads.nash_sutcliffe), metric_text(run.heads.kling_gupta)});
+      row.insert(row.end(),
+                 {number(run.objective, 5), metric_text(run.heads.root_mean_square_error), metric_text(run.heads.bias),
+                  metric_text(run.heads.nash_sutcliffe), metric_text(run.heads.kling_gupta)});
       if (contents)
-        row.insert(row.end(), {metric_text(run.water_contents->root_mean_square_error), metric_text(run.water_contents->bias)});
+        row.insert(row.end(),
+                   {metric_text(run.water_contents->root_mean_square_error), metric_text(run.water_contents->bias)});
       row.push_back(mm_hundredths(run.season_recharge_cm));
       for (const double v : run.visit_recharge_cm) row.push_back(mm_hundredths(v));
       row.push_back("");
@@ -101,7 +103,8 @@ ReportTable calibration_recharge_table(const SeasonModel& model, const Calibrati
       row.insert(row.end(), 2, "");
     }
     if (i < study.band.size()) {
-      row.insert(row.end(), {mm_hundredths(study.band[i].low), mm_hundredths(study.band[i].median), mm_hundredths(study.band[i].high)});
+      row.insert(row.end(), {mm_hundredths(study.band[i].low), mm_hundredths(study.band[i].median),
+                             mm_hundredths(study.band[i].high)});
     } else {
       row.insert(row.end(), 3, "");
     }

@@ -71,10 +71,9 @@ inline void expect_same_snapshot(const solver::ProfileSnapshot& a, const solver:
 
 inline void expect_same_balance(const solver::CumulativeBalance& a, const solver::CumulativeBalance& b) {
   using B = solver::CumulativeBalance;
-  expect_same_members(a, b, &B::time_days, &B::water_input_cm, &B::potential_evaporation_cm,
-                      &B::actual_evaporation_cm, &B::runoff_cm, &B::infiltration_cm, &B::transpiration_cm,
-                      &B::bottom_flux_cm, &B::plane_flux_cm, &B::ponded_depth_cm, &B::soil_storage_cm,
-                      &B::balance_error_cm);
+  expect_same_members(a, b, &B::time_days, &B::water_input_cm, &B::potential_evaporation_cm, &B::actual_evaporation_cm,
+                      &B::runoff_cm, &B::infiltration_cm, &B::transpiration_cm, &B::bottom_flux_cm, &B::plane_flux_cm,
+                      &B::ponded_depth_cm, &B::soil_storage_cm, &B::balance_error_cm);
 }
 
 // The per-interval columns every recharge estimate has.
@@ -104,8 +103,8 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
   using Statistics = solver::RunStatistics;
   expect_same_members(ra.statistics, rb.statistics, &Statistics::steps, &Statistics::residual_evaluations,
                       &Statistics::jacobian_evaluations, &Statistics::nonlinear_iterations,
-                      &Statistics::nonlinear_failures, &Statistics::error_test_failures,
-                      &Statistics::surface_switches, &Statistics::bottom_switches);
+                      &Statistics::nonlinear_failures, &Statistics::error_test_failures, &Statistics::surface_switches,
+                      &Statistics::bottom_switches);
   EXPECT_EQ(ra.complete, rb.complete);
   expect_same_optional(ra.failure, rb.failure, [](const auto& x, const auto& y) {
     using F = solver::RunFailure;
@@ -134,8 +133,8 @@ inline void expect_same_record(const RunRecord& a, const RunRecord& b) {
     expect_same_each(ca.water_content, cb.water_content, "water content reading", expect_same_reading);
     expect_same_each(ca.metrics, cb.metrics, "metrics", [](const auto& x, const auto& y) {
       using M = SensorMetrics;
-      expect_same_members(x, y, &M::name, &M::quantity, &M::unit, &M::readings_used,
-                          &M::left_out_beyond_working_limit, &M::left_out_outside_run);
+      expect_same_members(x, y, &M::name, &M::quantity, &M::unit, &M::readings_used, &M::left_out_beyond_working_limit,
+                          &M::left_out_outside_run);
       expect_alike_members(x, y, &M::depth_cm, &M::bias, &M::root_mean_square_error, &M::nash_sutcliffe,
                            &M::kling_gupta);
     });

@@ -65,7 +65,8 @@ TEST_F(RunFileStreamTest, WriteRunHoldsWhatTheFileBuiltWholeHeld) {
 TEST_F(RunFileStreamTest, ProfilesLieAlongTheUnlimitedTimeDimension) {
   const fs::path path = directory_ / "season.h5";
   stream_record(path, testing::sample_record());
-  const auto names = {"time", "pressure_head", "water_content", "conductivity", "sink_rate", "face_flux", "ponded_depth"};
+  const auto names = {"time",      "pressure_head", "water_content", "conductivity",
+                      "sink_rate", "face_flux",     "ponded_depth"};
   testing::check_datasets(path, names, [](hid_t file, const char* name) {
     const hid_t dataset = H5Dopen2(file, name, H5P_DEFAULT);
     const hid_t space = H5Dget_space(dataset);

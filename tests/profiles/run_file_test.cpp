@@ -279,8 +279,7 @@ TEST_F(RunFileTest, FieldChecksUseTheirGroupsVisitIntervalAxis) {
   const fs::path path = directory_ / "season.h5";
   write_run(path, testing::sample_record());
   const auto names = {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
-                      "recharge_estimates/water_table/end_depth", "stored_water/observed_change",
-                      "visits/water_input"};
+                      "recharge_estimates/water_table/end_depth", "stored_water/observed_change", "visits/water_input"};
   testing::check_datasets(path, names, [](hid_t file, const char* name) {
     const std::string group = fs::path(name).parent_path().string();
     const hid_t interval_end = H5Dopen2(file, (group + "/interval_end").c_str(), H5P_DEFAULT);

@@ -1,5 +1,6 @@
 // Laboratory data run from CSV files: the core samples of `wetfront soil cores`, the retention
-// fit shared by `wetfront soil retention` and `wetfront soil layer`, and the texture classes. File formats are those of wetfront/soils/lab_csv.hpp.
+// fit shared by `wetfront soil retention` and `wetfront soil layer`, and the texture classes. File formats are those of
+// wetfront/soils/lab_csv.hpp.
 #pragma once
 
 #include <optional>

@@ -20,11 +20,11 @@ namespace wetfront::site {
 // layer` that carry each field.
 struct LayerInputs {
   std::string name;
-  std::string top;     // depth with unit, "0 cm"
-  std::string bottom;  // depth with unit, "30 cm"
-  RetentionInputs retention;  // laboratory retention data, or
-  std::string texture;        // a texture class
-  PermeameterInputs permeameter;      // exactly one of these three gives the conductivity
+  std::string top;                // depth with unit, "0 cm"
+  std::string bottom;             // depth with unit, "30 cm"
+  RetentionInputs retention;      // laboratory retention data, or
+  std::string texture;            // a texture class
+  PermeameterInputs permeameter;  // exactly one of these three gives the conductivity
   InfiltrometerInputs infiltrometer;
   std::string saturated_conductivity;  // value with unit, "25 cm/d"
   double pore_connectivity = 0.5;

@@ -35,8 +35,8 @@ studies::TaskHandler network_site_task(const std::string& program_version);
 // summaries as run_network with write_site_files and the output check. Sites that cannot
 // be loaded or whose files may not be written are run on rank 0, which finds the same failure.
 std::vector<NetworkSite> run_network_on_ranks(const NetworkPlan& plan, studies::TaskRunner& ranks,
-                                                    const std::string& program_version, bool force,
-                                                    const NetworkProgress& progress);
+                                              const std::string& program_version, bool force,
+                                              const NetworkProgress& progress);
 
 // Every site of the plan with its own files checked before its run and written after it: over
 // `ranks` when given (run_network_on_ranks), else on `threads` threads (run_network).
