@@ -310,26 +310,11 @@ void add_show_command(CLI::App& app) {
       throw base::InputError(options->csv, 0, "", "--csv and --sensors-csv name the same file; give two names");
     const OutputGuard guard(
         {.outputs = {options->csv, options->sensors_csv}, .inputs = {options->run_file}, .force = options->force});
-    const auto [record, sensors] = read_stored_run(options->run_file);
-    if (!options->sensors_csv.empty()) {
-      if (!sensors || (sensors->sensors.empty() && sensors->pooled.empty())) {
-        throw base::InputError(
-            fmt::format("{}: the run file holds no sensor comparison, so there are no fit metrics for {}",
-                        options->run_file, options->sensors_csv));
-      }
-    }
-    fmt::print("{}", season_report(record, {}, sensors ? &*sensors : nullptr));
-    report_foreign_tables(options->run_file, record);
-    if (!options->csv.empty()) {
-      ReportTable table = visit_balance_table(record, sensors ? &*sensors : nullptr);
-      table.run_id = record.run_id;
-      write_csv(table, options->csv);
-    }
-    if (!options->sensors_csv.empty()) {
-      ReportTable table = sensor_metrics_table(*sensors);
-      table.run_id = record.run_id;
-      write_csv(table, options->sensors_csv);
-    }
+    const StoredRun stored = read_stored_run(options->run_file);
+    check_stored_tables(stored, options->sensors_csv);
+    fmt::print("{}", season_report(stored.record, {}, stored.sensors ? &*stored.sensors : nullptr));
+    report_foreign_tables(options->run_file, stored.record);
+    write_stored_tables(stored, options->csv, options->sensors_csv);
   });
 }
 

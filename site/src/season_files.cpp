@@ -1,5 +1,7 @@
 #include "wetfront/site/season_files.hpp"
 
+#include <fmt/format.h>
+
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/profiles/run_file.hpp"
 #include "wetfront/site/output_files.hpp"
@@ -72,7 +74,7 @@ WrittenSeason run_season_to_files(Season season, const SeasonFiles& files, const
 }
 
 StoredRun read_stored_run(const std::filesystem::path& run_file) {
-  StoredRun stored;
+  StoredRun stored{.run_file = run_file, .record = {}, .sensors = {}};
   try {
     probe_run_file(run_file);
     stored.record = profiles::read_run(run_file, profiles::ProfileReading::leave_out);
@@ -84,6 +86,27 @@ StoredRun read_stored_run(const std::filesystem::path& run_file) {
     stored.sensors = check_from_record(r);
   }
   return stored;
+}
+
+void check_stored_tables(const StoredRun& stored, const std::filesystem::path& sensors_csv) {
+  if (sensors_csv.empty()) return;
+  if (!stored.sensors || (stored.sensors->sensors.empty() && stored.sensors->pooled.empty())) {
+    throw base::InputError(
+        fmt::format("{}: the run file holds no sensor comparison, so there are no fit metrics for {}",
+                    stored.run_file.string(), sensors_csv.string()));
+  }
+}
+
+void write_stored_tables(const StoredRun& stored, const std::filesystem::path& visits_csv,
+                         const std::filesystem::path& sensors_csv) {
+  check_stored_tables(stored, sensors_csv);
+  const auto write = [&](ReportTable table, const std::filesystem::path& path) {
+    table.run_id = stored.record.run_id;
+    write_csv(table, path.string());
+  };
+  if (!visits_csv.empty())
+    write(visit_balance_table(stored.record, stored.sensors ? &*stored.sensors : nullptr), visits_csv);
+  if (!sensors_csv.empty()) write(sensor_metrics_table(*stored.sensors), sensors_csv);
 }
 
 }  // namespace wetfront::site

@@ -63,9 +63,18 @@ WrittenSeason run_season_to_files(Season season, const SeasonFiles& files, const
 // record without its profiles and, where it holds field checks, the sensor check. Throws
 // base::InputError naming a damaged or unreadable file.
 struct StoredRun {
+  std::filesystem::path run_file;
   profiles::RunRecord record;
   std::optional<SensorCheck> sensors;
 };
 StoredRun read_stored_run(const std::filesystem::path& run_file);
+
+// The tables of a stored run written again, each only when its path is not empty: the balance per
+// visit interval to `visits_csv`, the fit metrics to `sensors_csv`, under the run's id.
+// check_stored_tables, before any output: throws base::InputError when the metrics are asked for
+// and the run holds none. write_stored_tables throws base::InputError naming a file it cannot write.
+void check_stored_tables(const StoredRun& stored, const std::filesystem::path& sensors_csv);
+void write_stored_tables(const StoredRun& stored, const std::filesystem::path& visits_csv,
+                         const std::filesystem::path& sensors_csv);
 
 }  // namespace wetfront::site
