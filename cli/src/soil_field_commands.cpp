@@ -1,7 +1,6 @@
 // `wetfront soil permeameter FILE` and `wetfront soil infiltrometer FILE`: saturated
 // conductivity from a constant-head well permeameter or a tension disc infiltrometer (see
 // field_analysis.hpp, soils/well_permeameter.hpp and soils/tension_infiltrometer.hpp).
-#include <initializer_list>
 #include <memory>
 #include <string_view>
 
@@ -16,18 +15,6 @@ namespace wetfront::cli {
 using namespace wetfront::site;  // the application library these commands drive
 
 namespace {
-
-// A required option or argument: name, where its text goes, help.
-struct RequiredOption {
-  const char* name;
-  std::string* value;
-  const char* help;
-};
-
-// The readings file of a field test and its sizes (the hole or disc, the reservoir read on).
-void add_required_options(CLI::App& cmd, std::initializer_list<RequiredOption> options) {
-  for (const RequiredOption& option : options) cmd.add_option(option.name, *option.value, option.help)->required();
-}
 
 // --max-drift and --max-scatter: how steady the readings of either field test must be.
 void add_steadiness_options(CLI::App& cmd, soils::SteadinessTolerances& tolerances) {
@@ -52,12 +39,14 @@ void add_permeameter_command(CLI::App& soil) {
   CLI::App* cmd = soil.add_subcommand(
       "permeameter",
       "Field-saturated conductivity from constant-head well permeameter readings at one or two water depths");
-  add_required_options(
-      *cmd, {{"FILE", &options->inputs.file,
-              "CSV with columns 'water depth [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)"},
-             {"--well-radius", &options->inputs.well_radius, "radius of the auger hole, with unit (e.g. \"3 cm\")"},
-             {"--reservoir-area", &options->inputs.reservoir_area,
-              "inner cross-section of the reservoir the levels are read on, with unit (e.g. \"35.4 cm2\")"}});
+  cmd->add_option("FILE", options->inputs.file,
+                  "CSV with columns 'water depth [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)")
+      ->required();
+  cmd->add_option("--well-radius", options->inputs.well_radius, "radius of the auger hole, with unit (e.g. \"3 cm\")")
+      ->required();
+  cmd->add_option("--reservoir-area", options->inputs.reservoir_area,
+                  "inner cross-section of the reservoir the levels are read on, with unit (e.g. \"35.4 cm2\")")
+      ->required();
   cmd->add_option("--soil", options->inputs.soil_category,
                   "soil category for alpha* and the shape factor: compacted-clay, fine-unstructured, structured, "
                   "coarse-sand, highly-structured")
@@ -80,12 +69,15 @@ void add_infiltrometer_command(CLI::App& soil) {
   CLI::App* cmd = soil.add_subcommand(
       "infiltrometer",
       "Conductivity near saturation from tension disc infiltrometer readings at two or more supply heads");
-  add_required_options(
-      *cmd, {{"FILE", &options->inputs.file,
-              "CSV with columns 'supply head [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)"},
-             {"--disc-radius", &options->inputs.disc_radius, "radius of the disc membrane, with unit (e.g. \"10 cm\")"},
-             {"--tower-area", &options->inputs.tower_area,
-              "inner cross-section of the water tower the levels are read on, with unit (e.g. \"19.6 cm2\")"}});
+  cmd->add_option("FILE", options->inputs.file,
+                  "CSV with columns 'supply head [cm]', 'time [min]', 'water level [cm]', 'steady' (yes/no)")
+      ->required();
+  cmd->add_option("--disc-radius", options->inputs.disc_radius,
+                  "radius of the disc membrane, with unit (e.g. \"10 cm\")")
+      ->required();
+  cmd->add_option("--tower-area", options->inputs.tower_area,
+                  "inner cross-section of the water tower the levels are read on, with unit (e.g. \"19.6 cm2\")")
+      ->required();
   add_steadiness_options(*cmd, options->inputs.tolerances);
   finish_table_command(cmd, options->csv_path, options->force, "also write the conductivity table to this CSV file",
                        "Example:\n"
