@@ -4,11 +4,6 @@
 
 #include <fmt/format.h>
 
-#include "season_report.hpp"
-#include "sensor_report.hpp"
-#include "wetfront/base/input_error.hpp"
-#include "wetfront/profiles/run_file.hpp"
-
 namespace wetfront::cli {
 
 using namespace wetfront::site;  // the application library these commands drive
@@ -65,31 +60,6 @@ std::unique_ptr<OutputGuard> guard_outputs(const CLI::App& cmd, std::vector<std:
   inputs.insert(inputs.end(), more_inputs.begin(), more_inputs.end());
   return std::make_unique<OutputGuard>(
       OutputPlan{.outputs = std::move(outputs), .inputs = std::move(inputs), .force = force});
-}
-
-bool write_season_files(profiles::RunRecord& record, const SensorCheck& sensors, const std::filesystem::path& out,
-                        const std::filesystem::path& visits_csv, const std::filesystem::path& sensors_csv,
-                        profiles::RunFileStream* stream) {
-  record.run_id = new_run_id();
-  const bool metrics = !sensors.sensors.empty() || !sensors.pooled.empty();
-  std::vector<std::pair<std::filesystem::path, ReportTable>> tables{
-      {visits_csv, visit_balance_table(record, &sensors)}};
-  if (metrics) tables.push_back({sensors_csv, sensor_metrics_table(sensors)});
-  for (auto& table : tables) table.second.run_id = record.run_id;
-  write_files_together(tables, [&] {
-    try {
-      if (stream == nullptr) {
-        profiles::write_run(out, record);
-      } else {
-        stream->finish(record);
-        stream->commit();
-      }
-    } catch (const profiles::RunFileError& error) {
-      throw base::InputError(error.what());
-    }
-  });
-  if (!metrics) std::filesystem::remove(sensors_csv);
-  return metrics;
 }
 
 }  // namespace wetfront::cli

@@ -11,10 +11,7 @@
 #include <CLI/CLI.hpp>
 
 #include "wetfront/site/output_files.hpp"
-#include "wetfront/profiles/run_file_stream.hpp"
-#include "wetfront/profiles/run_record.hpp"
 #include "wetfront/site/report_table.hpp"
-#include "wetfront/site/sensor_check.hpp"
 
 namespace wetfront::cli {
 
@@ -49,14 +46,5 @@ std::vector<std::filesystem::path> files_named_by(const CLI::App& cmd);
 // as inputs. Call it before any work; keep the result for as long as the command writes.
 std::unique_ptr<site::OutputGuard> guard_outputs(const CLI::App& cmd, std::vector<std::filesystem::path> outputs,
                                                  bool force, std::vector<std::filesystem::path> more_inputs = {});
-
-// Gives `record` a new run id and writes the run file `out` with its visit table and, where the
-// site has sensor metrics, its sensor table, as one set. Without metrics an earlier sensor table
-// at `sensors_csv` is removed: it would no longer describe this run file. Returns whether the
-// sensor table was written. With `stream`, the run file is that stream (its profiles written as
-// the run went), finished with the record's other parts and committed.
-bool write_season_files(profiles::RunRecord& record, const site::SensorCheck& sensors, const std::filesystem::path& out,
-                        const std::filesystem::path& visits_csv, const std::filesystem::path& sensors_csv,
-                        profiles::RunFileStream* stream = nullptr);
 
 }  // namespace wetfront::cli

@@ -8,6 +8,7 @@
 #include "season_commands.hpp"
 #include "study_ranks.hpp"
 #include "soil_commands.hpp"
+#include "wetfront/cluster/ranks.hpp"
 #include "wetfront/profiles/file_save.hpp"
 
 int main(int argc, char** argv) {

@@ -7,85 +7,17 @@
 
 #include "command_output.hpp"
 #include "exit_codes.hpp"
-#include "network_sites.hpp"
-#include "season_report.hpp"
-#include "sensor_report.hpp"
-#include "study_ranks.hpp"
 #include "wetfront/base/input_error.hpp"
-#include "wetfront/profiles/run_file.hpp"
+#include "wetfront/cluster/run_study.hpp"
 #include "wetfront/site/network.hpp"
-#include "wetfront/site/output_files.hpp"
-#include "wetfront/site/report_table.hpp"
+#include "wetfront/site/network_sites.hpp"
+#include "wetfront/site/network_summary.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
 
 namespace wetfront::cli {
 
 using namespace wetfront::site;
 namespace {
-
-std::filesystem::path with_suffix(const std::filesystem::path& base, const std::string& suffix) {
-  std::filesystem::path out = base;
-  out.replace_filename(base.filename().string() + suffix);
-  return out;
-}
-
-std::string mm_or_blank(const std::optional<double>& cm) { return cm ? mm(*cm) : std::string(); }
-
-// One row per site: status, period, season totals, estimates and the fit of the heads.
-ReportTable sites_table(const std::vector<NetworkSite>& sites) {
-  ReportTable table;
-  table.title =
-      "Network: season per site [mm] (fluxes positive downward; field estimates summed over the visit intervals "
-      "that have one; blank where none)";
-  table.headers = {"site",
-                   "status",
-                   "from",
-                   "to",
-                   "plane [cm]",
-                   "rain + irrigation [mm]",
-                   "evaporation [mm]",
-                   "transpiration [mm]",
-                   "runoff [mm]",
-                   "storage change [mm]",
-                   "drainage at plane [mm]",
-                   "Darcy estimate [mm]",
-                   "water-table estimate [mm]",
-                   "head RMSE [cm]",
-                   "head bias [cm]",
-                   "head readings",
-                   "site file",
-                   "reason"};
-  for (const auto& s : sites) {
-    if (!s.has_run()) {
-      std::vector<std::string> row{s.name, status_text(s.status)};
-      row.resize(table.headers.size() - 2);
-      row.push_back(s.site_file.string());
-      row.push_back(s.reason);
-      table.add_row(std::move(row));
-      continue;
-    }
-    table.add_row({s.name, status_text(s.status), s.run_start, s.run_end, number(s.plane_depth_cm),
-                   mm(s.water_input_cm), mm(s.evaporation_cm), mm(s.transpiration_cm), mm(s.runoff_cm),
-                   mm(s.storage_change_cm), mm(s.drainage_cm), mm_or_blank(s.darcy_cm), mm_or_blank(s.water_table_cm),
-                   s.head_rmse_cm ? number(*s.head_rmse_cm) : "", s.head_bias_cm ? number(*s.head_bias_cm) : "",
-                   fmt::format("{}", s.head_readings), s.site_file.string(), s.reason});
-  }
-  return table;
-}
-
-// One row per site and visit interval.
-ReportTable intervals_table(const std::vector<NetworkSite>& sites) {
-  ReportTable table;
-  table.title = "Network: recharge per visit interval [mm] (positive downward)";
-  table.headers = {"site", "from", "to", "drainage at plane [mm]", "Darcy estimate [mm]", "water-table estimate [mm]"};
-  for (const auto& s : sites) {
-    for (const auto& i : s.intervals) {
-      table.add_row({s.name, i.start_date, i.end_date, mm(i.drainage_cm), mm_or_blank(i.darcy_cm),
-                     mm_or_blank(i.water_table_cm)});
-    }
-  }
-  return table;
-}
 
 struct NetworkOptions {
   std::string network;
@@ -108,38 +40,24 @@ NetworkPlan network_plan(const NetworkOptions& options) {
 }
 
 // The network of a loaded plan; `ranks` runs the sites (null: this machine's threads).
-void run_network_command(const NetworkOptions& options, const CLI::App& cmd, const NetworkPlan& plan, studies::TaskRunner* ranks) {
-  const std::filesystem::path h5 = with_suffix(plan.summary, ".h5");
-  const std::filesystem::path sites_csv = with_suffix(plan.summary, "-sites.csv");
-  const std::filesystem::path intervals_csv = with_suffix(plan.summary, "-intervals.csv");
+void run_network_command(const NetworkOptions& options, const CLI::App& cmd, const NetworkPlan& plan,
+                         studies::TaskRunner* ranks) {
+  const NetworkSummaryFiles files = network_summary_files(plan);
   // Before any run: the summary's folder, the files read, files of other programs, another writer.
-  const auto guard = guard_outputs(cmd, {h5, sites_csv, intervals_csv}, options.force, plan.site_files);
+  const auto guard =
+      guard_outputs(cmd, {files.study_file, files.sites_csv, files.intervals_csv}, options.force, plan.site_files);
   const unsigned workers = ranks ? ranks->workers() : studies::thread_count(options.threads);
   if (!options.quiet)
     fmt::print(stderr, "wetfront: {} sites on {} {}\n", plan.site_files.size(),
                std::min<std::size_t>(workers, plan.site_files.size()), ranks ? "ranks" : "threads");
   const bool quiet = options.quiet;
   const std::size_t total = plan.site_files.size();
-  const bool force = options.force;
   const auto progress = [quiet, total](std::size_t done, const NetworkSite& s) {
     if (!quiet) fmt::print(stderr, "wetfront: [{}/{}] {}: {}\n", done, total, s.name, status_text(s.status));
   };
   const std::vector<NetworkSite> results =
-      ranks ? run_network_on_ranks(plan, *ranks, WETFRONT_VERSION, force, progress)
-            : run_network(
-                  plan, workers, WETFRONT_VERSION, [force](const SeasonResult& r) { write_site_files(r, force); },
-                  progress, [force](const SiteSetup& setup) { check_site_outputs(setup, force); });
-  const std::string run_id = new_run_id();
-  ReportTable per_site = sites_table(results);
-  ReportTable per_interval = intervals_table(results);
-  per_site.run_id = per_interval.run_id = run_id;
-  write_files_together({{sites_csv, per_site}, {intervals_csv, per_interval}}, [&] {
-    try {
-      profiles::write_study(h5, network_record(plan, results, WETFRONT_VERSION, run_id));
-    } catch (const profiles::RunFileError& error) {
-      throw base::InputError(error.what());
-    }
-  });
+      run_network_with_files(plan, ranks, workers, WETFRONT_VERSION, options.force, progress);
+  const NetworkSummary summary = write_network_summary(files, plan, results, WETFRONT_VERSION);
   std::size_t failed = 0;
   for (const auto& s : results) {
     if (s.status == SiteStatus::done) continue;
@@ -147,10 +65,10 @@ void run_network_command(const NetworkOptions& options, const CLI::App& cmd, con
     fmt::print(stderr, "error: site {} ({}): {}: {}\n", s.name, s.site_file.string(), status_text(s.status), s.reason);
   }
   if (!options.quiet) {
-    fmt::print("{}\n", format_table(per_site));
-    fmt::print("{}\n", format_table(per_interval));
-    fmt::print("{} of {} sites done. Wrote {}, {} and {}\n", results.size() - failed, results.size(), h5.string(),
-               sites_csv.string(), intervals_csv.string());
+    fmt::print("{}\n", format_table(summary.sites));
+    fmt::print("{}\n", format_table(summary.intervals));
+    fmt::print("{} of {} sites done. Wrote {}, {} and {}\n", results.size() - failed, results.size(),
+               files.study_file.string(), files.sites_csv.string(), files.intervals_csv.string());
   }
   if (failed > 0) throw CLI::RuntimeError(exit_some_sites_failed);
 }
@@ -181,7 +99,7 @@ void add_network_command(CLI::App& app, const cluster::Session& session) {
       "Examples:\n  wetfront network examples/network/network.toml\n"
       "  wetfront network --sites a/site.toml b/site.toml --summary plots");
   cmd->callback([options, cmd, &session] {
-    run_study(
+    cluster::run_study(
         session,
         [&] {
           if (!session.leader()) return NetworkPlan{};  // the requests name the site files

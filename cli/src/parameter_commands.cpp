@@ -5,11 +5,12 @@
 #include <fmt/format.h>
 
 #include "wetfront/base/input_error.hpp"
+#include "wetfront/cluster/run_study.hpp"
 #include "parameter_report.hpp"
 #include "progress_line.hpp"
-#include "study_ranks.hpp"
 #include "wetfront/site/output_files.hpp"
 #include "wetfront/site/parameter_study.hpp"
+#include "wetfront/site/parameter_study_tables.hpp"
 #include "wetfront/site/study_output.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
 
@@ -17,12 +18,6 @@ namespace wetfront::cli {
 
 using namespace wetfront::site;  // the application library these commands drive
 namespace {
-
-std::filesystem::path sibling(const std::filesystem::path& site_file, const std::string& suffix) {
-  std::filesystem::path out = site_file;
-  out.replace_filename(site_file.stem().string() + suffix);
-  return out;
-}
 
 struct CommonOptions {
   std::string site;
@@ -48,12 +43,6 @@ void add_common(CLI::App* cmd, CommonOptions& o, const std::string& default_out)
                 "replace output files that wetfront did not write (files the runs read are never replaced)");
 }
 
-// Before any run: the output folder, the files read, files of other programs, another writer.
-OutputPlan output_plan(const CommonOptions& o, const SeasonModel& model, const std::filesystem::path& out,
-                       const std::filesystem::path& csv) {
-  return {.outputs = {out, csv}, .inputs = site_input_files(model.site()), .force = o.force};
-}
-
 SeasonModel load_model(const CommonOptions& o) {
   SiteSetup site = load_site_file(o.site, {o.from, o.to});
   ParameterStudy study = load_parameter_study(site);
@@ -62,6 +51,52 @@ SeasonModel load_model(const CommonOptions& o) {
         o.site, 0, "",
         "no [[adjustable]] entries: mark the parameters to vary (docs/site-file.md, \"Parameter studies\")");
   return SeasonModel(std::move(site), std::move(study));
+}
+
+// A study command: the HDF5 file (--out, or the site file's name with `suffix`) and its CSV table
+// beside it guarded before any run (the output folder, the files read, files of other programs,
+// another writer); the progress line while the runs go, their bad input reported against the site
+// file; then the table and the file written together under one run id, and the report.
+// run(progress) -> result; table(result); write(out, result, run_id); report(result, seconds).
+template <class Run, class Table, class Write, class Report>
+void run_study_command(const CommonOptions& o, const SeasonModel& model, const std::string& suffix, bool at_most,
+                       Run run, Table table_of, Write write, Report report) {
+  const std::filesystem::path out = o.out.empty() ? beside(o.site, suffix) : std::filesystem::path(o.out);
+  const std::filesystem::path csv = beside(out, ".csv");
+  const OutputGuard guard({.outputs = {out, csv}, .inputs = site_input_files(model.site()), .force = o.force});
+  ProgressLine progress(o.quiet);
+  decltype(run(StudyProgress())) result;
+  try {
+    result = run([&](std::size_t done, std::size_t planned) { progress(done, planned, at_most); });
+  } catch (const base::InputError& error) {
+    throw base::InputError(o.site, 0, "", error.what());
+  }
+  const double seconds = progress.seconds();
+  progress.finish();
+  ReportTable table = table_of(result);
+  table.run_id = new_run_id();
+  write_files_together({{csv, table}}, [&] { write(out, result, table.run_id); });
+  if (!o.quiet) {
+    fmt::print("{}", report(result, seconds));
+    fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
+  }
+}
+
+// The footer (what the command writes, the exit codes, an example) and the callback of a study
+// command: the model loaded on every rank, `study` run by the leader (cluster::run_study).
+template <class Options>
+void finish_study_command(CLI::App* cmd, const cluster::Session& session, std::shared_ptr<Options> o,
+                          void (*study)(const Options&, const SeasonModel&, studies::TaskRunner*),
+                          const std::string& writes, const std::string& example) {
+  cmd->footer(writes +
+              "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
+              "Example:\n  " +
+              example);
+  cmd->callback([o, &session, study] {
+    cluster::run_study(
+        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
+        [&](const SeasonModel& model, studies::TaskRunner* ranks) { study(*o, model, ranks); });
+  });
 }
 
 struct SweepOptions : CommonOptions {
@@ -73,31 +108,19 @@ struct SweepOptions : CommonOptions {
 
 // The sweep of a loaded model; `ranks` runs the sets (null: this machine's threads).
 void sweep(const SweepOptions& o, const SeasonModel& model, studies::TaskRunner* ranks) {
-  const std::filesystem::path out = o.out.empty() ? sibling(o.site, "-sweep.h5") : std::filesystem::path(o.out);
-  const std::filesystem::path csv = sibling(out, ".csv");
-  const OutputGuard guard(output_plan(o, model, out, csv));
-  ProgressLine progress(o.quiet);
-  SweepSettings settings{
+  const SweepSettings settings{
       .full_grid = o.grid, .sample_size = o.sample, .seed = o.seed, .threads = o.threads, .runner = ranks};
-  SweepResult sweep;
-  try {
-    sweep = run_sweep(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });
-  } catch (const base::InputError& error) {
-    throw base::InputError(o.site, 0, "", error.what());
-  }
-  const double seconds = progress.seconds();
-  progress.finish();
   const unsigned workers = ranks ? ranks->workers() : studies::thread_count(o.threads);
-  const std::string run_id = new_run_id();
-  ReportTable table = sweep_table(model, sweep);
-  table.run_id = run_id;
-  write_files_together({{csv, table}},
-                       [&] { write_sweep_file(out, model, sweep, o.kept, o.threads, WETFRONT_VERSION, run_id); });
-  if (!o.quiet) {
-    fmt::print("{}", sweep_report(model, sweep, o.shown, seconds,
-                                  std::min<unsigned>(workers, static_cast<unsigned>(sweep.runs.size()))));
-    fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
-  }
+  run_study_command(
+      o, model, "-sweep.h5", false, [&](const StudyProgress& progress) { return run_sweep(model, settings, progress); },
+      [&](const SweepResult& sweep) { return sweep_table(model, sweep); },
+      [&](const std::filesystem::path& out, const SweepResult& sweep, const std::string& run_id) {
+        write_sweep_file(out, model, sweep, o.kept, o.threads, WETFRONT_VERSION, run_id);
+      },
+      [&](const SweepResult& sweep, double seconds) {
+        return sweep_report(model, sweep, o.shown, seconds,
+                            std::min<unsigned>(workers, static_cast<unsigned>(sweep.runs.size())));
+      });
 }
 
 void add_sweep_command(CLI::App& app, const cluster::Session& session) {
@@ -111,16 +134,10 @@ void add_sweep_command(CLI::App& app, const cluster::Session& session) {
       ->check(CLI::Range(1, 100000));
   cmd->add_option("--show", o->shown, "rows of the ranked table to print (default 10; the CSV has all)");
   cmd->add_option("--keep", o->kept, "profiles of this many best runs go into the HDF5 file (default 3)");
-  cmd->footer(
-      "Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
-      "Under mpirun the runs are spread over the ranks (docs/many-machines.md).\n"
-      "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
-      "Example:\n  wetfront sweep examples/demo/site.toml --grid");
-  cmd->callback([o, &session] {
-    run_study(
-        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
-        [&](const SeasonModel& model, studies::TaskRunner* ranks) { sweep(*o, model, ranks); });
-  });
+  finish_study_command(cmd, session, o, sweep,
+                       "Writes the HDF5 file and, next to it, NAME-sweep.csv with every set ranked.\n"
+                       "Under mpirun the runs are spread over the ranks (docs/many-machines.md).\n",
+                       "wetfront sweep examples/demo/site.toml --grid");
 }
 
 struct CalibrateOptions : CommonOptions {
@@ -130,36 +147,31 @@ struct CalibrateOptions : CommonOptions {
 
 // The calibration of a loaded model; `ranks` runs each batch of sets (null: threads).
 void calibrate(const CalibrateOptions& o, const SeasonModel& model, studies::TaskRunner* ranks) {
-  const std::filesystem::path out = o.out.empty() ? sibling(o.site, "-calibration.h5") : std::filesystem::path(o.out);
-  const std::filesystem::path csv = sibling(out, ".csv");
-  const OutputGuard guard(output_plan(o, model, out, csv));
-  ProgressLine progress(o.quiet);
   CalibrationSettings settings;
   settings.options.max_runs = o.max_runs;
   settings.threads = o.threads;
   settings.band_runs = o.band_runs;
   settings.seed = o.seed;
   settings.runner = ranks;
-  CalibrationStudy study;
-  try {
-    study =
-        run_calibration(model, settings, [&](std::size_t done, std::size_t planned) { progress(done, planned, true); });
-  } catch (const base::InputError& error) {
-    throw base::InputError(o.site, 0, "", error.what());
-  } catch (const std::runtime_error& error) {
-    throw base::InputError(o.site, 0, "", fmt::format("the calibration stopped: {}", error.what()));
-  }
-  const double seconds = progress.seconds();
-  progress.finish();
-  const std::string run_id = new_run_id();
-  ReportTable table = calibration_recharge_table(model, study);
-  table.run_id = run_id;
-  write_files_together({{csv, table}}, [&] { write_calibration_file(out, model, study, WETFRONT_VERSION, run_id); });
-  if (!o.quiet) {
-    const unsigned workers = ranks ? ranks->workers() : studies::thread_count(o.threads);
-    fmt::print("{}", calibration_report(model, study, seconds, workers));
-    fmt::print("\nWrote {} and {}\n", out.string(), csv.string());
-  }
+  const unsigned workers = ranks ? ranks->workers() : studies::thread_count(o.threads);
+  const auto run = [&](const StudyProgress& progress) {
+    try {
+      return run_calibration(model, settings, progress);
+    } catch (const base::InputError&) {
+      throw;
+    } catch (const std::runtime_error& error) {
+      throw base::InputError(fmt::format("the calibration stopped: {}", error.what()));
+    }
+  };
+  run_study_command(
+      o, model, "-calibration.h5", true, run,
+      [&](const CalibrationStudy& study) { return calibration_recharge_table(model, study); },
+      [&](const std::filesystem::path& out, const CalibrationStudy& study, const std::string& run_id) {
+        write_calibration_file(out, model, study, WETFRONT_VERSION, run_id);
+      },
+      [&](const CalibrationStudy& study, double seconds) {
+        return calibration_report(model, study, seconds, workers);
+      });
 }
 
 void add_calibrate_command(CLI::App& app, const cluster::Session& session) {
@@ -171,16 +183,10 @@ void add_calibrate_command(CLI::App& app, const cluster::Session& session) {
       ->check(CLI::Range(4, 100000));
   cmd->add_option("--band-runs", o->band_runs,
                   "parameter sets drawn for the sampled recharge band (default 40; 0: none)");
-  cmd->footer(
-      "Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
-      "Under mpirun each batch of runs is spread over the ranks (docs/many-machines.md).\n"
-      "Exit codes: 0 done, 1 bad input or unwritable output (nothing written), 3 internal failure.\n"
-      "Example:\n  wetfront calibrate examples/demo/site.toml");
-  cmd->callback([o, &session] {
-    run_study(
-        session, [&] { return load_model(*o); }, [](const SeasonModel& model) { return model.handler(); },
-        [&](const SeasonModel& model, studies::TaskRunner* ranks) { calibrate(*o, model, ranks); });
-  });
+  finish_study_command(cmd, session, o, calibrate,
+                       "Writes the HDF5 file and, next to it, NAME-calibration.csv with recharge per visit interval.\n"
+                       "Under mpirun each batch of runs is spread over the ranks (docs/many-machines.md).\n",
+                       "wetfront calibrate examples/demo/site.toml");
 }
 
 }  // namespace

@@ -5,40 +5,13 @@
 
 #include <fmt/format.h>
 
-#include "wetfront/base/time_point.hpp"
+#include "wetfront/site/parameter_study_tables.hpp"
 #include "wetfront/studies/parameter_uncertainty.hpp"
 
 namespace wetfront::cli {
 
 using namespace wetfront::site;  // the application library these commands drive
 namespace {
-
-namespace obs = observations;
-
-// Millimetres to 0.01 mm; amounts below that print as 0.00 rather than as round-off.
-std::string mm(double cm) {
-  const double value = std::round(cm * 1000.0) / 100.0;
-  return fmt::format("{:.2f}", value == 0.0 ? 0.0 : value);
-}
-
-std::string date_of(const SeasonModel& model, double day) {
-  return base::format_timestamp(base::time_after(model.site().run_start, std::round(day * 86400.0) / 86400.0))
-      .substr(0, 10);
-}
-
-std::string header_of(const studies::AdjustableParameter& p) {
-  return p.unit.empty() ? p.name : fmt::format("{} [{}]", p.name, p.unit);
-}
-
-std::string scale_text(const studies::AdjustableParameter& p) {
-  return p.scale == studies::ParameterScale::log ? "log" : "linear";
-}
-
-std::string metric(double value) { return std::isfinite(value) ? number(value, 4) : ""; }
-
-std::string plane_text(const SeasonModel& model) {
-  return fmt::format("the recharge plane at {} cm (positive downward)", number(model.site().recharge_plane_depth_cm));
-}
 
 constexpr const char* kSweepCautions =
     "\nCautions:\n"
@@ -69,11 +42,11 @@ std::string drivers_text(const studies::CalibrationResult& fit, const studies::F
   };
   std::sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) { return moved(a) > moved(b); });
   std::string out =
-      fmt::format("What drives the season band (first order, sd {} mm):\n", mm(season.standard_deviation));
+      fmt::format("What drives the season band (first order, sd {} mm):\n", mm_hundredths(season.standard_deviation));
   bool beyond = false;
   for (const std::size_t k : order) {
     out += fmt::format("  {}: one standard error moves season recharge by {} mm; {:.0f}% of the variance\n",
-                       fit.parameters[k].name, mm(moved(k)), 100 * season.variance_share[k]);
+                       fit.parameters[k].name, mm_hundredths(moved(k)), 100 * season.variance_share[k]);
     beyond = beyond || season.variance_share[k] < 0 || season.variance_share[k] > 1;
   }
   if (beyond)
@@ -103,43 +76,9 @@ std::string parameters_text(const ParameterStudy& study) {
   for (const auto& p : study.parameters) {
     const auto& r = p.range;
     text += fmt::format("  {}: {} to {}, {} scale, site value {}\n", r.name, parameter_value_text(r, r.lower),
-                        parameter_value_text(r, r.upper), scale_text(r), parameter_value_text(r, r.start));
+                        parameter_value_text(r, r.upper), scale_name(r), parameter_value_text(r, r.start));
   }
   return text;
-}
-
-ReportTable sweep_table(const SeasonModel& model, const SweepResult& sweep) {
-  ReportTable table;
-  table.headers = {"rank", "set"};
-  for (const auto& p : model.study().parameters) table.headers.push_back(header_of(p.range));
-  table.headers.insert(table.headers.end(), {"objective", "head RMSE [cm]", "head bias [cm]", "head NSE", "head KGE"});
-  const bool contents = model.study().weights.water_content_uncertainty.has_value();
-  if (contents)
-    table.headers.insert(table.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
-  table.headers.push_back("season recharge [mm]");
-  for (const double end : model.interval_end_days())
-    table.headers.push_back(fmt::format("recharge to {} [mm]", date_of(model, end)));
-  table.headers.push_back("failure");
-  for (std::size_t rank = 0; rank < sweep.ranking.size(); ++rank) {
-    const ScoredRun& run = sweep.runs[sweep.ranking[rank]];
-    std::vector<std::string> row{std::to_string(rank + 1), std::to_string(sweep.ranking[rank] + 1)};
-    for (std::size_t k = 0; k < run.values.size(); ++k) row.push_back(number(run.values[k], 4));
-    if (run.complete) {
-      row.insert(row.end(), {number(run.objective, 5), metric(run.heads.root_mean_square_error), metric(run.heads.bias),
-                             metric(run.heads.nash_sutcliffe), metric(run.heads.kling_gupta)});
-      if (contents)
-        row.insert(row.end(), {metric(run.water_contents->root_mean_square_error), metric(run.water_contents->bias)});
-      row.push_back(mm(run.season_recharge_cm));
-      for (const double v : run.visit_recharge_cm) row.push_back(mm(v));
-      row.push_back("");
-    } else {
-      const std::size_t blanks = 5 + (contents ? 2 : 0) + 1 + model.interval_end_days().size();
-      row.insert(row.end(), blanks, "");
-      row.push_back(run.failure);
-    }
-    table.add_row(std::move(row));
-  }
-  return table;
 }
 
 std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std::size_t shown, double seconds,
@@ -161,14 +100,14 @@ std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std
   ReportTable full = sweep_table(model, sweep);
   ReportTable top;
   top.title = fmt::format("Best {} of {} sets (lowest objective first); recharge across {}",
-                          std::min(shown, full.rows.size()), full.rows.size(), plane_text(model));
+                          std::min(shown, full.rows.size()), full.rows.size(), recharge_plane_text(model));
   // The printed table keeps the parameter, fit and season columns; the CSV has every interval.
   const std::size_t season_column =
       std::find(full.headers.begin(), full.headers.end(), "season recharge [mm]") - full.headers.begin();
   top.headers.assign(full.headers.begin(), full.headers.begin() + static_cast<std::ptrdiff_t>(season_column + 1));
   for (std::size_t i = 0; i < std::min(shown, full.rows.size()); ++i)
     top.add_row({full.rows[i].begin(), full.rows[i].begin() + static_cast<std::ptrdiff_t>(season_column + 1)});
-  out += "\n" + format_table(top);
+  out += fmt::format("\n{}", format_table(top));
   if (!complete_recharge.empty()) {
     std::vector<double> best_tenth;
     const std::size_t tenth = std::max<std::size_t>(1, complete_recharge.size() / 10);
@@ -178,54 +117,14 @@ std::string sweep_report(const SeasonModel& model, const SweepResult& sweep, std
     out += fmt::format(
         "\nSeason recharge: {} to {} mm over the best {} set(s) (the best tenth); {} to {} mm over all {} complete "
         "sets.\n",
-        mm(*low_best), mm(*high_best), tenth, mm(*low_all), mm(*high_all), complete_recharge.size());
+        mm_hundredths(*low_best), mm_hundredths(*high_best), tenth, mm_hundredths(*low_all), mm_hundredths(*high_all),
+        complete_recharge.size());
   }
   if (failed > 0)
     out += fmt::format("{} run(s) did not finish; they are ranked last with the reason in the CSV.\n", failed);
   out +=
       "A sweep shows which sets are consistent with the readings; it is not a probability distribution of recharge.\n";
   return out + kSweepCautions;
-}
-
-ReportTable calibration_recharge_table(const SeasonModel& model, const CalibrationStudy& study) {
-  ReportTable table;
-  table.title = fmt::format("Recharge across {}", plane_text(model));
-  table.headers = {"interval",
-                   "from",
-                   "to",
-                   "at start [mm]",
-                   "calibrated [mm]",
-                   "first-order 95% low [mm]",
-                   "first-order 95% high [mm]",
-                   "sampled 2.5% [mm]",
-                   "sampled median [mm]",
-                   "sampled 97.5% [mm]"};
-  const auto& ends = model.interval_end_days();
-  for (std::size_t i = 0; i <= ends.size(); ++i) {
-    // Row 0 is the season; row i the interval ending at ends[i - 1].
-    const bool season = i == 0;
-    const double from = season || i == 1 ? 0.0 : ends[i - 2];
-    const double to = season ? ends.back() : ends[i - 1];
-    const auto value = [&](const ScoredRun& run) {
-      if (!run.complete) return std::string();
-      return mm(season ? run.season_recharge_cm : run.visit_recharge_cm.at(i - 1));
-    };
-    std::vector<std::string> row{season ? "season" : std::to_string(i), date_of(model, from), date_of(model, to),
-                                 value(study.before), value(study.after)};
-    if (i < study.first_order.size()) {
-      row.push_back(mm(study.first_order[i].lower));
-      row.push_back(mm(study.first_order[i].upper));
-    } else {
-      row.insert(row.end(), 2, "");
-    }
-    if (i < study.band.size()) {
-      row.insert(row.end(), {mm(study.band[i].low), mm(study.band[i].median), mm(study.band[i].high)});
-    } else {
-      row.insert(row.end(), 3, "");
-    }
-    table.add_row(std::move(row));
-  }
-  return table;
 }
 
 std::string calibration_report(const SeasonModel& model, const CalibrationStudy& study, double seconds,
@@ -253,7 +152,7 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
       low = number(from_search_scale(p, lo), 4);
       high = number(from_search_scale(p, hi), 4);
     }
-    parameters.add_row({p.name, p.unit, scale_text(p), number(fit.start[k], 4), number(fit.best[k], 4),
+    parameters.add_row({p.name, p.unit, scale_name(p), number(fit.start[k], 4), number(fit.best[k], 4),
                         std::isfinite(se) ? number(se, 3) : "unavailable", low, high});
   }
   out += "\n" + format_table(parameters);
@@ -280,14 +179,12 @@ std::string calibration_report(const SeasonModel& model, const CalibrationStudy&
   if (contents)
     residuals.headers.insert(residuals.headers.end(), {"water content RMSE [cm3/cm3]", "water content bias [cm3/cm3]"});
   for (const auto* run : {&study.before, &study.after}) {
-    std::vector<std::string> row{run == &study.before ? "at start" : "calibrated",
-                                 number(run->objective, 5),
-                                 metric(run->heads.root_mean_square_error),
-                                 metric(run->heads.bias),
-                                 metric(run->heads.nash_sutcliffe),
-                                 metric(run->heads.kling_gupta)};
+    std::vector<std::string> row{run == &study.before ? "at start" : "calibrated", number(run->objective, 5),
+                                 metric_text(run->heads.root_mean_square_error),   metric_text(run->heads.bias),
+                                 metric_text(run->heads.nash_sutcliffe),           metric_text(run->heads.kling_gupta)};
     if (contents && run->water_contents)
-      row.insert(row.end(), {metric(run->water_contents->root_mean_square_error), metric(run->water_contents->bias)});
+      row.insert(row.end(),
+                 {metric_text(run->water_contents->root_mean_square_error), metric_text(run->water_contents->bias)});
     residuals.add_row(std::move(row));
   }
   out += "\n" + format_table(residuals);

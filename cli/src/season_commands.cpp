@@ -12,7 +12,6 @@
 #include "wetfront/site/adjustable_parameters.hpp"
 #include "command_output.hpp"
 #include "exit_codes.hpp"
-#include "run_file_probe.hpp"
 #include "wetfront/base/input_error.hpp"
 #include "parameter_report.hpp"
 #include "wetfront/site/report_table.hpp"
@@ -20,6 +19,8 @@
 #include "wetfront/site/grid_check.hpp"
 #include "wetfront/site/output_files.hpp"
 #include "wetfront/site/run_season.hpp"
+#include "wetfront/site/season_files.hpp"
+#include "wetfront/site/season_tables.hpp"
 #include "wetfront/site/season_setup.hpp"
 #include "wetfront/site/sensor_check.hpp"
 #include "sensor_report.hpp"
@@ -33,24 +34,6 @@ namespace wetfront::cli {
 
 using namespace wetfront::site;  // the application library these commands drive
 namespace {
-
-std::filesystem::path default_output(const std::filesystem::path& site_file) {
-  std::filesystem::path out = site_file;
-  out.replace_extension(".h5");
-  return out;
-}
-
-std::filesystem::path visits_csv_path(const std::filesystem::path& run_file) {
-  std::filesystem::path csv = run_file;
-  csv.replace_filename(run_file.stem().string() + "-visits.csv");
-  return csv;
-}
-
-std::filesystem::path sensors_csv_path(const std::filesystem::path& run_file) {
-  std::filesystem::path csv = run_file;
-  csv.replace_filename(run_file.stem().string() + "-sensors.csv");
-  return csv;
-}
 
 // Runs the solver on a worker thread, each profile to `observe`; prints a progress line on stderr
 // once it has taken longer than a second.
@@ -183,14 +166,20 @@ std::string grid_check_text(const GridCheck& check) {
   return out;
 }
 
+// What `run` and `check` read: the site file, the period (--from, --to) and whether to check the grid.
+struct SeasonOptions {
+  std::string site;
+  std::string from;
+  std::string to;
+  bool grid_check = false;
+};
+
+SiteSetup load_site(const SeasonOptions& o) { return load_site_file(o.site, {o.from, o.to}); }
+
 void add_run_command(CLI::App& app) {
-  struct Options {
-    std::string site;
+  struct Options : SeasonOptions {
     std::string out;
-    std::string from;
-    std::string to;
     bool quiet = false;
-    bool grid_check = false;
     bool force = false;
   };
   auto options = std::make_shared<Options>();
@@ -212,45 +201,40 @@ void add_run_command(CLI::App& app) {
       "Example:\n  wetfront run examples/demo/site.toml --out season.h5");
   cmd->callback([options] {
     const std::filesystem::path site_file = options->site;
-    SiteSetup site = load_site_file(site_file, {options->from, options->to});
-    const std::filesystem::path out =
-        options->out.empty() ? default_output(site_file) : std::filesystem::path(options->out);
+    SiteSetup site = load_site(*options);
+    const SeasonFiles files =
+        options->out.empty() ? default_season_files(site_file) : season_files(std::filesystem::path(options->out));
+    const std::filesystem::path& out = files.run_file;
     // Before any work: the folder, the files read, files of other programs, another writer.
-    const OutputGuard guard({.outputs = {out, visits_csv_path(out), sensors_csv_path(out)},
+    const OutputGuard guard({.outputs = {out, files.visits_csv, files.sensors_csv},
                              .inputs = site_input_files(site),
                              .force = options->force});
     Season season = prepare_season(std::move(site));
     const SiteSetup site_setup = season.site;
+    const std::string label = fmt::format("{} to {}", site_setup.run_start_text, site_setup.run_end_text);
     const auto started = std::chrono::steady_clock::now();
-    // The profiles go to the run file's temporary name as the run reaches them.
-    std::optional<profiles::RunFileStream> stream;
-    std::optional<SeasonResult> streamed;
-    try {
-      stream.emplace(out, site_setup.run_start_text, season.problem.grid.cell_depths_cm(),
-                     season.problem.grid.face_depths_cm());
-      const std::string label = fmt::format("{} to {}", site_setup.run_start_text, site_setup.run_end_text);
-      streamed = run_season_streamed(std::move(season), *stream, WETFRONT_VERSION,
-                                     [&](const solver::ColumnProblem& problem, const solver::OutputObserver& observe) {
-                                       return simulate_with_progress(problem, observe, options->quiet, label);
-                                     });
-    } catch (const profiles::RunFileError& error) {
-      throw base::InputError(error.what());
-    }
-    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
-    SeasonResult& result = *streamed;
-    const bool complete = result.complete;
+    double seconds = 0;
     std::optional<GridCheck> grid;
-    if (options->grid_check && complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
-    const bool metrics = write_season_files(result.record, result.sensors, out, visits_csv_path(out),
-                                            sensors_csv_path(out), &*stream);
+    const WrittenSeason written = run_season_to_files(
+        std::move(season), files, WETFRONT_VERSION,
+        [&](const solver::ColumnProblem& problem, const solver::OutputObserver& observe) {
+          return simulate_with_progress(problem, observe, options->quiet, label);
+        },
+        [&](const SeasonResult& result) {
+          seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+          if (options->grid_check && result.complete) grid = check_grid(site_setup, result, WETFRONT_VERSION);
+        });
+    const SeasonResult& result = written.result;
+    const bool complete = result.complete;
+    const bool metrics = written.sensor_table;
     const profiles::RunRecord& record = result.record;
     const SensorCheck& sensors = result.sensors;
     if (!options->quiet) {
       fmt::print("{}", season_report(record, season_notes(result.season), &sensors));
       if (grid) fmt::print("{}", grid_check_text(*grid));
       fmt::print("\nRun time {:.2f} s. Wrote {}{} and {}\n", seconds, out.string(),
-                 metrics ? fmt::format(", {}", visits_csv_path(out).string()) : std::string(),
-                 (metrics ? sensors_csv_path(out) : visits_csv_path(out)).string());
+                 metrics ? fmt::format(", {}", files.visits_csv.string()) : std::string(),
+                 (metrics ? files.sensors_csv : files.visits_csv).string());
     }
     if (!complete) {
       const auto& failure = record.run.failure;
@@ -265,13 +249,7 @@ void add_run_command(CLI::App& app) {
 }
 
 void add_check_command(CLI::App& app) {
-  struct Options {
-    std::string site;
-    std::string from;
-    std::string to;
-    bool grid_check = false;
-  };
-  auto options = std::make_shared<Options>();
+  auto options = std::make_shared<SeasonOptions>();
   CLI::App* cmd = app.add_subcommand(
       "check", "Check a site file and its field records, and print the resolved setup without running");
   cmd->add_option("SITE", options->site, "site file (TOML); see docs/site-file.md")->required();
@@ -284,7 +262,7 @@ void add_check_command(CLI::App& app) {
       "Exit codes: 0 the site is usable, 1 it is not (the message names the file, line and key).\n"
       "Example:\n  wetfront check examples/demo/site.toml");
   cmd->callback([options] {
-    const Season season = prepare_season(load_site_file(options->site, {options->from, options->to}));
+    const Season season = prepare_season(load_site(*options));
     const ParameterStudy study = load_parameter_study(season.site);
     fmt::print("{}", resolved_setup(season));
     if (!study.parameters.empty()) fmt::print("{}", parameters_text(study));
@@ -301,15 +279,10 @@ void add_check_command(CLI::App& app) {
   });
 }
 
-// The CSV files `run` wrote beside a run file must carry its run id; after a run stopped between
-// its renames, or a file copied from elsewhere, they do not, and the user is told.
-void report_mismatched_set(const std::filesystem::path& run_file, const profiles::RunRecord& record) {
-  if (record.run_id.empty()) return;  // a run file from before run ids
-  for (const auto& csv : {visits_csv_path(run_file), sensors_csv_path(run_file)}) {
-    std::error_code error;
-    if (!std::filesystem::exists(csv, error)) continue;
-    const std::string id = csv_run_id(csv);
-    if (id == record.run_id) continue;
+// The CSV files `run` wrote beside a run file must carry its run id; the user is told of any that
+// does not.
+void report_foreign_tables(const std::filesystem::path& run_file, const profiles::RunRecord& record) {
+  for (const auto& [csv, id] : foreign_tables(season_files(run_file), record)) {
     fmt::print(stderr,
                "warning: {} does not belong to this run file (run id {}, the run file has {}): a run was stopped "
                "while writing or the files come from different runs; run the site again to make a matching set\n",
@@ -339,36 +312,11 @@ void add_show_command(CLI::App& app) {
       throw base::InputError(options->csv, 0, "", "--csv and --sensors-csv name the same file; give two names");
     const OutputGuard guard(
         {.outputs = {options->csv, options->sensors_csv}, .inputs = {options->run_file}, .force = options->force});
-    profiles::RunRecord record;
-    try {
-      probe_run_file(options->run_file);
-      record = profiles::read_run(options->run_file, profiles::ProfileReading::leave_out);
-    } catch (const profiles::RunFileError& error) {
-      throw base::InputError(error.what());
-    }
-    std::optional<SensorCheck> sensors;
-    if (record.sensor_comparison || record.darcy_estimate || record.water_table_estimate || record.stored_water) {
-      sensors = check_from_record(record);
-    }
-    if (!options->sensors_csv.empty()) {
-      if (!sensors || (sensors->sensors.empty() && sensors->pooled.empty())) {
-        throw base::InputError(
-            fmt::format("{}: the run file holds no sensor comparison, so there are no fit metrics for {}",
-                        options->run_file, options->sensors_csv));
-      }
-    }
-    fmt::print("{}", season_report(record, {}, sensors ? &*sensors : nullptr));
-    report_mismatched_set(options->run_file, record);
-    if (!options->csv.empty()) {
-      ReportTable table = visit_balance_table(record, sensors ? &*sensors : nullptr);
-      table.run_id = record.run_id;
-      write_csv(table, options->csv);
-    }
-    if (!options->sensors_csv.empty()) {
-      ReportTable table = sensor_metrics_table(*sensors);
-      table.run_id = record.run_id;
-      write_csv(table, options->sensors_csv);
-    }
+    const StoredRun stored = read_stored_run(options->run_file);
+    check_stored_tables(stored, options->sensors_csv);
+    fmt::print("{}", season_report(stored.record, {}, stored.sensors ? &*stored.sensors : nullptr));
+    report_foreign_tables(options->run_file, stored.record);
+    write_stored_tables(stored, options->csv, options->sensors_csv);
   });
 }
 

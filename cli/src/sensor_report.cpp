@@ -5,6 +5,10 @@
 #include <optional>
 #include <vector>
 
+#include <fmt/format.h>
+
+#include "wetfront/site/season_tables.hpp"
+
 namespace wetfront::cli {
 
 using namespace wetfront::site;  // the application library these commands drive
@@ -196,34 +200,6 @@ std::string water_table_section(const WaterTableCheck& w) {
         "      nearby, and the time drainage takes from the recharge plane down to the water table\n";
   }
   return out + "\n";
-}
-
-ReportTable sensor_metrics_table(const SensorCheck& sensors) {
-  ReportTable table;
-  table.title = "Fit metrics per sensor and pooled";
-  table.headers = {"sensor",
-                   "depth [cm]",
-                   "quantity",
-                   "unit",
-                   "readings used",
-                   "left out beyond working limit",
-                   "left out outside run",
-                   "left out outside cell centres",
-                   "bias [see unit]",
-                   "RMSE [see unit]",
-                   "NSE [1]",
-                   "KGE [1]"};
-  auto add = [&](const SensorFitRow& r) {
-    auto plain = [](double v) { return std::isnan(v) ? std::string("") : fmt::format("{:.6g}", v); };
-    table.add_row({r.name, std::isnan(r.depth_cm) ? std::string("") : number(r.depth_cm), r.quantity, r.unit,
-                   fmt::format("{}", r.metrics.count), fmt::format("{}", r.beyond_working_limit),
-                   fmt::format("{}", r.outside_run), fmt::format("{}", r.outside_depth), plain(r.metrics.bias),
-                   plain(r.metrics.root_mean_square_error), plain(r.metrics.nash_sutcliffe),
-                   plain(r.metrics.kling_gupta)});
-  };
-  for (const auto& r : sensors.sensors) add(r);
-  for (const auto& r : sensors.pooled) add(r);
-  return table;
 }
 
 }  // namespace wetfront::cli

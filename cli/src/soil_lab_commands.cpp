@@ -5,12 +5,8 @@
 #include <fmt/format.h>
 
 #include "command_output.hpp"
-#include "wetfront/base/input_error.hpp"
-#include "wetfront/base/quantity.hpp"
-#include "wetfront/site/lab_analysis.hpp"
 #include "soil_commands.hpp"
-#include "wetfront/soils/core_samples.hpp"
-#include "wetfront/soils/lab_csv.hpp"
+#include "wetfront/site/lab_analysis.hpp"
 
 namespace wetfront::cli {
 
@@ -36,38 +32,7 @@ void add_cores_command(CLI::App& soil) {
       "  wetfront soil cores examples/soil-data/cores.csv --steps examples/soil-data/suction-steps.csv --csv "
       "points.csv",
       [options] {
-        const auto cores = soils::read_core_samples_csv(options->inputs.cores_file);
-        ReportTable table;
-        table.title = fmt::format("Ring samples of {} (particle density {} g/cm3 for porosity, common practice)",
-                                  options->inputs.cores_file, soils::kMineralParticleDensity_g_per_cm3);
-        table.headers = {"sample", "water content [cm3/cm3]", "water content [g/g]", "dry bulk density [g/cm3]",
-                         "porosity [cm3/cm3]"};
-        for (const auto& core : cores) {
-          const auto p = soils::core_properties(core);
-          table.add_row({core.name, number(p.volumetric_water_content), number(p.gravimetric_water_content_g_per_g),
-                         number(p.dry_bulk_density_g_per_cm3), number(soils::porosity(p.dry_bulk_density_g_per_cm3))});
-        }
-        std::vector<ReportTable> tables = {table};
-        if (!options->inputs.steps_file.empty()) {
-          std::vector<soils::RetentionSeries> series;
-          try {
-            series = soils::retention_from_cores(cores, soils::read_suction_steps_csv(options->inputs.steps_file));
-          } catch (const base::InputError& error) {
-            throw base::InputError(options->inputs.steps_file, 0, "sample", error.what());
-          }
-          ReportTable points;
-          points.title = fmt::format("Retention points from the suction steps of {}", options->inputs.steps_file);
-          points.headers = {"sample", "suction [cm]", "suction [kPa]", "water content [cm3/cm3]"};
-          for (const auto& s : series) {
-            for (const auto& point : s.points) {
-              points.add_row({s.sample, number(point.suction_cm),
-                              number(point.suction_cm / base::kCentimetresOfWaterPerKilopascal),
-                              number(point.water_content)});
-            }
-          }
-          tables.push_back(points);
-        }
-        emit_report(tables, {}, options->csv_path);
+        emit_report(core_tables(options->inputs.cores_file, options->inputs.steps_file), {}, options->csv_path);
       });
 }
 

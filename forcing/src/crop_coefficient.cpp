@@ -16,7 +16,8 @@ namespace wetfront::forcing {
 
 namespace {
 
-void check_stages(const GrowthStageLengths& s, double planting_day, const char* who) {
+void check_calendar(const CropCalendar& calendar, const char* who) {
+  const GrowthStageLengths& s = calendar.stages;
   auto length = [&](double v, const char* name) {
     if (!(v >= 0 && std::isfinite(v)))
       throw base::InputError(fmt::format("{}: {} stage length {:g} d; expected a length >= 0 days", who, name, v));
@@ -27,7 +28,8 @@ void check_stages(const GrowthStageLengths& s, double planting_day, const char* 
   length(s.late_season_days, "late season");
   if (!(s.season_days() > 0))
     throw base::InputError(fmt::format("{}: the four stages add up to zero days; expected a season", who));
-  if (!std::isfinite(planting_day)) throw base::InputError(fmt::format("{}: planting day must be finite", who));
+  if (!std::isfinite(calendar.planting_day))
+    throw base::InputError(fmt::format("{}: planting day must be finite", who));
 }
 
 struct NamedCoefficient {
@@ -36,9 +38,8 @@ struct NamedCoefficient {
 };
 
 // The growth stages, then each coefficient in [0, 2].
-void check_curve(const GrowthStageLengths& stages, double planting_day, const char* who,
-                 std::initializer_list<NamedCoefficient> coefficients) {
-  check_stages(stages, planting_day, who);
+void check_curve(const CropCalendar& calendar, const char* who, std::initializer_list<NamedCoefficient> coefficients) {
+  check_calendar(calendar, who);
   for (const auto& [v, name] : coefficients)
     if (!(v >= 0 && v <= 2))
       throw base::InputError(fmt::format("{}: {} = {:g}; expected a coefficient from 0 to 2", who, name, v));
@@ -67,8 +68,10 @@ GrowthStage growth_stage_at(double planting_day, const GrowthStageLengths& s, do
 }
 
 void check_crop_curve(const CropCoefficientCurve& c) {
-  check_curve(c.stages, c.planting_day, "crop coefficient curve",
-              {{c.kc_initial, "Kc initial"}, {c.kc_mid, "Kc mid-season"}, {c.kc_end, "Kc end of season"},
+  check_curve(c, "crop coefficient curve",
+              {{c.kc_initial, "Kc initial"},
+               {c.kc_mid, "Kc mid-season"},
+               {c.kc_end, "Kc end of season"},
                {c.kc_bare_soil, "bare-soil coefficient"}});
 }
 
@@ -88,9 +91,11 @@ double crop_coefficient_at(const CropCoefficientCurve& c, double day) {
 }
 
 void check_pan_to_crop_factors(const PanToCropFactors& f) {
-  check_curve(f.stages, f.planting_day, "pan-to-crop factors",
-              {{f.initial, "initial stage factor"}, {f.development, "development stage factor"},
-               {f.mid_season, "mid-season factor"}, {f.late_season, "late season factor"},
+  check_curve(f, "pan-to-crop factors",
+              {{f.initial, "initial stage factor"},
+               {f.development, "development stage factor"},
+               {f.mid_season, "mid-season factor"},
+               {f.late_season, "late season factor"},
                {f.bare_soil, "bare-soil factor"}});
 }
 

@@ -226,6 +226,17 @@ Dataset write_one_dimensional(hid_t parent, std::string_view name, std::span<con
   return dataset;
 }
 
+// A scalar dataset of `file_type` on disk, written from `value` in `memory_type`.
+Dataset write_scalar(hid_t parent, std::string_view name, hid_t file_type, hid_t memory_type, const void* value,
+                     const Description& about) {
+  Dataspace space = simple_space({});
+  Dataset dataset = create_dataset(parent, name, file_type, space);
+  check(H5Dwrite(dataset.id(), memory_type, H5S_ALL, H5S_ALL, H5P_DEFAULT, value),
+        fmt::format("writing dataset {}", child_path(parent, name)));
+  describe(parent, name, about);
+  return dataset;
+}
+
 }  // namespace
 
 Dataset write_vector(hid_t parent, std::string_view name, std::span<const double> values, Description about) {
@@ -256,12 +267,7 @@ Dataset write_integers(hid_t parent, std::string_view name, std::span<const std:
 }
 
 Dataset write_integer_scalar(hid_t parent, std::string_view name, std::int64_t value, Description about) {
-  Dataspace space = simple_space({});
-  Dataset dataset = create_dataset(parent, name, H5T_STD_I64LE, space);
-  check(H5Dwrite(dataset.id(), H5T_NATIVE_INT64, H5S_ALL, H5S_ALL, H5P_DEFAULT, &value),
-        fmt::format("writing dataset {}", child_path(parent, name)));
-  describe(parent, name, about);
-  return dataset;
+  return write_scalar(parent, name, H5T_STD_I64LE, H5T_NATIVE_INT64, &value, about);
 }
 
 Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::string>& values, Description about) {
@@ -281,12 +287,7 @@ Dataset write_texts(hid_t parent, std::string_view name, const std::vector<std::
 }
 
 Dataset write_double_scalar(hid_t parent, std::string_view name, double value, Description about) {
-  Dataspace space = simple_space({});
-  Dataset dataset = create_dataset(parent, name, H5T_IEEE_F64LE, space);
-  check(H5Dwrite(dataset.id(), H5T_NATIVE_DOUBLE, H5S_ALL, H5S_ALL, H5P_DEFAULT, &value),
-        fmt::format("writing dataset {}", child_path(parent, name)));
-  describe(parent, name, about);
-  return dataset;
+  return write_scalar(parent, name, H5T_IEEE_F64LE, H5T_NATIVE_DOUBLE, &value, about);
 }
 
 Dataset write_text_scalar(hid_t parent, std::string_view name, const std::string& value, std::string_view long_name) {

@@ -52,13 +52,33 @@ py::dict profile_arrays(const Result& r) {
   d["time"] = column(p, [](const auto& s) { return s.time_days; });
   d["cell_depth"] = vector_array(run.cell_depths_cm);
   d["face_depth"] = vector_array(run.face_depths_cm);
-  d["head"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.head_cm; });
-  d["water_content"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.water_content; });
-  d["conductivity"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.conductivity_cm_per_d; });
-  d["root_uptake"] = matrix(p, cells, [](const auto& s) -> const auto& { return s.sink_rate_per_day; });
-  d["flux"] = matrix(p, faces, [](const auto& s) -> const auto& { return s.face_flux_cm_per_d; });
+  d["head"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.head_cm; });
+  d["water_content"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.water_content; });
+  d["conductivity"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.conductivity_cm_per_d; });
+  d["root_uptake"] = matrix(
+      p, cells, [](const auto& s) -> const auto& { return s.sink_rate_per_day; });
+  d["flux"] = matrix(
+      p, faces, [](const auto& s) -> const auto& { return s.face_flux_cm_per_d; });
   d["ponded_depth"] = column(p, [](const auto& s) { return s.ponded_depth_cm; });
   return d;
+}
+
+// The amounts the cumulative balance rows and the visit intervals share (cm, fluxes positive
+// downward), one column each, and the flux across each recharge plane.
+template <class Row>
+void add_flux_columns(py::dict& d, const std::vector<Row>& rows, std::size_t planes) {
+  d["water_input"] = column(rows, [](const auto& x) { return x.water_input_cm; });
+  d["potential_evaporation"] = column(rows, [](const auto& x) { return x.potential_evaporation_cm; });
+  d["actual_evaporation"] = column(rows, [](const auto& x) { return x.actual_evaporation_cm; });
+  d["runoff"] = column(rows, [](const auto& x) { return x.runoff_cm; });
+  d["infiltration"] = column(rows, [](const auto& x) { return x.infiltration_cm; });
+  d["transpiration"] = column(rows, [](const auto& x) { return x.transpiration_cm; });
+  d["bottom_flux"] = column(rows, [](const auto& x) { return x.bottom_flux_cm; });
+  d["plane_flux"] = matrix(
+      rows, planes, [](const auto& x) -> const auto& { return x.plane_flux_cm; });
 }
 
 py::dict balance_arrays(const Result& r) {
@@ -66,14 +86,7 @@ py::dict balance_arrays(const Result& r) {
   const std::size_t planes = r.season.record.flux_plane_depths_cm.size();
   py::dict d;
   d["time"] = column(b, [](const auto& x) { return x.time_days; });
-  d["water_input"] = column(b, [](const auto& x) { return x.water_input_cm; });
-  d["potential_evaporation"] = column(b, [](const auto& x) { return x.potential_evaporation_cm; });
-  d["actual_evaporation"] = column(b, [](const auto& x) { return x.actual_evaporation_cm; });
-  d["runoff"] = column(b, [](const auto& x) { return x.runoff_cm; });
-  d["infiltration"] = column(b, [](const auto& x) { return x.infiltration_cm; });
-  d["transpiration"] = column(b, [](const auto& x) { return x.transpiration_cm; });
-  d["bottom_flux"] = column(b, [](const auto& x) { return x.bottom_flux_cm; });
-  d["plane_flux"] = matrix(b, planes, [](const auto& x) -> const auto& { return x.plane_flux_cm; });
+  add_flux_columns(d, b, planes);
   d["ponded_depth"] = column(b, [](const auto& x) { return x.ponded_depth_cm; });
   d["soil_storage"] = column(b, [](const auto& x) { return x.soil_storage_cm; });
   d["balance_error"] = column(b, [](const auto& x) { return x.balance_error_cm; });
@@ -108,14 +121,7 @@ py::dict visit_arrays(const Result& r) {
   py::dict d;
   d["start_day"] = column(v, [](const auto& x) { return x.start_day; });
   d["end_day"] = column(v, [](const auto& x) { return x.end_day; });
-  d["water_input"] = column(v, [](const auto& x) { return x.water_input_cm; });
-  d["potential_evaporation"] = column(v, [](const auto& x) { return x.potential_evaporation_cm; });
-  d["actual_evaporation"] = column(v, [](const auto& x) { return x.actual_evaporation_cm; });
-  d["runoff"] = column(v, [](const auto& x) { return x.runoff_cm; });
-  d["infiltration"] = column(v, [](const auto& x) { return x.infiltration_cm; });
-  d["transpiration"] = column(v, [](const auto& x) { return x.transpiration_cm; });
-  d["bottom_flux"] = column(v, [](const auto& x) { return x.bottom_flux_cm; });
-  d["plane_flux"] = matrix(v, planes, [](const auto& x) -> const auto& { return x.plane_flux_cm; });
+  add_flux_columns(d, v, planes);
   d["recharge"] = column(v, [](const auto& x) { return x.plane_flux_cm.empty() ? std::nan("") : x.plane_flux_cm[0]; });
   d["ponded_change"] = column(v, [](const auto& x) { return x.ponded_change_cm; });
   d["storage_change"] = column(v, [](const auto& x) { return x.storage_change_cm; });

@@ -8,6 +8,7 @@
 #include "wetfront/base/quantity.hpp"
 #include "wetfront/soils/core_samples.hpp"
 #include "wetfront/soils/lab_csv.hpp"
+#include "wetfront/soils/texture_classes.hpp"
 
 namespace wetfront::site {
 namespace {
@@ -153,6 +154,61 @@ RetentionReport analyse_retention(const RetentionInputs& inputs) {
                                   chosen_series.label, chosen.point_count, number(chosen.rmse, 3),
                                   options.fixed_residual_water_content ? ", theta_r held fixed" : "");
   return report;
+}
+
+std::vector<ReportTable> core_tables(const std::string& cores_file, const std::string& steps_file) {
+  const auto cores = soils::read_core_samples_csv(cores_file);
+  ReportTable table;
+  table.title = fmt::format("Ring samples of {} (particle density {} g/cm3 for porosity, common practice)", cores_file,
+                            soils::kMineralParticleDensity_g_per_cm3);
+  table.headers = {"sample", "water content [cm3/cm3]", "water content [g/g]", "dry bulk density [g/cm3]",
+                   "porosity [cm3/cm3]"};
+  for (const auto& core : cores) {
+    const auto p = soils::core_properties(core);
+    table.add_row({core.name, number(p.volumetric_water_content), number(p.gravimetric_water_content_g_per_g),
+                   number(p.dry_bulk_density_g_per_cm3), number(soils::porosity(p.dry_bulk_density_g_per_cm3))});
+  }
+  std::vector<ReportTable> tables = {table};
+  if (!steps_file.empty()) {
+    std::vector<soils::RetentionSeries> series;
+    try {
+      series = soils::retention_from_cores(cores, soils::read_suction_steps_csv(steps_file));
+    } catch (const base::InputError& error) {
+      throw base::InputError(steps_file, 0, "sample", error.what());
+    }
+    ReportTable points;
+    points.title = fmt::format("Retention points from the suction steps of {}", steps_file);
+    points.headers = {"sample", "suction [cm]", "suction [kPa]", "water content [cm3/cm3]"};
+    for (const auto& s : series) {
+      for (const auto& point : s.points) {
+        points.add_row({s.sample, number(point.suction_cm),
+                        number(point.suction_cm / base::kCentimetresOfWaterPerKilopascal),
+                        number(point.water_content)});
+      }
+    }
+    tables.push_back(points);
+  }
+  return tables;
+}
+
+ReportTable texture_table(const std::string& name) {
+  ReportTable table;
+  table.title = "Class-average parameters, Carsel & Parrish (1988); pore connectivity l = 0.5 (Mualem 1976)";
+  table.headers = {"texture class", "theta_r [cm3/cm3]", "theta_s [cm3/cm3]", "alpha [1/cm]", "n [-]", "Ks [cm/d]"};
+  auto add = [&](std::string_view class_name, const soils::VanGenuchtenMualem& p) {
+    table.add_row({std::string(class_name), number(p.residual_water_content), number(p.saturated_water_content),
+                   number(p.alpha_per_cm), number(p.n), number(p.saturated_conductivity_cm_per_d)});
+  };
+  if (name.empty()) {
+    for (const auto& c : soils::texture_classes()) add(c.name, c.parameters);
+  } else {
+    try {
+      add(name, soils::texture_class_parameters(name));
+    } catch (const base::InputError& error) {
+      throw base::InputError(fmt::format("texture class: {}", error.what()));
+    }
+  }
+  return table;
 }
 
 }  // namespace wetfront::site

@@ -12,6 +12,7 @@
 #include "wetfront/base/input_error.hpp"
 #include "wetfront/base/time_point.hpp"
 #include "wetfront/profiles/visit_balance.hpp"
+#include "wetfront/site/season_tables.hpp"
 #include "wetfront/site/site_keys.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
 
@@ -19,13 +20,6 @@ namespace wetfront::site {
 namespace {
 
 constexpr double kMissing = std::numeric_limits<double>::quiet_NaN();
-constexpr double kMmPerCm = 10.0;
-
-std::string date_after(const std::string& run_start, double days) {
-  const auto start = base::parse_timestamp(run_start);
-  if (!start) return fmt::format("day {:.2f}", days);
-  return base::format_timestamp(base::time_after(*start, std::round(days * 86400.0) / 86400.0));
-}
 
 // The estimate for the interval ending at end_day, if it has one.
 std::optional<double> estimate_for(const std::vector<EstimateInterval>& intervals, double start_day, double end_day) {

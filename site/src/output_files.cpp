@@ -203,4 +203,10 @@ std::string csv_run_id(const fs::path& path) {
   return {};
 }
 
+std::filesystem::path beside(const std::filesystem::path& path, const std::string& suffix) {
+  std::filesystem::path out = path;
+  out.replace_filename(path.stem().string() + suffix);
+  return out;
+}
+
 }  // namespace wetfront::site

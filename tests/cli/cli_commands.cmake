@@ -19,6 +19,16 @@ endfunction()
 set(well_options --well-radius "3 cm" --reservoir-area "35.4 cm2")
 set(disc_options --disc-radius "10 cm" --tower-area "19.6 cm2")
 
+# wetfront_bad_file_check(NAME TEST FILE REGEX): `wetfront soil TEST` on tests/cli/data/FILE.csv
+# with the usual sizes exits 1, and the message names FILE.csv followed by REGEX.
+function(wetfront_bad_file_check name test file regex)
+  set(sizes ${well_options})
+  if(test STREQUAL "infiltrometer")
+    set(sizes ${disc_options})
+  endif()
+  wetfront_cli_check(${name} 1 "${file}\\.csv${regex}" soil ${test} ${bad_dir}/${file}.csv ${sizes})
+endfunction()
+
 wetfront_cli_check(version 0 "wetfront 0\\.1\\.0" --version)
 wetfront_cli_check(soil_help 0 "permeameter" soil --help)
 wetfront_cli_check(permeameter_help_example 0 "Example:.*wetfront soil permeameter" soil permeameter --help)
@@ -51,26 +61,23 @@ wetfront_cli_check(texture_loam 0 "loam +0\\.078 +0\\.43 +0\\.036 +1\\.56 +24\\.
 wetfront_cli_check(texture_unknown 1 "did you mean 'loam'" soil texture lome)
 
 # Bad input: exit 1 and a message naming file, line and column.
-wetfront_cli_check(bad_missing_file 1 "no-such-file\\.csv: cannot open"
-                   soil permeameter ${bad_dir}/no-such-file.csv ${well_options})
-wetfront_cli_check(bad_times 1 "times-out-of-order\\.csv:7: column 'time': times must increase"
-                   soil permeameter ${bad_dir}/times-out-of-order.csv ${well_options})
-wetfront_cli_check(bad_missing_column 1 "missing-steady-column\\.csv:2: column 'steady': required column is missing"
-                   soil permeameter ${bad_dir}/missing-steady-column.csv ${well_options})
-wetfront_cli_check(bad_number 1 "not-a-number\\.csv:4: column 'water level': expected a number in cm, got '57\\.8x'"
-                   soil permeameter ${bad_dir}/not-a-number.csv ${well_options})
-wetfront_cli_check(bad_header_unit 1 "level-without-unit\\.csv:1: column 'water level': the header must give a unit"
-                   soil permeameter ${bad_dir}/level-without-unit.csv ${well_options})
+wetfront_bad_file_check(bad_missing_file permeameter no-such-file ": cannot open")
+wetfront_bad_file_check(bad_times permeameter times-out-of-order ":7: column 'time': times must increase")
+wetfront_bad_file_check(bad_missing_column permeameter missing-steady-column
+                        ":2: column 'steady': required column is missing")
+wetfront_bad_file_check(bad_number permeameter not-a-number
+                        ":4: column 'water level': expected a number in cm, got '57\\.8x'")
+wetfront_bad_file_check(bad_header_unit permeameter level-without-unit
+                        ":1: column 'water level': the header must give a unit")
 wetfront_cli_check(bad_option_unit 1 "option --well-radius: '3' has no unit"
                    soil permeameter ${example_dir}/well-permeameter.csv --well-radius 3 --reservoir-area "35.4 cm2")
 wetfront_cli_check(bad_soil_category 1 "option --soil: unknown soil category 'loamy'"
                    soil permeameter ${example_dir}/well-permeameter.csv ${well_options} --soil loamy)
-wetfront_cli_check(bad_disc_one_head 1 "disc-one-head\\.csv: column 'supply head': the analysis needs readings at two or more"
-                   soil infiltrometer ${bad_dir}/disc-one-head.csv ${disc_options})
-wetfront_cli_check(bad_disc_positive_head 1 "disc-positive-head\\.csv:6: column 'supply head': supply heads must be negative"
-                   soil infiltrometer ${bad_dir}/disc-positive-head.csv ${disc_options})
-wetfront_cli_check(bad_field_count 1 "wrong-field-count\\.csv:3: expected 4 comma-separated fields"
-                   soil infiltrometer ${bad_dir}/wrong-field-count.csv ${disc_options})
+wetfront_bad_file_check(bad_disc_one_head infiltrometer disc-one-head
+                        ": column 'supply head': the analysis needs readings at two or more")
+wetfront_bad_file_check(bad_disc_positive_head infiltrometer disc-positive-head
+                        ":6: column 'supply head': supply heads must be negative")
+wetfront_bad_file_check(bad_field_count infiltrometer wrong-field-count ":3: expected 4 comma-separated fields")
 wetfront_cli_check(bad_unknown_command 1 "" soil sprinkle)
 
 # Laboratory data (file formats of wetfront/soils/lab_csv.hpp). Ring A, 100 cm3, oven-dry

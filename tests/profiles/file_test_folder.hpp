@@ -1,14 +1,16 @@
 // A fresh folder per test for the tests that write run files (removed afterwards), the names in
-// it, and the message of an expected RunFileError.
+// it, the datasets of a written file, and the message of an expected RunFileError.
 #pragma once
 
 #include <fmt/format.h>
 #include <gtest/gtest.h>
+#include <hdf5.h>
 #include <unistd.h>
 
 #include <algorithm>
 #include <filesystem>
 #include <functional>
+#include <initializer_list>
 #include <string>
 #include <vector>
 
@@ -38,6 +40,15 @@ class FileTestFolder : public ::testing::Test {
 
   std::filesystem::path directory_;
 };
+
+// Opens the HDF5 file `path` read-only, calls check(file, name) for each dataset name, closes it.
+template <class Check>
+void check_datasets(const std::filesystem::path& path, std::initializer_list<const char*> names, Check check) {
+  const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
+  ASSERT_GE(file, 0) << path;
+  for (const char* name : names) check(file, name);
+  H5Fclose(file);
+}
 
 // The message of the RunFileError that `action` throws; a test failure when it throws none.
 inline std::string message_of(const std::function<void()>& action) {

@@ -65,10 +65,9 @@ TEST_F(RunFileStreamTest, WriteRunHoldsWhatTheFileBuiltWholeHeld) {
 TEST_F(RunFileStreamTest, ProfilesLieAlongTheUnlimitedTimeDimension) {
   const fs::path path = directory_ / "season.h5";
   stream_record(path, testing::sample_record());
-  const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
-  ASSERT_GE(file, 0);
-  for (const char* name :
-       {"time", "pressure_head", "water_content", "conductivity", "sink_rate", "face_flux", "ponded_depth"}) {
+  const auto names = {"time",      "pressure_head", "water_content", "conductivity",
+                      "sink_rate", "face_flux",     "ponded_depth"};
+  testing::check_datasets(path, names, [](hid_t file, const char* name) {
     const hid_t dataset = H5Dopen2(file, name, H5P_DEFAULT);
     const hid_t space = H5Dget_space(dataset);
     hsize_t dims[2] = {0, 0}, max_dims[2] = {0, 0};
@@ -77,8 +76,7 @@ TEST_F(RunFileStreamTest, ProfilesLieAlongTheUnlimitedTimeDimension) {
     EXPECT_EQ(max_dims[0], H5S_UNLIMITED) << name;
     H5Sclose(space);
     H5Dclose(dataset);
-  }
-  H5Fclose(file);
+  });
 }
 
 TEST_F(RunFileStreamTest, KilledWhileWritingProfilesTheOldFileStaysAsItWas) {

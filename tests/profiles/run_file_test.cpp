@@ -278,11 +278,9 @@ TEST_F(RunFileTest, RecordChecksNameTheField) {
 TEST_F(RunFileTest, FieldChecksUseTheirGroupsVisitIntervalAxis) {
   const fs::path path = directory_ / "season.h5";
   write_run(path, testing::sample_record());
-  const hid_t file = H5Fopen(path.c_str(), H5F_ACC_RDONLY, H5P_DEFAULT);
-  ASSERT_GE(file, 0);
-  for (const char* name :
-       {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
-        "recharge_estimates/water_table/end_depth", "stored_water/observed_change", "visits/water_input"}) {
+  const auto names = {"recharge_estimates/darcy/amount", "recharge_estimates/water_table/amount",
+                      "recharge_estimates/water_table/end_depth", "stored_water/observed_change", "visits/water_input"};
+  testing::check_datasets(path, names, [](hid_t file, const char* name) {
     const std::string group = fs::path(name).parent_path().string();
     const hid_t interval_end = H5Dopen2(file, (group + "/interval_end").c_str(), H5P_DEFAULT);
     ASSERT_GE(interval_end, 0) << group;
@@ -291,8 +289,7 @@ TEST_F(RunFileTest, FieldChecksUseTheirGroupsVisitIntervalAxis) {
     EXPECT_GT(H5DSis_attached(dataset, interval_end, 0), 0) << name;
     H5Dclose(dataset);
     H5Dclose(interval_end);
-  }
-  H5Fclose(file);
+  });
   const RunRecord back = read_run(path);
   ASSERT_TRUE(back.water_table_estimate.has_value());
   EXPECT_EQ(back.water_table_estimate->agreement[2], "differ");

@@ -42,10 +42,20 @@ class ScratchNetwork {
   ScratchNetwork& operator=(const ScratchNetwork&) = delete;
   const fs::path& folder() const { return folder_; }
   fs::path network_file() const { return folder_ / "network.toml"; }
+  // `wetfront network` on the network file, in the folder.
+  testing::ProgramResult run() const {
+    return testing::run_program("network '" + network_file().string() + "'", folder_);
+  }
 
  private:
   fs::path folder_;
 };
+
+// A network run in which one site failed: exit code 4, and the message names `file`.
+void expect_one_site_failed(const testing::ProgramResult& result, const std::string& file) {
+  EXPECT_EQ(result.exit_code, 4) << result.err;
+  EXPECT_NE(result.err.find(file), std::string::npos) << result.err;
+}
 
 TEST(Network, DemoNetworkRunsThreeSites) {
   const ScratchNetwork network;
@@ -70,9 +80,7 @@ TEST(Network, DemoNetworkRunsThreeSites) {
 TEST(Network, BrokenSiteIsReportedAndTheOthersFinish) {
   const ScratchNetwork network;
   write_text(network.folder() / "plot-b.toml", "[site\nname = broken\n");
-  const auto result = testing::run_program("network \"" + network.network_file().string() + "\"", network.folder());
-  EXPECT_EQ(result.exit_code, 4) << result.err;
-  EXPECT_NE(result.err.find("plot-b.toml"), std::string::npos) << result.err;
+  expect_one_site_failed(network.run(), "plot-b.toml");
   EXPECT_TRUE(fs::exists(network.folder() / "plot-a.h5"));
   EXPECT_TRUE(fs::exists(network.folder() / "plot-c.h5"));
   EXPECT_FALSE(fs::exists(network.folder() / "plot-b.h5"));
@@ -159,9 +167,7 @@ TEST(Network, SolverFailureIsReportedAndTheOthersFinish) {
 TEST(Network, FileOfAnotherProgramIsNotReplaced) {
   const ScratchNetwork network;
   write_text(network.folder() / "plot-b-visits.csv", "kept as it is\n");
-  const auto result = testing::run_program("network '" + network.network_file().string() + "'", network.folder());
-  EXPECT_EQ(result.exit_code, 4) << result.err;
-  EXPECT_NE(result.err.find("plot-b-visits.csv"), std::string::npos) << result.err;
+  expect_one_site_failed(network.run(), "plot-b-visits.csv");
   EXPECT_EQ(read_text(network.folder() / "plot-b-visits.csv"), "kept as it is\n");
   EXPECT_FALSE(fs::exists(network.folder() / "plot-b.h5"));
   EXPECT_TRUE(fs::exists(network.folder() / "plot-a.h5"));

@@ -32,9 +32,14 @@ GrowthStage growth_stage_at(double planting_day, const GrowthStageLengths& stage
 // Planting day, the ends of the four stages: the times where the curves change form.
 std::array<double, 5> growth_stage_boundaries(double planting_day, const GrowthStageLengths& stages);
 
-struct CropCoefficientCurve {
+// The crop's calendar, shared by both ways of giving its water use: the planting day and the
+// lengths of the four stages that follow it.
+struct CropCalendar {
   double planting_day = 0;  // days since run start
   GrowthStageLengths stages;
+};
+
+struct CropCoefficientCurve : CropCalendar {
   double kc_initial = 0;
   double kc_mid = 0;
   double kc_end = 0;
@@ -47,9 +52,7 @@ void check_crop_curve(const CropCoefficientCurve& curve);
 double crop_coefficient_at(const CropCoefficientCurve& curve, double day);
 
 // Pan-to-crop factors: ETc = factor(stage) * Epan, the factor constant through each stage.
-struct PanToCropFactors {
-  double planting_day = 0;
-  GrowthStageLengths stages;
+struct PanToCropFactors : CropCalendar {
   double initial = 0;
   double development = 0;
   double mid_season = 0;

@@ -1,5 +1,6 @@
-// Laboratory retention data run from CSV files: shared by `wetfront soil retention` and
-// `wetfront soil layer`. File formats are those of wetfront/soils/lab_csv.hpp.
+// Laboratory data run from CSV files: the core samples of `wetfront soil cores`, the retention
+// fit shared by `wetfront soil retention` and `wetfront soil layer`, and the texture classes. File formats are those of
+// wetfront/soils/lab_csv.hpp.
 #pragma once
 
 #include <optional>
@@ -27,5 +28,14 @@ struct RetentionReport {
 };
 
 RetentionReport analyse_retention(const RetentionInputs& inputs);
+
+// `wetfront soil cores`: water content, bulk density and porosity of each ring sample and, with
+// the suction steps weighed on them (steps_file not empty), their retention points (the last
+// table). Throws base::InputError naming the file.
+std::vector<ReportTable> core_tables(const std::string& cores_file, const std::string& steps_file);
+
+// `wetfront soil texture`: the class-average parameters of the texture class `name`, or of every
+// class when `name` is empty (Carsel & Parrish 1988). Throws base::InputError for an unknown name.
+ReportTable texture_table(const std::string& name);
 
 }  // namespace wetfront::site

@@ -51,6 +51,9 @@ class OutputGuard {
 // Every file a season run of `site` reads: the site file and each record it names.
 std::vector<std::filesystem::path> site_input_files(const SiteSetup& site);
 
+// A file beside `path` named after its stem: ("a/site.toml", "-sweep.h5") -> "a/site-sweep.h5".
+std::filesystem::path beside(const std::filesystem::path& path, const std::string& suffix);
+
 // A new run id: time and process in hex plus random bits, e.g. "20261202T155100Z-1a2b-9f3c0d1e".
 std::string new_run_id();
 

@@ -1,9 +1,9 @@
-// A first read of a run file in a child process, so that a damaged file cannot crash `show`.
+// A first read of a run file in a child process, so that a damaged file cannot crash the reader.
 #pragma once
 
 #include <string>
 
-namespace wetfront::cli {
+namespace wetfront::site {
 
 // Debian's libhdf5 1.10 crashes or loops on some damaged files (a corrupt global heap of
 // variable-length strings; found by fuzz/fuzz_run_file). The file is read once in a child
@@ -13,4 +13,4 @@ namespace wetfront::cli {
 // checked.
 void probe_run_file(const std::string& path, int seconds = 60);
 
-}  // namespace wetfront::cli
+}  // namespace wetfront::site

@@ -1,4 +1,4 @@
-#include "network_sites.hpp"
+#include "wetfront/site/network_sites.hpp"
 
 #include <cstdint>
 #include <fstream>
@@ -10,14 +10,12 @@
 #include <fmt/format.h>
 #include <unistd.h>
 
-#include "command_output.hpp"
 #include "wetfront/base/input_files.hpp"
 #include "wetfront/profiles/file_save.hpp"
+#include "wetfront/site/season_files.hpp"
 #include "wetfront/studies/task_bytes.hpp"
 
-namespace wetfront::cli {
-
-using namespace wetfront::site;
+namespace wetfront::site {
 namespace {
 
 // The HDF5 library is not built thread-safe: one site's files at a time, also on rank 0, whose
@@ -25,12 +23,6 @@ namespace {
 std::mutex& hdf5_lock() {
   static std::mutex lock;
   return lock;
-}
-
-std::filesystem::path with_suffix(const std::filesystem::path& base, const std::string& suffix) {
-  std::filesystem::path out = base;
-  out.replace_filename(base.filename().string() + suffix);
-  return out;
 }
 
 // A file this program just wrote (never a user's input, so not through base::read_input_file).
@@ -54,7 +46,7 @@ SiteFileBytes write_to_scratch(const SeasonResult& result, std::size_t site_numb
   try {
     const std::lock_guard lock(hdf5_lock());
     profiles::RunRecord record = result.record;
-    write_season_files(record, result.sensors, local[0], local[1], local[2]);
+    write_season_files(record, result.sensors, {local[0], local[1], local[2]});
     for (const auto& path : local) files.push_back(own_file_bytes(path));
   } catch (...) {
     std::filesystem::remove_all(scratch);
@@ -82,10 +74,8 @@ void place_site_files(const SiteSetup& setup, const SiteFileBytes& files, bool f
 }  // namespace
 
 OutputPlan site_outputs(const SiteSetup& setup, bool force) {
-  std::filesystem::path out = setup.site_file;
-  out.replace_extension(".h5");
-  const std::filesystem::path stem = out.parent_path() / out.stem();
-  return {.outputs = {out, with_suffix(stem, "-visits.csv"), with_suffix(stem, "-sensors.csv")},
+  const SeasonFiles files = default_season_files(setup.site_file);
+  return {.outputs = {files.run_file, files.visits_csv, files.sensors_csv},
           .inputs = site_input_files(setup),
           .force = force};
 }
@@ -100,7 +90,7 @@ void write_site_files(const SeasonResult& result, bool force) {
   const std::lock_guard lock(hdf5_lock());  // the guard reads existing HDF5 files
   const OutputGuard guard(plan);
   profiles::RunRecord record = result.record;
-  write_season_files(record, result.sensors, plan.outputs[0], plan.outputs[1], plan.outputs[2]);
+  write_season_files(record, result.sensors, {plan.outputs[0], plan.outputs[1], plan.outputs[2]});
 }
 
 void read_network_inputs(const NetworkPlan& plan) {
@@ -179,4 +169,13 @@ std::vector<NetworkSite> run_network_on_ranks(const NetworkPlan& plan, studies::
   return sites;
 }
 
-}  // namespace wetfront::cli
+std::vector<NetworkSite> run_network_with_files(const NetworkPlan& plan, studies::TaskRunner* ranks, unsigned threads,
+                                                const std::string& program_version, bool force,
+                                                const NetworkProgress& progress) {
+  if (ranks) return run_network_on_ranks(plan, *ranks, program_version, force, progress);
+  return run_network(
+      plan, threads, program_version, [force](const SeasonResult& r) { write_site_files(r, force); }, progress,
+      [force](const SiteSetup& setup) { check_site_outputs(setup, force); });
+}
+
+}  // namespace wetfront::site

@@ -1,4 +1,4 @@
-#include "run_file_probe.hpp"
+#include "wetfront/site/run_file_probe.hpp"
 
 #include <fcntl.h>
 #include <signal.h>
@@ -16,7 +16,7 @@
 #include "wetfront/profiles/file_save.hpp"
 #include "wetfront/profiles/run_file.hpp"
 
-namespace wetfront::cli {
+namespace wetfront::site {
 namespace {
 constexpr int kReadOk = 0;
 constexpr int kRefused = 17;  // RunFileError: the real read gives the message
@@ -68,4 +68,4 @@ void probe_run_file(const std::string& path, int seconds) {
                                                          : fmt::format("exit {}", WEXITSTATUS(status))));
 }
 
-}  // namespace wetfront::cli
+}  // namespace wetfront::site
