@@ -48,12 +48,11 @@ double predicted(const EnsembleMember& member, const std::vector<double>& centre
   return observations::simulated_value_at(profile, 0.0, reading.depth_cm).value();
 }
 
-// Heads enter the filter as log10(1 cm + suction): members' heads span orders of magnitude in
-// dry soil (a few metres of suction in one member, centimetres in another), and on this scale
-// their spread is closer to the Gaussian the update assumes. A reading's uncertainty carries over
-// to first order at the reading. Water contents enter as they are.
+// Heads enter the filter as log10(1 cm + suction), the scale of the members' state
+// (member_state.hpp); a reading's uncertainty carries over to first order at the reading. Water
+// contents enter as they are.
 double filter_value(const VisitReading& reading, double value) {
-  return reading.quantity == kPressureHead ? std::log10(1.0 + std::max(-value, 0.0)) : value;
+  return reading.quantity == kPressureHead ? detail::log_suction(value) : value;
 }
 double filter_uncertainty(const VisitReading& reading) {
   return reading.quantity == kPressureHead
@@ -73,8 +72,8 @@ class Ensemble {
 
   std::vector<EnsembleMember> members;
 
-  // The update at one visit: every complete member's water contents (and parameters, on
-  // request) from the visit's readings.
+  // The update at one visit: every complete member's heads (and parameters, on request) from
+  // the visit's readings.
   VisitUpdate analyse(const detail::ReadingsAtVisit& visit, std::uint64_t step) {
     const std::vector<std::size_t> alive = complete_members(members);
     const auto n_members = static_cast<Eigen::Index>(alive.size());
@@ -92,7 +91,8 @@ class Ensemble {
     }
     for (Eigen::Index j = 0; j < n_members; ++j) {
       const EnsembleMember& m = members[alive[static_cast<std::size_t>(j)]];
-      for (Eigen::Index i = 0; i < n_cells; ++i) states(i, j) = m.water_content[static_cast<std::size_t>(i)];
+      for (Eigen::Index i = 0; i < n_cells; ++i)
+        states(i, j) = detail::log_suction(m.heads_cm[static_cast<std::size_t>(i)]);
       for (Eigen::Index k = 0; k < n_parameters; ++k)
         states(n_cells + k, j) = studies::to_search_scale(parameters[static_cast<std::size_t>(k)].range,
                                                           m.values[static_cast<std::size_t>(k)]);
@@ -164,7 +164,9 @@ class Ensemble {
     return weights;
   }
 
-  // The analysed column of one member: parameters first (its soil may change), then heads.
+  // The analysed column of one member: parameters first (its soil may change), then heads. A
+  // new soil holds a different amount of water at the same heads; that change is part of the
+  // update term the next stretch books.
   void apply(EnsembleMember& m, const Eigen::VectorXd& analysed, Eigen::Index n_cells) {
     const auto& parameters = shared_.study.parameters;
     if (settings_.update_parameters) {
@@ -180,8 +182,8 @@ class Ensemble {
       m.season.reset();
       if (!detail::ensure_season(shared_, m)) return;
     }
-    const std::vector<double> contents(analysed.data(), analysed.data() + n_cells);
-    m.heads_cm = detail::analysed_heads(m.season->problem.soil, centres_, m.heads_cm, m.water_content, contents);
+    const std::vector<double> log_suctions(analysed.data(), analysed.data() + n_cells);
+    m.heads_cm = detail::heads_from_log_suction(m.season->problem.soil, centres_, m.heads_cm, log_suctions);
     for (std::size_t i = 0; i < centres_.size(); ++i)
       m.water_content[i] = soils::water_content(m.season->problem.soil.model_at(centres_[i]), m.heads_cm[i]);
   }

@@ -13,13 +13,15 @@
 // with weights falling smoothly with distance; the parameters (with --update-parameters) from
 // every reading.
 //
-// Heads enter the update as log10(1 cm + suction), water contents as they are.
-//
-// Update variable: the water content of every cell (and, on request, the adjustable parameters
-// on their search scale: state augmentation). Analysed water contents are held strictly inside
-// (theta_r, theta_s) of the member's soil and turned back into heads, so every member stays
-// physical. The stored water an update adds or removes (and any pond the restart drops) is the
-// interval's own balance term `update_cm`; it never enters drainage.
+// Update variable: the pressure head of every cell as log10(1 cm + suction) (and, on request,
+// the adjustable parameters on their search scale: state augmentation). Heads, not water
+// contents: members whose soils differ hold different water at the same heads, and a water
+// content update pushes each off its own retention curve (src/member_state.hpp says how that
+// pumped water through the members). Analysed heads are held where the member's soil holds a
+// water content strictly inside (theta_r, theta_s), so every member stays physical. The stored
+// water an update adds or removes (and any pond the restart drops; with parameter updates also
+// the change of the soil's water at the same heads) is the interval's own balance term
+// `update_cm`; it never enters drainage.
 #pragma once
 
 #include <cstdint>
