@@ -24,7 +24,7 @@ std::filesystem::path with_suffix(const std::filesystem::path& path, const std::
 
 void add_anchor_command(CLI::App& app) {
   struct Options {
-    std::string site, out, from, to;
+    std::string site, out, from, to, calibration;
     std::string reach = "30 cm";
     std::size_t members = 64;
     std::uint64_t seed = 1;
@@ -41,6 +41,10 @@ void add_anchor_command(CLI::App& app) {
       ->required();
   cmd->add_option("--members", o->members, "ensemble members (default 64)")->check(CLI::Range(2, 10000));
   cmd->add_option("--seed", o->seed, "seed of the random draws (default 1); the same seed gives the same ensemble");
+  cmd->add_option("--calibration", o->calibration,
+                  "draw the members around the calibrated values of this calibration file (as `wetfront calibrate` "
+                  "writes it, SITE-calibration.h5) with their covariance, within the [[adjustable]] ranges "
+                  "(default: from the ranges)");
   cmd->add_flag("--update-parameters", o->update_parameters,
                 "update the adjustable parameters with the soil water (default: they keep their drawn values)");
   cmd->add_option("--reach", o->reach,
@@ -66,14 +70,16 @@ void add_anchor_command(CLI::App& app) {
         o->out.empty() ? with_suffix(o->site, "-anchored.h5") : std::filesystem::path(o->out);
     const std::filesystem::path intervals_csv = with_suffix(out, "-intervals.csv");
     const std::filesystem::path visits_csv = with_suffix(out, "-visits.csv");
-    const site::OutputGuard guard(
-        {.outputs = {out, intervals_csv, visits_csv}, .inputs = site::site_input_files(site), .force = o->force});
+    std::vector<std::filesystem::path> inputs = site::site_input_files(site);
+    if (!o->calibration.empty()) inputs.emplace_back(o->calibration);
+    const site::OutputGuard guard({.outputs = {out, intervals_csv, visits_csv}, .inputs = inputs, .force = o->force});
     ProgressLine progress(o->quiet);
     const site::AnchorSettings settings{.members = o->members,
                                         .seed = o->seed,
                                         .update_parameters = o->update_parameters,
                                         .threads = o->threads,
-                                        .reach_cm = reach_cm};
+                                        .reach_cm = reach_cm,
+                                        .calibration_file = o->calibration};
     const site::AnchoredSeason season =
         site::run_anchored_season(site, study, settings, WETFRONT_VERSION,
                                   [&](std::size_t done, std::size_t planned) { progress(done, planned, false); });

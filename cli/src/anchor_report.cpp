@@ -30,8 +30,13 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
   for (const auto& visit : season.visits) readings += visit.readings.size();
   std::string out =
       fmt::format("Anchored season of {} ({} to {})\n", site.name, site.run_start_text, site.run_end_text);
-  out += fmt::format("  {} members drawn from the [[adjustable]] ranges (seed {}), {} ran the whole season\n",
-                     s.members, s.seed, complete);
+  out += s.calibration_file.empty()
+             ? fmt::format("  {} members drawn from the [[adjustable]] ranges (seed {}), {} ran the whole season\n",
+                           s.members, s.seed, complete)
+             : fmt::format(
+                   "  {} members drawn around the calibrated values of {} with their covariance, a draw outside "
+                   "the [[adjustable]] ranges drawn again (seed {}), {} ran the whole season\n",
+                   s.members, s.calibration_file.string(), s.seed, complete);
   out += fmt::format("  updated at {} visits from {} readings (reading uncertainty: heads {} cm{})\n",
                      season.visits.size(), readings, study.weights.head_uncertainty_cm,
                      study.weights.water_content_uncertainty

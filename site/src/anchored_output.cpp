@@ -120,11 +120,17 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
   const AnchorSettings& s = season.settings;
   // The readings weigh in through their uncertainties, not through a calibration's objective.
   std::erase_if(record.notes, [](const auto& note) { return note.first == "objective"; });
-  record.notes.push_back({"method",
-                          "ensemble Kalman filter with perturbed readings (Evensen 1994; Burgers, van "
-                          "Leeuwen & Evensen 1998); update variable: water content of every cell"});
+  record.notes.push_back(
+      {"method",
+       "ensemble Kalman filter with perturbed readings (Evensen 1994; Burgers, van "
+       "Leeuwen & Evensen 1998); update variable: pressure head of every cell as log10(1 cm + suction)"});
   record.notes.push_back({"members", std::to_string(s.members)});
   record.notes.push_back({"seed", std::to_string(s.seed)});
+  record.notes.push_back(
+      {"members_drawn_from", s.calibration_file.empty()
+                                 ? "the [[adjustable]] ranges (Latin hypercube)"
+                                 : fmt::format("the calibrated values and covariance of {}, truncated to the ranges",
+                                               s.calibration_file.string())});
   record.notes.push_back({"localisation_reach", fmt::format("{} cm (Gaspari-Cohn weights, zero beyond twice this; 0: "
                                                             "none)",
                                                             s.reach_cm)});

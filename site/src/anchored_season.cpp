@@ -6,6 +6,7 @@
 
 #include <fmt/format.h>
 
+#include "anchored_members.hpp"
 #include "ensemble_member.hpp"
 #include "member_state.hpp"
 #include "visit_readings.hpp"
@@ -278,7 +279,8 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
 
   const detail::EnsembleSite shared{site, study, records};
   Ensemble ensemble(shared, settings, centres);
-  season.drawn_parameters = studies::latin_hypercube(study.ranges(), settings.members, settings.seed);
+  detail::DrawnMembers drawn = detail::draw_members(study, settings, records.input_hash);
+  season.drawn_parameters = std::move(drawn.values);
   for (const auto& values : season.drawn_parameters) {
     EnsembleMember member;
     member.values = values;
@@ -331,6 +333,7 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
     season.free_run_drainage_cm.push_back(interval.plane_flux_cm.at(0));
   season.darcy = free_run.sensors.darcy;
   season.water_table = free_run.sensors.water_table;
+  season.warnings = std::move(drawn.warnings);
   add_warnings(season);
   return season;
 }

@@ -3,7 +3,8 @@
 // (studies/ensemble_filter.hpp). docs/anchored-season.md states what the method assumes.
 //
 // Members: parameter sets drawn from the [[adjustable]] ranges (Latin hypercube,
-// parameter_sampling.hpp). Each member runs from one visit with readings to the next; there its
+// parameter_sampling.hpp), or around the values of a calibration file with the covariance of
+// that fit, truncated to the ranges (parameter_uncertainty.hpp). Each member runs from one visit with readings to the next; there its
 // forecast is compared with the visit's tensiometer, probe and core readings (the same readings
 // and reading uncertainties as the [fit] objective, a reading belonging to the visit nearest to
 // it within kVisitReadingWindowDays) and updated, and the next stretch restarts from the
@@ -25,6 +26,7 @@
 #pragma once
 
 #include <cstdint>
+#include <filesystem>
 #include <functional>
 #include <optional>
 #include <string>
@@ -43,6 +45,9 @@ struct AnchorSettings {
   // Localisation: a cell's update from a reading fades with their distance apart and stops at
   // twice this (studies::gaspari_cohn); 0: every cell from every reading.
   double reach_cm = 30.0;
+  // Empty: members from the [[adjustable]] ranges. Else a calibration file (`wetfront calibrate`)
+  // of the same parameters: members around its values with its covariance.
+  std::filesystem::path calibration_file{};
 };
 
 // One member over one visit interval, cm of water.
@@ -105,8 +110,8 @@ EnsembleBand drainage_band(const AnchoredSeason& season, std::size_t interval);
 EnsembleBand update_band(const AnchoredSeason& season, std::size_t interval);
 
 // Runs the anchored season of the site. Throws base::InputError naming the site file for no
-// adjustable parameters, fewer than two members, or fewer than two members left complete, and
-// for records the season cannot use. progress(done, planned) counts member stretches.
+// adjustable parameters, fewer than two members, or fewer than two members left complete, for
+// records the season cannot use, and naming the calibration file for one that does not fit. progress(done, planned) counts member stretches.
 AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& study, const AnchorSettings& settings,
                                    const std::string& program_version,
                                    const std::function<void(std::size_t, std::size_t)>& progress = {});
