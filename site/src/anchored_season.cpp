@@ -10,6 +10,7 @@
 #include "ensemble_member.hpp"
 #include "visit_analysis.hpp"
 #include "wetfront/base/input_error.hpp"
+#include "wetfront/site/report_table.hpp"
 #include "wetfront/site/run_season.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
 #include "wetfront/studies/parameter_uncertainty.hpp"
@@ -23,6 +24,8 @@ using detail::EnsembleMember;
 // visits, and at least two.
 constexpr double kOutsideShare = 1.0 / 3.0;
 constexpr double kMissing = std::numeric_limits<double>::quiet_NaN();
+// Updates above this share of the anchored drainage get a warning (add_update_warning).
+constexpr double kLargeUpdateShare = 0.25;
 
 void add_warnings(AnchoredSeason& season) {
   std::size_t collapsed = 0, outside = 0;
@@ -44,6 +47,25 @@ void add_warnings(AnchoredSeason& season) {
         "uncertainty together: a sign of a wrong model structure (soil layers, boundaries, forcing) rather than "
         "wrong parameter values",
         outside, visits, first_outside));
+}
+
+// Without parameter updates, updates that add (or remove) a large share of the anchored drainage
+// over the season mean that the members keep losing water the readings still show: their
+// parameters, not their soil water, disagree with the readings (docs/anchored-season.md).
+void add_update_warning(AnchoredSeason& season) {
+  if (season.settings.update_parameters) return;
+  double drainage_cm = 0, update_cm = 0;
+  for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
+    drainage_cm += drainage_band(season, i).mean;
+    update_cm += update_band(season, i).mean;
+  }
+  if (std::abs(update_cm) <= kNegligibleRechargeCm || std::abs(update_cm) <= kLargeUpdateShare * std::abs(drainage_cm))
+    return;
+  season.warnings.push_back(fmt::format(
+      "the updates {} {} mm over the season, against {} mm of anchored drainage: the members' parameters rather than "
+      "their soil water disagree with the readings, and the drainage may follow the updates; use --update-parameters "
+      "or --calibration",
+      update_cm > 0 ? "added" : "removed", number(10 * std::abs(update_cm)), number(10 * drainage_cm)));
 }
 
 }  // namespace
@@ -166,6 +188,7 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
   season.water_table = free_run.sensors.water_table;
   season.warnings = std::move(drawn.warnings);
   add_warnings(season);
+  add_update_warning(season);
   return season;
 }
 
