@@ -186,6 +186,10 @@ TEST(AnchorCommand, WritesItsThreeFilesAndNeverReplacesAForeignOne) {
   const auto refused = testing::run_program(command, site.folder());
   EXPECT_EQ(refused.exit_code, 1) << refused.out << refused.err;
   EXPECT_EQ(site.read("site-anchored-visits.csv"), "my notes\n");
+  // A calibration file that is not there is bad input naming it.
+  const auto no_calibration = testing::run_program(command + " --force --calibration missing.h5", site.folder());
+  EXPECT_EQ(no_calibration.exit_code, 1) << no_calibration.out << no_calibration.err;
+  EXPECT_NE(no_calibration.err.find("missing.h5"), std::string::npos) << no_calibration.err;
 }
 
 // The head update of one member on a van Genuchten loam (theta_r 0.08, theta_s 0.42).
