@@ -12,8 +12,8 @@ namespace {
 constexpr const char* kCautions =
     "\nCautions:\n"
     "  - The update assumes Gaussian errors, a linear update of a nonlinear model and independent\n"
-    "    readings (docs/anchored-season.md). Members drawn from the [[adjustable]] ranges carry only the\n"
-    "    uncertainty of those parameters; errors of the rain, the pan or the model structure are not in\n"
+    "    readings (docs/anchored-season.md). The members differ only in the adjustable parameters and\n"
+    "    carry only their uncertainty; errors of the rain, the pan or the model structure are not in\n"
     "    the band.\n"
     "  - The water each update adds or removes is reported as its own term; it is not recharge.\n"
     "  - Every recharge number here is an estimate. Decisions on water use, recharge or abstraction rest\n"

@@ -38,9 +38,12 @@ void add_warnings(AnchoredSeason& season) {
   if (collapsed > 0)
     season.warnings.push_back(fmt::format(
         "the ensemble collapsed at {} of {} visits (first {}): its forecasts of the readings spread less than a "
-        "tenth of the reading uncertainty, so the readings barely move it; use more members, wider [[adjustable]] "
-        "ranges, or --update-parameters",
-        collapsed, visits, first_collapsed));
+        "tenth of the reading uncertainty, so the readings barely move it; {}",
+        collapsed, visits, first_collapsed,
+        season.settings.calibration_file.empty()
+            ? "use more members, wider [[adjustable]] ranges, or --update-parameters"
+            : "the calibration's covariance is narrow, so the members stay close together and the band is about as "
+              "narrow as the calibration's; draw them from the ranges for a wider ensemble"));
   if (outside >= 2 && static_cast<double>(outside) >= kOutsideShare * static_cast<double>(visits))
     season.warnings.push_back(fmt::format(
         "at {} of {} visits (first {}) the readings lay well outside the forecasts' spread and the reading "
