@@ -61,14 +61,19 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
 
   const site::ReportTable intervals = site::anchored_interval_table(season);
   out += fmt::format("\n{}", site::format_table(intervals));
-  double free_total = 0, mean_total = 0, update_total = 0;
+  double free_total = 0, mean_total = 0, update_total = 0, soil_total = 0;
   for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
     free_total += i < season.free_run_drainage_cm.size() ? season.free_run_drainage_cm[i] : 0.0;
     mean_total += site::drainage_band(season, i).mean;
     update_total += site::update_band(season, i).mean;
+    soil_total += site::soil_change_band(season, i).mean;
   }
-  out += fmt::format("Season: free run {} mm, anchored mean {} mm; the updates added {} mm on average\n",
-                     site::number(10 * free_total), site::number(10 * mean_total), site::number(10 * update_total));
+  out += fmt::format("Season: free run {} mm, anchored mean {} mm; the updates added {} mm on average{}\n",
+                     site::number(10 * free_total), site::number(10 * mean_total), site::number(10 * update_total),
+                     s.update_parameters ? fmt::format(" ({} mm of it the members' new soils holding other water "
+                                                       "at the same heads)",
+                                                       site::number(10 * soil_total))
+                                         : std::string());
   if (!season.visits.empty()) {
     const site::ReportTable visits = site::anchored_visit_table(season);
     out += fmt::format("\n{}", site::format_table(visits));

@@ -88,7 +88,7 @@ ReportTable column_table(std::string title, const std::vector<TableColumn<Row>>&
 ReportTable anchored_interval_table(const AnchoredSeason& season) {
   const auto drainage = [&](std::size_t i) { return drainage_band(season, i); };
   const auto end = [&](std::size_t i) { return season.interval_end_days[i]; };
-  const std::vector<TableColumn<std::size_t>> columns{
+  std::vector<TableColumn<std::size_t>> columns{
       {"from", [&](std::size_t i) { return i == 0 ? std::string("start") : season.interval_end_dates[i - 1]; }},
       {"to", [&](std::size_t i) { return season.interval_end_dates[i]; }},
       {"free run [mm]", [&](std::size_t i) { return mm(free_run_at(season, i)); }},
@@ -98,6 +98,8 @@ ReportTable anchored_interval_table(const AnchoredSeason& season) {
       {"Darcy [mm]", [&](std::size_t i) { return mm(darcy_at(season, end(i))); }},
       {"water table [mm]", [&](std::size_t i) { return mm(water_table_at(season, end(i))); }},
       {"update mean [mm]", [&](std::size_t i) { return mm(update_band(season, i).mean); }}};
+  if (season.settings.update_parameters)
+    columns.push_back({"of which new soils [mm]", [&](std::size_t i) { return mm(soil_change_band(season, i).mean); }});
   std::vector<std::size_t> intervals(season.interval_end_days.size());
   for (std::size_t i = 0; i < intervals.size(); ++i) intervals[i] = i;
   return column_table("Drainage at the recharge plane per visit interval (positive downward)", columns, intervals);
@@ -182,6 +184,12 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
                                "stored water each member's update added at the interval's start (negative: removed)",
                                member_numbers,
                                {}};
+  profiles::StudyMatrix soil_change{"member_soil_change",
+                                    "cm",
+                                    "part of member_update: the stored water a parameter update's new soil holds "
+                                    "more at the same heads (0 without parameter updates)",
+                                    member_numbers,
+                                    {}};
   for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
     const EnsembleBand band = drainage_band(season, i);
     free_run.values.push_back(free_run_at(season, i));
@@ -194,10 +202,11 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
       const bool ok = season.member_complete[j];
       drainage.values.push_back(ok ? season.members[j][i].drainage_cm : kMissing);
       update.values.push_back(ok ? season.members[j][i].update_cm : kMissing);
+      soil_change.values.push_back(ok ? season.members[j][i].soil_change_cm : kMissing);
     }
   }
   intervals.columns = {free_run, mean, lower, upper, darcy, water_table};
-  intervals.matrices = {drainage, update};
+  intervals.matrices = {drainage, update, soil_change};
   record.tables.push_back(std::move(intervals));
 
   profiles::StudyTable visits;

@@ -81,18 +81,23 @@ EnsembleBand ensemble_band(const std::vector<double>& values) {
           studies::percentile(values, 0.95)};
 }
 
-EnsembleBand drainage_band(const AnchoredSeason& season, std::size_t interval) {
+namespace {
+EnsembleBand member_band(const AnchoredSeason& season, std::size_t interval, double MemberInterval::*amount) {
   std::vector<double> values;
   for (std::size_t j = 0; j < season.members.size(); ++j)
-    if (season.member_complete[j]) values.push_back(season.members[j].at(interval).drainage_cm);
+    if (season.member_complete[j]) values.push_back(season.members[j].at(interval).*amount);
   return ensemble_band(values);
 }
+}  // namespace
 
+EnsembleBand drainage_band(const AnchoredSeason& season, std::size_t interval) {
+  return member_band(season, interval, &MemberInterval::drainage_cm);
+}
 EnsembleBand update_band(const AnchoredSeason& season, std::size_t interval) {
-  std::vector<double> values;
-  for (std::size_t j = 0; j < season.members.size(); ++j)
-    if (season.member_complete[j]) values.push_back(season.members[j].at(interval).update_cm);
-  return ensemble_band(values);
+  return member_band(season, interval, &MemberInterval::update_cm);
+}
+EnsembleBand soil_change_band(const AnchoredSeason& season, std::size_t interval) {
+  return member_band(season, interval, &MemberInterval::soil_change_cm);
 }
 
 AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& study, const AnchorSettings& settings,

@@ -155,8 +155,16 @@ void VisitAnalysis::apply(EnsembleMember& m, const Eigen::VectorXd& analysed, Ei
       const double value = std::clamp(analysed[n_cells + static_cast<Eigen::Index>(k)], low, high);
       m.values[k] = value == low ? range.lower : value == high ? range.upper : studies::from_search_scale(range, value);
     }
+    const soils::LayeredProfile old_soil = m.season->problem.soil;
     m.season.reset();
     if (!ensure_season(shared_, m)) return;
+    // The new soil holds other water at the forecast heads: part of this update's term.
+    const solver::Grid& grid = m.season->problem.grid;
+    m.soil_change_cm = 0;
+    for (std::size_t i = 0; i < centres_.size(); ++i)
+      m.soil_change_cm += (soils::water_content(m.season->problem.soil.model_at(centres_[i]), m.heads_cm[i]) -
+                           soils::water_content(old_soil.model_at(centres_[i]), m.heads_cm[i])) *
+                          grid.cell_thickness_cm(i);
   }
   const std::vector<double> log_suctions(analysed.data(), analysed.data() + n_cells);
   m.heads_cm = heads_from_log_suction(m.season->problem.soil, centres_, m.heads_cm, log_suctions);

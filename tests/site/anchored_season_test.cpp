@@ -148,9 +148,21 @@ TEST(AnchoredSeason, UpdatesDoNotPumpWaterThroughMembersWhoseSoilsHoldItDifferen
   for (const bool update_parameters : {false, true}) {
     const AnchorSettings settings{.members = 16, .seed = 1, .update_parameters = update_parameters, .threads = 2};
     const AnchoredSeason season = run_anchored_season(setup, study, settings, "test");
-    double drainage_cm = 0;
-    for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) drainage_cm += drainage_band(season, i).mean;
+    double drainage_cm = 0, update_cm = 0, soil_change_cm = 0;
+    for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
+      drainage_cm += drainage_band(season, i).mean;
+      update_cm += update_band(season, i).mean;
+      soil_change_cm += soil_change_band(season, i).mean;
+    }
     EXPECT_NEAR(drainage_cm, true_drainage_cm, 0.25 * true_drainage_cm) << "update parameters: " << update_parameters;
+    // With parameter updates nearly all of the update term is the new soils holding other water
+    // at the same heads; what the soil water itself gained stays small.
+    if (update_parameters) {
+      EXPECT_GT(std::abs(soil_change_cm), true_drainage_cm);
+      EXPECT_LT(std::abs(update_cm - soil_change_cm), 0.25 * true_drainage_cm);
+    } else {
+      EXPECT_EQ(soil_change_cm, 0.0);
+    }
   }
 }
 
