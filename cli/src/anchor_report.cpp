@@ -12,8 +12,8 @@ namespace {
 constexpr const char* kCautions =
     "\nCautions:\n"
     "  - The update assumes Gaussian errors, a linear update of a nonlinear model and independent\n"
-    "    readings (docs/anchored-season.md). Members drawn from the [[adjustable]] ranges carry only the\n"
-    "    uncertainty of those parameters; errors of the rain, the pan or the model structure are not in\n"
+    "    readings (docs/anchored-season.md). The members differ only in the adjustable parameters and\n"
+    "    carry only their uncertainty; errors of the rain, the pan or the model structure are not in\n"
     "    the band.\n"
     "  - The water each update adds or removes is reported as its own term; it is not recharge.\n"
     "  - Every recharge number here is an estimate. Decisions on water use, recharge or abstraction rest\n"
@@ -30,8 +30,13 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
   for (const auto& visit : season.visits) readings += visit.readings.size();
   std::string out =
       fmt::format("Anchored season of {} ({} to {})\n", site.name, site.run_start_text, site.run_end_text);
-  out += fmt::format("  {} members drawn from the [[adjustable]] ranges (seed {}), {} ran the whole season\n",
-                     s.members, s.seed, complete);
+  out += s.calibration_file.empty()
+             ? fmt::format("  {} members drawn from the [[adjustable]] ranges (seed {}), {} ran the whole season\n",
+                           s.members, s.seed, complete)
+             : fmt::format(
+                   "  {} members drawn around the calibrated values of {} with their covariance, a draw outside "
+                   "the [[adjustable]] ranges drawn again (seed {}), {} ran the whole season\n",
+                   s.members, s.calibration_file.string(), s.seed, complete);
   out += fmt::format("  updated at {} visits from {} readings (reading uncertainty: heads {} cm{})\n",
                      season.visits.size(), readings, study.weights.head_uncertainty_cm,
                      study.weights.water_content_uncertainty
@@ -56,14 +61,19 @@ std::string anchored_report(const site::SiteSetup& site, const site::ParameterSt
 
   const site::ReportTable intervals = site::anchored_interval_table(season);
   out += fmt::format("\n{}", site::format_table(intervals));
-  double free_total = 0, mean_total = 0, update_total = 0;
+  double free_total = 0, mean_total = 0, update_total = 0, soil_total = 0;
   for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
     free_total += i < season.free_run_drainage_cm.size() ? season.free_run_drainage_cm[i] : 0.0;
     mean_total += site::drainage_band(season, i).mean;
     update_total += site::update_band(season, i).mean;
+    soil_total += site::soil_change_band(season, i).mean;
   }
-  out += fmt::format("Season: free run {} mm, anchored mean {} mm; the updates added {} mm on average\n",
-                     site::number(10 * free_total), site::number(10 * mean_total), site::number(10 * update_total));
+  out += fmt::format("Season: free run {} mm, anchored mean {} mm; the updates added {} mm on average{}\n",
+                     site::number(10 * free_total), site::number(10 * mean_total), site::number(10 * update_total),
+                     s.update_parameters ? fmt::format(" ({} mm of it the members' new soils holding other water "
+                                                       "at the same heads)",
+                                                       site::number(10 * soil_total))
+                                         : std::string());
   if (!season.visits.empty()) {
     const site::ReportTable visits = site::anchored_visit_table(season);
     out += fmt::format("\n{}", site::format_table(visits));

@@ -1,6 +1,7 @@
 #include "wetfront/site/anchored_output.hpp"
 
 #include <cmath>
+#include <functional>
 #include <limits>
 
 #include <fmt/format.h>
@@ -62,55 +63,74 @@ EnsembleBand increment_band(const VisitUpdate& visit) {
   return ensemble_band(values);
 }
 
-}  // namespace
-
-ReportTable anchored_interval_table(const AnchoredSeason& season) {
+// A table given column by column: each header beside how a row's cell reads.
+template <class Row>
+struct TableColumn {
+  std::string header;
+  std::function<std::string(const Row&)> cell;
+};
+template <class Row>
+ReportTable column_table(std::string title, const std::vector<TableColumn<Row>>& columns,
+                         const std::vector<Row>& rows) {
   ReportTable table;
-  table.title = "Drainage at the recharge plane per visit interval (positive downward)";
-  table.headers = {"from",
-                   "to",
-                   "free run [mm]",
-                   "anchored mean [mm]",
-                   "anchored 5 % [mm]",
-                   "anchored 95 % [mm]",
-                   "Darcy [mm]",
-                   "water table [mm]",
-                   "update mean [mm]"};
-  for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
-    const EnsembleBand drainage = drainage_band(season, i);
-    const double end = season.interval_end_days[i];
-    table.add_row({i == 0 ? std::string("start") : season.interval_end_dates[i - 1], season.interval_end_dates[i],
-                   mm(free_run_at(season, i)), mm(drainage.mean), mm(drainage.lower), mm(drainage.upper),
-                   mm(darcy_at(season, end)), mm(water_table_at(season, end)), mm(update_band(season, i).mean)});
+  table.title = std::move(title);
+  for (const auto& column : columns) table.headers.push_back(column.header);
+  for (const Row& row : rows) {
+    std::vector<std::string> cells;
+    for (const auto& column : columns) cells.push_back(column.cell(row));
+    table.add_row(std::move(cells));
   }
   return table;
 }
 
+}  // namespace
+
+ReportTable anchored_interval_table(const AnchoredSeason& season) {
+  const auto drainage = [&](std::size_t i) { return drainage_band(season, i); };
+  const auto end = [&](std::size_t i) { return season.interval_end_days[i]; };
+  std::vector<TableColumn<std::size_t>> columns{
+      {"from", [&](std::size_t i) { return i == 0 ? std::string("start") : season.interval_end_dates[i - 1]; }},
+      {"to", [&](std::size_t i) { return season.interval_end_dates[i]; }},
+      {"free run [mm]", [&](std::size_t i) { return mm(free_run_at(season, i)); }},
+      {"anchored mean [mm]", [&](std::size_t i) { return mm(drainage(i).mean); }},
+      {"anchored 5 % [mm]", [&](std::size_t i) { return mm(drainage(i).lower); }},
+      {"anchored 95 % [mm]", [&](std::size_t i) { return mm(drainage(i).upper); }},
+      {"Darcy [mm]", [&](std::size_t i) { return mm(darcy_at(season, end(i))); }},
+      {"water table [mm]", [&](std::size_t i) { return mm(water_table_at(season, end(i))); }},
+      {"update mean [mm]", [&](std::size_t i) { return mm(update_band(season, i).mean); }}};
+  if (season.settings.update_parameters)
+    columns.push_back({"of which new soils [mm]", [&](std::size_t i) { return mm(soil_change_band(season, i).mean); }});
+  std::vector<std::size_t> intervals(season.interval_end_days.size());
+  for (std::size_t i = 0; i < intervals.size(); ++i) intervals[i] = i;
+  return column_table("Drainage at the recharge plane per visit interval (positive downward)", columns, intervals);
+}
+
 ReportTable anchored_visit_table(const AnchoredSeason& season) {
-  ReportTable table;
-  table.title = "Updates at the visits (innovation = reading - forecast mean)";
-  table.headers = {"visit",
-                   "readings",
-                   "head innovation [cm]",
-                   "head spread [cm]",
-                   "water content innovation [cm3/cm3]",
-                   "water content spread [cm3/cm3]",
-                   "stored water added mean [mm]",
-                   "added 5 % [mm]",
-                   "added 95 % [mm]",
-                   "warning"};
-  for (const auto& visit : season.visits) {
-    const QuantitySummary heads = summary(visit, kPressureHead);
-    const QuantitySummary contents = summary(visit, kWaterContent);
-    const EnsembleBand added = increment_band(visit);
-    auto value = [](double v, int digits) { return std::isnan(v) ? std::string() : number(v, digits); };
-    std::string warning = visit.collapsed ? "collapsed" : "";
-    if (visit.outside) warning += warning.empty() ? "outside spread" : "; outside spread";
-    table.add_row({visit.date, std::to_string(visit.readings.size()), value(heads.innovation, 3),
-                   value(heads.spread, 3), value(contents.innovation, 3), value(contents.spread, 3), mm(added.mean),
-                   mm(added.lower), mm(added.upper), warning});
-  }
-  return table;
+  struct VisitRow {
+    const VisitUpdate* visit;
+    QuantitySummary heads, contents;
+    EnsembleBand added;
+  };
+  const auto value = [](double v) { return std::isnan(v) ? std::string() : number(v, 3); };
+  const std::vector<TableColumn<VisitRow>> columns{
+      {"visit", [](const VisitRow& r) { return r.visit->date; }},
+      {"readings", [](const VisitRow& r) { return std::to_string(r.visit->readings.size()); }},
+      {"head innovation [cm]", [&](const VisitRow& r) { return value(r.heads.innovation); }},
+      {"head spread [cm]", [&](const VisitRow& r) { return value(r.heads.spread); }},
+      {"water content innovation [cm3/cm3]", [&](const VisitRow& r) { return value(r.contents.innovation); }},
+      {"water content spread [cm3/cm3]", [&](const VisitRow& r) { return value(r.contents.spread); }},
+      {"stored water added mean [mm]", [](const VisitRow& r) { return mm(r.added.mean); }},
+      {"added 5 % [mm]", [](const VisitRow& r) { return mm(r.added.lower); }},
+      {"added 95 % [mm]", [](const VisitRow& r) { return mm(r.added.upper); }},
+      {"warning", [](const VisitRow& r) {
+         std::string warning = r.visit->collapsed ? "collapsed" : "";
+         if (r.visit->outside) warning += warning.empty() ? "outside spread" : "; outside spread";
+         return warning;
+       }}};
+  std::vector<VisitRow> rows;
+  for (const auto& visit : season.visits)
+    rows.push_back({&visit, summary(visit, kPressureHead), summary(visit, kWaterContent), increment_band(visit)});
+  return column_table("Updates at the visits (innovation = reading - forecast mean)", columns, rows);
 }
 
 void write_anchored_file(const std::filesystem::path& path, const SiteSetup& site, const ParameterStudy& study,
@@ -120,11 +140,17 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
   const AnchorSettings& s = season.settings;
   // The readings weigh in through their uncertainties, not through a calibration's objective.
   std::erase_if(record.notes, [](const auto& note) { return note.first == "objective"; });
-  record.notes.push_back({"method",
-                          "ensemble Kalman filter with perturbed readings (Evensen 1994; Burgers, van "
-                          "Leeuwen & Evensen 1998); update variable: water content of every cell"});
+  record.notes.push_back(
+      {"method",
+       "ensemble Kalman filter with perturbed readings (Evensen 1994; Burgers, van "
+       "Leeuwen & Evensen 1998); update variable: pressure head of every cell as log10(1 cm + suction)"});
   record.notes.push_back({"members", std::to_string(s.members)});
   record.notes.push_back({"seed", std::to_string(s.seed)});
+  record.notes.push_back(
+      {"members_drawn_from", s.calibration_file.empty()
+                                 ? "the [[adjustable]] ranges (Latin hypercube)"
+                                 : fmt::format("the calibrated values and covariance of {}, truncated to the ranges",
+                                               s.calibration_file.string())});
   record.notes.push_back({"localisation_reach", fmt::format("{} cm (Gaspari-Cohn weights, zero beyond twice this; 0: "
                                                             "none)",
                                                             s.reach_cm)});
@@ -158,6 +184,12 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
                                "stored water each member's update added at the interval's start (negative: removed)",
                                member_numbers,
                                {}};
+  profiles::StudyMatrix soil_change{"member_soil_change",
+                                    "cm",
+                                    "part of member_update: the stored water a parameter update's new soil holds "
+                                    "more at the same heads (0 without parameter updates)",
+                                    member_numbers,
+                                    {}};
   for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
     const EnsembleBand band = drainage_band(season, i);
     free_run.values.push_back(free_run_at(season, i));
@@ -170,10 +202,11 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
       const bool ok = season.member_complete[j];
       drainage.values.push_back(ok ? season.members[j][i].drainage_cm : kMissing);
       update.values.push_back(ok ? season.members[j][i].update_cm : kMissing);
+      soil_change.values.push_back(ok ? season.members[j][i].soil_change_cm : kMissing);
     }
   }
   intervals.columns = {free_run, mean, lower, upper, darcy, water_table};
-  intervals.matrices = {drainage, update};
+  intervals.matrices = {drainage, update, soil_change};
   record.tables.push_back(std::move(intervals));
 
   profiles::StudyTable visits;
@@ -197,29 +230,33 @@ void write_anchored_file(const std::filesystem::path& path, const SiteSetup& sit
   readings.axis = {"reading", "1", "number of the reading used", {}};
   profiles::StudyTextColumn sensor{"sensor", "sensor that gave the reading", {}};
   profiles::StudyTextColumn quantity{"quantity", "pressure head (cm) or water content (cm3/cm3)", {}};
-  StudyColumn visit_time{"visit_time", "days since run start", "visit the reading updated", {}};
-  StudyColumn depth{"depth", "cm", "depth below the soil surface", {}};
-  StudyColumn value{"value", "", "the reading, in the unit of its quantity", {}};
-  StudyColumn sd{"uncertainty", "", "reading uncertainty (standard deviation), in the unit of its quantity", {}};
-  StudyColumn forecast{"forecast_mean", "", "members' mean forecast of the reading", {}};
-  StudyColumn spread{"forecast_spread", "", "standard deviation of the members' forecasts", {}};
-  StudyColumn analysis{"analysis_mean", "", "members' mean after the update", {}};
+  // Each numeric column beside how a reading at its visit gives its value.
+  using ReadingValue = double (*)(const VisitUpdate&, const VisitReading&);
+  std::vector<std::pair<StudyColumn, ReadingValue>> numeric{
+      {{"visit_time", "days since run start", "visit the reading updated", {}},
+       [](const VisitUpdate& v, const VisitReading&) { return v.day; }},
+      {{"depth", "cm", "depth below the soil surface", {}},
+       [](const VisitUpdate&, const VisitReading& r) { return r.depth_cm; }},
+      {{"value", "", "the reading, in the unit of its quantity", {}},
+       [](const VisitUpdate&, const VisitReading& r) { return r.value; }},
+      {{"uncertainty", "", "reading uncertainty (standard deviation), in the unit of its quantity", {}},
+       [](const VisitUpdate&, const VisitReading& r) { return r.uncertainty; }},
+      {{"forecast_mean", "", "members' mean forecast of the reading", {}},
+       [](const VisitUpdate&, const VisitReading& r) { return r.forecast_mean; }},
+      {{"forecast_spread", "", "standard deviation of the members' forecasts", {}},
+       [](const VisitUpdate&, const VisitReading& r) { return r.forecast_spread; }},
+      {{"analysis_mean", "", "members' mean after the update", {}},
+       [](const VisitUpdate&, const VisitReading& r) { return r.analysis_mean; }}};
   for (const auto& visit : season.visits) {
     for (const auto& r : visit.readings) {
       readings.axis.values.push_back(static_cast<double>(readings.axis.values.size() + 1));
       sensor.values.push_back(r.sensor);
       quantity.values.push_back(r.quantity);
-      visit_time.values.push_back(visit.day);
-      depth.values.push_back(r.depth_cm);
-      value.values.push_back(r.value);
-      sd.values.push_back(r.uncertainty);
-      forecast.values.push_back(r.forecast_mean);
-      spread.values.push_back(r.forecast_spread);
-      analysis.values.push_back(r.analysis_mean);
+      for (auto& [column, value_of] : numeric) column.values.push_back(value_of(visit, r));
     }
   }
   readings.texts = {sensor, quantity};
-  readings.columns = {visit_time, depth, value, sd, forecast, spread, analysis};
+  for (auto& entry : numeric) readings.columns.push_back(std::move(entry.first));
   if (!readings.axis.values.empty()) record.tables.push_back(std::move(readings));
 
   profiles::StudyTable member_table;

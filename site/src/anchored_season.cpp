@@ -6,15 +6,13 @@
 
 #include <fmt/format.h>
 
+#include "anchored_members.hpp"
 #include "ensemble_member.hpp"
-#include "member_state.hpp"
-#include "visit_readings.hpp"
+#include "visit_analysis.hpp"
 #include "wetfront/base/input_error.hpp"
-#include "wetfront/observations/profile_interpolation.hpp"
+#include "wetfront/site/report_table.hpp"
 #include "wetfront/site/run_season.hpp"
-#include "wetfront/studies/ensemble_filter.hpp"
 #include "wetfront/studies/parallel_batch.hpp"
-#include "wetfront/studies/parameter_sampling.hpp"
 #include "wetfront/studies/parameter_uncertainty.hpp"
 
 namespace wetfront::site {
@@ -22,174 +20,12 @@ namespace {
 
 using detail::EnsembleMember;
 
-// An ensemble whose forecasts of the readings spread less than this fraction of the reading
-// uncertainty (median over the visit's readings) gives the readings almost no weight: collapsed.
-constexpr double kCollapseRatio = 0.1;
-constexpr double kMissing = std::numeric_limits<double>::quiet_NaN();
-// A visit's innovations lie outside when their mean square, each scaled by the forecast spread
-// and reading uncertainty together, exceeds this (2 sd; common practice); a warning when at
-// least this share of the visits (and two) do.
-constexpr double kOutsideMeanSquare = 4.0;
+// A warning when the innovations lie outside (visit_analysis.hpp) at least this share of the
+// visits, and at least two.
 constexpr double kOutsideShare = 1.0 / 3.0;
-
-std::vector<std::size_t> complete_members(const std::vector<EnsembleMember>& members) {
-  std::vector<std::size_t> alive;
-  for (std::size_t j = 0; j < members.size(); ++j)
-    if (members[j].complete) alive.push_back(j);
-  return alive;
-}
-
-// The members' forecasts of the readings: values at the readings' depths in the profile at the
-// visit (heads for tensiometers, water contents for probes and cores).
-double predicted(const EnsembleMember& member, const std::vector<double>& centres, const VisitReading& reading,
-                 const std::vector<double>& contents) {
-  const bool head = reading.quantity == kPressureHead;
-  const observations::SimulatedProfiles profile{{0.0}, centres, {head ? member.heads_cm : contents}};
-  return observations::simulated_value_at(profile, 0.0, reading.depth_cm).value();
-}
-
-// Heads enter the filter as log10(1 cm + suction): members' heads span orders of magnitude in
-// dry soil (a few metres of suction in one member, centimetres in another), and on this scale
-// their spread is closer to the Gaussian the update assumes. A reading's uncertainty carries over
-// to first order at the reading. Water contents enter as they are.
-double filter_value(const VisitReading& reading, double value) {
-  return reading.quantity == kPressureHead ? std::log10(1.0 + std::max(-value, 0.0)) : value;
-}
-double filter_uncertainty(const VisitReading& reading) {
-  return reading.quantity == kPressureHead
-             ? reading.uncertainty / ((1.0 + std::max(-reading.value, 0.0)) * std::log(10.0))
-             : reading.uncertainty;
-}
-
-double mean_of(const Eigen::VectorXd& row) { return row.mean(); }
-double spread_of(const Eigen::VectorXd& row) {
-  return std::sqrt((row.array() - row.mean()).square().sum() / static_cast<double>(row.size() - 1));
-}
-
-class Ensemble {
- public:
-  Ensemble(const detail::EnsembleSite& shared, const AnchorSettings& settings, std::vector<double> centres)
-      : shared_(shared), settings_(settings), centres_(std::move(centres)) {}
-
-  std::vector<EnsembleMember> members;
-
-  // The update at one visit: every complete member's water contents (and parameters, on
-  // request) from the visit's readings.
-  VisitUpdate analyse(const detail::ReadingsAtVisit& visit, std::uint64_t step) {
-    const std::vector<std::size_t> alive = complete_members(members);
-    const auto n_members = static_cast<Eigen::Index>(alive.size());
-    const auto n_readings = static_cast<Eigen::Index>(visit.readings.size());
-    const auto n_cells = static_cast<Eigen::Index>(centres_.size());
-    const auto& parameters = shared_.study.parameters;
-    const auto n_parameters = settings_.update_parameters ? static_cast<Eigen::Index>(parameters.size()) : 0;
-    Eigen::MatrixXd states(n_cells + n_parameters, n_members);
-    Eigen::MatrixXd forecasts(n_readings, n_members);
-    Eigen::VectorXd readings(n_readings), sd(n_readings);
-    for (Eigen::Index r = 0; r < n_readings; ++r) {
-      const VisitReading& reading = visit.readings[static_cast<std::size_t>(r)];
-      readings[r] = filter_value(reading, reading.value);
-      sd[r] = filter_uncertainty(reading);
-    }
-    for (Eigen::Index j = 0; j < n_members; ++j) {
-      const EnsembleMember& m = members[alive[static_cast<std::size_t>(j)]];
-      for (Eigen::Index i = 0; i < n_cells; ++i) states(i, j) = m.water_content[static_cast<std::size_t>(i)];
-      for (Eigen::Index k = 0; k < n_parameters; ++k)
-        states(n_cells + k, j) = studies::to_search_scale(parameters[static_cast<std::size_t>(k)].range,
-                                                          m.values[static_cast<std::size_t>(k)]);
-      for (Eigen::Index r = 0; r < n_readings; ++r)
-        forecasts(r, j) = predicted(m, centres_, visit.readings[static_cast<std::size_t>(r)], m.water_content);
-    }
-    // Every member's perturbation by its own number, whichever members are still running.
-    const Eigen::MatrixXd all_perturbed =
-        studies::perturbed_readings(readings, sd, members.size(), settings_.seed, step);
-    Eigen::MatrixXd perturbed(n_readings, n_members);
-    for (Eigen::Index j = 0; j < n_members; ++j)
-      perturbed.col(j) = all_perturbed.col(static_cast<Eigen::Index>(alive[static_cast<std::size_t>(j)]));
-    Eigen::MatrixXd filtered(n_readings, n_members);
-    for (Eigen::Index r = 0; r < n_readings; ++r)
-      for (Eigen::Index j = 0; j < n_members; ++j)
-        filtered(r, j) = filter_value(visit.readings[static_cast<std::size_t>(r)], forecasts(r, j));
-    const Eigen::MatrixXd analysed =
-        studies::analysed_states(states, filtered, perturbed, sd.array().square(), localisation(visit, states.rows()));
-
-    VisitUpdate update;
-    update.readings = visit.readings;
-    update.stored_water_increment_cm.assign(members.size(), kMissing);
-    // The readings as the analysed members give them (members that an update made unphysical
-    // are left out).
-    Eigen::VectorXd after_sum = Eigen::VectorXd::Zero(n_readings);
-    double after_count = 0;
-    for (Eigen::Index j = 0; j < n_members; ++j) {
-      EnsembleMember& m = members[alive[static_cast<std::size_t>(j)]];
-      apply(m, analysed.col(j), n_cells);
-      if (!m.complete) continue;
-      ++after_count;
-      for (Eigen::Index r = 0; r < n_readings; ++r)
-        after_sum[r] += predicted(m, centres_, visit.readings[static_cast<std::size_t>(r)], m.water_content);
-    }
-    std::vector<double> spread_ratios;
-    double mean_square = 0;
-    for (Eigen::Index r = 0; r < n_readings; ++r) {
-      VisitReading& reading = update.readings[static_cast<std::size_t>(r)];
-      reading.forecast_mean = mean_of(forecasts.row(r));
-      reading.forecast_spread = spread_of(forecasts.row(r));
-      reading.analysis_mean = after_count > 0 ? after_sum[r] / after_count : kMissing;
-      spread_ratios.push_back(reading.forecast_spread / reading.uncertainty);
-      const double innovation = reading.value - reading.forecast_mean;
-      mean_square += innovation * innovation /
-                     (reading.forecast_spread * reading.forecast_spread + reading.uncertainty * reading.uncertainty);
-    }
-    update.collapsed = studies::percentile(spread_ratios, 0.5) < kCollapseRatio;
-    update.outside = mean_square / static_cast<double>(n_readings) > kOutsideMeanSquare;
-    return update;
-  }
-
- private:
-  // Weights by distance in depth: cell to reading and reading to reading; parameters take every
-  // reading in full.
-  studies::Localisation localisation(const detail::ReadingsAtVisit& visit, Eigen::Index rows) const {
-    studies::Localisation weights;
-    if (!(settings_.reach_cm > 0)) return weights;
-    const auto n_readings = static_cast<Eigen::Index>(visit.readings.size());
-    auto depth = [&](Eigen::Index r) { return visit.readings[static_cast<std::size_t>(r)].depth_cm; };
-    weights.state_reading = Eigen::MatrixXd::Ones(rows, n_readings);
-    weights.reading_reading = Eigen::MatrixXd::Ones(n_readings, n_readings);
-    for (Eigen::Index r = 0; r < n_readings; ++r) {
-      for (std::size_t i = 0; i < centres_.size(); ++i)
-        weights.state_reading(static_cast<Eigen::Index>(i), r) =
-            studies::gaspari_cohn(centres_[i] - depth(r), settings_.reach_cm);
-      for (Eigen::Index q = 0; q < n_readings; ++q)
-        weights.reading_reading(q, r) = studies::gaspari_cohn(depth(q) - depth(r), settings_.reach_cm);
-    }
-    return weights;
-  }
-
-  // The analysed column of one member: parameters first (its soil may change), then heads.
-  void apply(EnsembleMember& m, const Eigen::VectorXd& analysed, Eigen::Index n_cells) {
-    const auto& parameters = shared_.study.parameters;
-    if (settings_.update_parameters) {
-      for (std::size_t k = 0; k < parameters.size(); ++k) {
-        const auto& range = parameters[k].range;
-        const double low = studies::to_search_scale(range, range.lower);
-        const double high = studies::to_search_scale(range, range.upper);
-        const double value = std::clamp(analysed[n_cells + static_cast<Eigen::Index>(k)], low, high);
-        m.values[k] = value == low    ? range.lower
-                      : value == high ? range.upper
-                                      : studies::from_search_scale(range, value);
-      }
-      m.season.reset();
-      if (!detail::ensure_season(shared_, m)) return;
-    }
-    const std::vector<double> contents(analysed.data(), analysed.data() + n_cells);
-    m.heads_cm = detail::analysed_heads(m.season->problem.soil, centres_, m.heads_cm, m.water_content, contents);
-    for (std::size_t i = 0; i < centres_.size(); ++i)
-      m.water_content[i] = soils::water_content(m.season->problem.soil.model_at(centres_[i]), m.heads_cm[i]);
-  }
-
-  const detail::EnsembleSite& shared_;
-  const AnchorSettings& settings_;
-  std::vector<double> centres_;
-};
+constexpr double kMissing = std::numeric_limits<double>::quiet_NaN();
+// Updates above this share of the anchored drainage get a warning (add_update_warning).
+constexpr double kLargeUpdateShare = 0.25;
 
 void add_warnings(AnchoredSeason& season) {
   std::size_t collapsed = 0, outside = 0;
@@ -202,15 +38,37 @@ void add_warnings(AnchoredSeason& season) {
   if (collapsed > 0)
     season.warnings.push_back(fmt::format(
         "the ensemble collapsed at {} of {} visits (first {}): its forecasts of the readings spread less than a "
-        "tenth of the reading uncertainty, so the readings barely move it; use more members, wider [[adjustable]] "
-        "ranges, or --update-parameters",
-        collapsed, visits, first_collapsed));
+        "tenth of the reading uncertainty, so the readings barely move it; {}",
+        collapsed, visits, first_collapsed,
+        season.settings.calibration_file.empty()
+            ? "use more members, wider [[adjustable]] ranges, or --update-parameters"
+            : "the calibration's covariance is narrow, so the members stay close together and the band is about as "
+              "narrow as the calibration's; draw them from the ranges for a wider ensemble"));
   if (outside >= 2 && static_cast<double>(outside) >= kOutsideShare * static_cast<double>(visits))
     season.warnings.push_back(fmt::format(
         "at {} of {} visits (first {}) the readings lay well outside the forecasts' spread and the reading "
         "uncertainty together: a sign of a wrong model structure (soil layers, boundaries, forcing) rather than "
         "wrong parameter values",
         outside, visits, first_outside));
+}
+
+// Without parameter updates, updates that add (or remove) a large share of the anchored drainage
+// over the season mean that the members keep losing water the readings still show: their
+// parameters, not their soil water, disagree with the readings (docs/anchored-season.md).
+void add_update_warning(AnchoredSeason& season) {
+  if (season.settings.update_parameters) return;
+  double drainage_cm = 0, update_cm = 0;
+  for (std::size_t i = 0; i < season.interval_end_days.size(); ++i) {
+    drainage_cm += drainage_band(season, i).mean;
+    update_cm += update_band(season, i).mean;
+  }
+  if (std::abs(update_cm) <= kNegligibleRechargeCm || std::abs(update_cm) <= kLargeUpdateShare * std::abs(drainage_cm))
+    return;
+  season.warnings.push_back(fmt::format(
+      "the updates {} {} mm over the season, against {} mm of anchored drainage: the members' parameters rather than "
+      "their soil water disagree with the readings, and the drainage may follow the updates; use --update-parameters "
+      "or --calibration",
+      update_cm > 0 ? "added" : "removed", number(10 * std::abs(update_cm)), number(10 * drainage_cm)));
 }
 
 }  // namespace
@@ -223,18 +81,23 @@ EnsembleBand ensemble_band(const std::vector<double>& values) {
           studies::percentile(values, 0.95)};
 }
 
-EnsembleBand drainage_band(const AnchoredSeason& season, std::size_t interval) {
+namespace {
+EnsembleBand member_band(const AnchoredSeason& season, std::size_t interval, double MemberInterval::*amount) {
   std::vector<double> values;
   for (std::size_t j = 0; j < season.members.size(); ++j)
-    if (season.member_complete[j]) values.push_back(season.members[j].at(interval).drainage_cm);
+    if (season.member_complete[j]) values.push_back(season.members[j].at(interval).*amount);
   return ensemble_band(values);
 }
+}  // namespace
 
+EnsembleBand drainage_band(const AnchoredSeason& season, std::size_t interval) {
+  return member_band(season, interval, &MemberInterval::drainage_cm);
+}
 EnsembleBand update_band(const AnchoredSeason& season, std::size_t interval) {
-  std::vector<double> values;
-  for (std::size_t j = 0; j < season.members.size(); ++j)
-    if (season.member_complete[j]) values.push_back(season.members[j].at(interval).update_cm);
-  return ensemble_band(values);
+  return member_band(season, interval, &MemberInterval::update_cm);
+}
+EnsembleBand soil_change_band(const AnchoredSeason& season, std::size_t interval) {
+  return member_band(season, interval, &MemberInterval::soil_change_cm);
 }
 
 AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& study, const AnchorSettings& settings,
@@ -275,13 +138,15 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
                                 season.readings_not_at_a_visit);
 
   const detail::EnsembleSite shared{site, study, records};
-  Ensemble ensemble(shared, settings, centres);
-  season.drawn_parameters = studies::latin_hypercube(study.ranges(), settings.members, settings.seed);
+  const detail::VisitAnalysis analysis(shared, settings, centres);
+  std::vector<EnsembleMember> members;
+  detail::DrawnMembers drawn = detail::draw_members(study, settings, records.input_hash);
+  season.drawn_parameters = std::move(drawn.values);
   for (const auto& values : season.drawn_parameters) {
     EnsembleMember member;
     member.values = values;
     member.intervals.resize(boundaries.size() - 1);
-    ensemble.members.push_back(std::move(member));
+    members.push_back(std::move(member));
   }
 
   // Stretches from one visit with readings to the next; boundary index of each analysis.
@@ -292,20 +157,20 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
   const std::size_t planned = stops.size() * settings.members;
   for (std::size_t s = 0; s < stops.size(); ++s) {
     studies::run_batch(
-        ensemble.members.size(), settings.threads,
-        [&](std::size_t j) { detail::run_stretch(shared, ensemble.members[j], boundaries, first, stops[s]); },
+        members.size(), settings.threads,
+        [&](std::size_t j) { detail::run_stretch(shared, members[j], boundaries, first, stops[s]); },
         [&](std::size_t) {
           if (progress) progress(++done, planned);
         });
-    if (complete_members(ensemble.members).size() < 2) {
-      const auto failed = std::find_if(ensemble.members.begin(), ensemble.members.end(),
-                                       [](const EnsembleMember& m) { return !m.complete; });
+    if (detail::complete_members(members).size() < 2) {
+      const auto failed =
+          std::find_if(members.begin(), members.end(), [](const EnsembleMember& m) { return !m.complete; });
       throw base::InputError(file, 0, "",
                              fmt::format("fewer than two members ran through day {:.1f}; the first failure: {}",
                                          boundaries[stops[s]], failed->failure));
     }
     if (s + 1 < stops.size()) {
-      VisitUpdate update = ensemble.analyse(visits[s], s);
+      VisitUpdate update = analysis.analyse(members, visits[s], s);
       update.day = visit_days[visits[s].visit];
       update.date = visit_dates[visits[s].visit];
       season.visits.push_back(std::move(update));
@@ -314,11 +179,11 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
   }
   // The stored water each update added, known once the next stretch started from it.
   for (std::size_t s = 0; s < season.visits.size(); ++s)
-    for (std::size_t j = 0; j < ensemble.members.size(); ++j)
-      if (ensemble.members[j].complete)
-        season.visits[s].stored_water_increment_cm[j] = ensemble.members[j].intervals.at(stops[s]).update_cm;
+    for (std::size_t j = 0; j < members.size(); ++j)
+      if (members[j].complete)
+        season.visits[s].stored_water_increment_cm[j] = members[j].intervals.at(stops[s]).update_cm;
 
-  for (auto& member : ensemble.members) {
+  for (auto& member : members) {
     season.final_parameters.push_back(member.values);
     season.member_complete.push_back(member.complete);
     season.member_failures.push_back(member.failure);
@@ -329,7 +194,9 @@ AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& 
     season.free_run_drainage_cm.push_back(interval.plane_flux_cm.at(0));
   season.darcy = free_run.sensors.darcy;
   season.water_table = free_run.sensors.water_table;
+  season.warnings = std::move(drawn.warnings);
   add_warnings(season);
+  add_update_warning(season);
   return season;
 }
 

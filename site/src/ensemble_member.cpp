@@ -1,6 +1,7 @@
 #include "ensemble_member.hpp"
 
 #include <exception>
+#include <utility>
 
 #include <fmt/format.h>
 
@@ -70,6 +71,7 @@ void run_stretch(const EnsembleSite& shared, EnsembleMember& member, const std::
     if (k == first && restart) {
       interval.storage_start_cm = member.forecast_storage_cm;
       interval.update_cm = stored(from) - member.forecast_storage_cm;
+      interval.soil_change_cm = std::exchange(member.soil_change_cm, 0.0);
     }
     interval.storage_end_cm = stored(to);
     interval.balance_error_cm =

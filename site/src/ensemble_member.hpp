@@ -22,6 +22,7 @@ struct EnsembleMember {
   std::vector<double> heads_cm;       // per cell; empty before the first stretch
   std::vector<double> water_content;  // per cell, forecast
   double forecast_storage_cm = 0;     // soil and pond
+  double soil_change_cm = 0;          // of the last analysis's new soil, booked with the next update
 };
 
 // What every member shares: the site, its study and its records.

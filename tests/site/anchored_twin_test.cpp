@@ -51,8 +51,6 @@ void scale_rain(const ScratchSite& site, double factor) {
 
 TEST(AnchoredTwin, AnchoredBandHoldsTheTrueRechargeWhereTheFreeRunMissesIt) {
   ScratchSite site("anchored-twin");
-  site.replace("site.toml", "surface_cell = \"0.1 cm\"", "surface_cell = \"1 cm\"");
-  site.replace("site.toml", "max_cell = \"3 cm\"", "max_cell = \"5 cm\"");
   testing::keep_tensiometers_and_probes(site);
   testing::add_study(site, loam_study());  // heads only: [fit] gives no water-content uncertainty
   const studies::ParameterSet truth{12.0, 1.4};

@@ -69,4 +69,19 @@ struct StudyRecord {
 // untouched.
 void write_study(const std::filesystem::path& path, const StudyRecord& record);
 
+// What a calibration file (study_kind "calibration") says about the parameters: their names,
+// the calibrated values and their covariance, both on the search scale (log10 of the value for
+// a log range).
+struct CalibratedParameters {
+  std::vector<std::string> names;  // "layer: key" or the site key, as in /parameters/name
+  std::vector<double> search_values;
+  std::vector<double> covariance;  // row-major, names.size() squared; empty when the fit gave none
+  std::string input_hash;
+  std::string run_id;
+};
+
+// Reads /parameters of a calibration file. Throws RunFileError naming the path and the cause
+// (no such file, not a wetfront study file, a study of another kind, a missing dataset).
+CalibratedParameters read_calibrated_parameters(const std::filesystem::path& path);
+
 }  // namespace wetfront::profiles

@@ -3,26 +3,29 @@
 // (studies/ensemble_filter.hpp). docs/anchored-season.md states what the method assumes.
 //
 // Members: parameter sets drawn from the [[adjustable]] ranges (Latin hypercube,
-// parameter_sampling.hpp). Each member runs from one visit with readings to the next; there its
-// forecast is compared with the visit's tensiometer, probe and core readings (the same readings
-// and reading uncertainties as the [fit] objective, a reading belonging to the visit nearest to
-// it within kVisitReadingWindowDays) and updated, and the next stretch restarts from the
-// analysed heads.
+// parameter_sampling.hpp), or around the values of a calibration file with the covariance of
+// that fit, truncated to the ranges (parameter_uncertainty.hpp). Each member runs from one visit with readings to the
+// next; there its forecast is compared with the visit's tensiometer, probe and core readings (the same readings and
+// reading uncertainties as the [fit] objective, a reading belonging to the visit nearest to it within
+// kVisitReadingWindowDays) and updated, and the next stretch restarts from the analysed heads.
 //
 // Localisation: a cell is updated only from readings within 2 x AnchorSettings::reach_cm of it,
 // with weights falling smoothly with distance; the parameters (with --update-parameters) from
 // every reading.
 //
-// Heads enter the update as log10(1 cm + suction), water contents as they are.
-//
-// Update variable: the water content of every cell (and, on request, the adjustable parameters
-// on their search scale: state augmentation). Analysed water contents are held strictly inside
-// (theta_r, theta_s) of the member's soil and turned back into heads, so every member stays
-// physical. The stored water an update adds or removes (and any pond the restart drops) is the
-// interval's own balance term `update_cm`; it never enters drainage.
+// Update variable: the pressure head of every cell as log10(1 cm + suction) (and, on request,
+// the adjustable parameters on their search scale: state augmentation). Heads, not water
+// contents: members whose soils differ hold different water at the same heads, and a water
+// content update pushes each off its own retention curve (src/member_state.hpp says how that
+// pumped water through the members). Analysed heads are held where the member's soil holds a
+// water content strictly inside (theta_r, theta_s), so every member stays physical. The stored
+// water an update adds or removes (and any pond the restart drops; with parameter updates also
+// the change of the soil's water at the same heads) is the interval's own balance term
+// `update_cm`; it never enters drainage.
 #pragma once
 
 #include <cstdint>
+#include <filesystem>
 #include <functional>
 #include <optional>
 #include <string>
@@ -41,6 +44,9 @@ struct AnchorSettings {
   // Localisation: a cell's update from a reading fades with their distance apart and stops at
   // twice this (studies::gaspari_cohn); 0: every cell from every reading.
   double reach_cm = 30.0;
+  // Empty: members from the [[adjustable]] ranges. Else a calibration file (`wetfront calibrate`)
+  // of the same parameters: members around its values with its covariance.
+  std::filesystem::path calibration_file{};
 };
 
 // One member over one visit interval, cm of water.
@@ -48,6 +54,8 @@ struct MemberInterval {
   double drainage_cm = 0;       // across the recharge plane, positive downward
   double net_inflow_cm = 0;     // water input - evaporation - runoff - transpiration - bottom flux
   double update_cm = 0;         // added by the update at the interval's start (negative: removed)
+  double soil_change_cm = 0;    // part of update_cm: a parameter update's new soil holding other water at the
+                                // same heads (0 without parameter updates)
   double storage_start_cm = 0;  // soil and pond at the start, before the update
   double storage_end_cm = 0;    // soil and pond at the end, before any update there
   double balance_error_cm = 0;  // (end - start) - net inflow - update
@@ -94,17 +102,19 @@ struct AnchoredSeason {
 };
 
 // The mean and central 90 % band (5th and 95th percentiles, studies::percentile) of values over
-// members; NaN for no values. drainage_band and update_band take the complete members' values.
+// members; NaN for no values. The bands of an interval take the complete members' values.
 struct EnsembleBand {
   double mean = 0, lower = 0, upper = 0;
 };
 EnsembleBand ensemble_band(const std::vector<double>& values);
 EnsembleBand drainage_band(const AnchoredSeason& season, std::size_t interval);
 EnsembleBand update_band(const AnchoredSeason& season, std::size_t interval);
+EnsembleBand soil_change_band(const AnchoredSeason& season, std::size_t interval);
 
 // Runs the anchored season of the site. Throws base::InputError naming the site file for no
-// adjustable parameters, fewer than two members, or fewer than two members left complete, and
-// for records the season cannot use. progress(done, planned) counts member stretches.
+// adjustable parameters, fewer than two members, or fewer than two members left complete, for
+// records the season cannot use, and naming the calibration file for one that does not fit. progress(done, planned)
+// counts member stretches.
 AnchoredSeason run_anchored_season(const SiteSetup& site, const ParameterStudy& study, const AnchorSettings& settings,
                                    const std::string& program_version,
                                    const std::function<void(std::size_t, std::size_t)>& progress = {});
