@@ -34,7 +34,7 @@ double initial_head(const InitialCondition& initial, double depth) {
 // respect to that head.
 FaceSide boundary_side(const soils::HydraulicModel& model, double head_cm) {
   const auto s = soils::evaluate(model, head_cm);
-  return {head_cm, s.conductivity, 1.0, s.conductivity_slope};
+  return {head_cm, s.conductivity, 1.0, s.conductivity_slope, s.conductivity};
 }
 
 }  // namespace
@@ -92,7 +92,8 @@ ColumnModel::ColumnModel(const ColumnProblem& problem)
     while (uptake_cells_ < cells() && faces[uptake_cells_] < deepest) ++uptake_cells_;
   }
   const std::size_t n = cells();
-  for (auto* v : {&potential_, &head_, &head_per_storage_, &conductivity_, &conductivity_per_storage_, &base_storage_})
+  for (auto* v : {&potential_, &potential_per_storage_, &head_, &head_per_storage_, &conductivity_,
+                  &conductivity_per_storage_, &base_storage_})
     v->assign(n, 0.0);
   sink_rate_.assign(uptake_cells_, 0.0);
   sink_slope_.assign(uptake_cells_, 0.0);
@@ -190,7 +191,8 @@ double ColumnModel::transpiration(std::span<const double> y) const {
 // Head, conductivity and their slopes with respect to the cell's stored water S = dz s.
 FaceFlux ColumnModel::interior_face(std::size_t j) const {
   auto side = [&](std::size_t i) {
-    return FaceSide{head_[i], conductivity_[i], head_per_storage_[i], conductivity_per_storage_[i]};
+    return FaceSide{head_[i], conductivity_[i], head_per_storage_[i], conductivity_per_storage_[i],
+                    potential_per_storage_[i]};
   };
   if (face_kind_ != FaceConductivity::integral || cell_table_[j - 1] != cell_table_[j])
     return darcy_face(face_kind_ == FaceConductivity::integral ? FaceConductivity::arithmetic : face_kind_, side(j - 1),
@@ -223,7 +225,14 @@ StoragePoint ColumnModel::cell_point(std::size_t i, std::span<const double> y) c
   auto p = cell_table_[i]->at(cell_storage(i, y) * inverse_thickness_[i]);
   p.head_per_storage *= inverse_thickness_[i];
   p.conductivity_per_storage *= inverse_thickness_[i];
+  p.potential_per_storage *= inverse_thickness_[i];
   return p;
+}
+
+// Cell i as the last evaluate_cells left it, slopes per stored water S.
+StoragePoint ColumnModel::evaluated_point(std::size_t i) const {
+  return {head_[i], head_per_storage_[i], conductivity_[i], conductivity_per_storage_[i], potential_[i],
+          potential_per_storage_[i]};
 }
 
 double ColumnModel::cell_head(std::size_t i, std::span<const double> y) const { return cell_point(i, y).head_cm; }
@@ -244,6 +253,7 @@ void ColumnModel::evaluate_cells(std::span<const double> y) {
     conductivity_[i] = p.conductivity;
     conductivity_per_storage_[i] = p.conductivity_per_storage * per_thickness;
     potential_[i] = p.potential;
+    potential_per_storage_[i] = p.potential_per_storage * per_thickness;
   }
   // Sinks are constant in time over a forcing period (their changes are breakpoints), so they
   // see the period start: a residual evaluated exactly at the period end keeps this period's values.
@@ -282,7 +292,8 @@ double ColumnModel::surface_head(double t, std::span<const double> y) const {
 // half-cells always take the arithmetic mean: a harmonic or geometric mean with a dry top cell
 // would shut the surface to rain (the surface value is a boundary condition, not a cell).
 ColumnModel::SurfaceFlux ColumnModel::head_limited_flux(double hs, const StoragePoint& top) const {
-  const FaceSide cell{top.head_cm, top.conductivity, top.head_per_storage, top.conductivity_per_storage};
+  const FaceSide cell{top.head_cm, top.conductivity, top.head_per_storage, top.conductivity_per_storage,
+                      top.potential_per_storage};
   const auto f = boundary_face(boundary_side(*cell_model_[0], hs), boundary_potential(0, hs), cell, top.potential,
                                centre_distance_[0]);
   return {f.flux, f.slope_lower, f.slope_upper};
@@ -297,7 +308,8 @@ ColumnModel::SurfaceFlux ColumnModel::surface_flux(double t, std::span<const dou
 
 ColumnModel::BottomFlux ColumnModel::bottom_flux(const StoragePoint& last) const {
   const std::size_t n = cells();
-  const FaceSide cell{last.head_cm, last.conductivity, last.head_per_storage, last.conductivity_per_storage};
+  const FaceSide cell{last.head_cm, last.conductivity, last.head_per_storage, last.conductivity_per_storage,
+                      last.potential_per_storage};
   auto fixed = [&](double hb) {
     const double distance = grid_.total_depth_cm() - grid_.cell_depths_cm()[n - 1];
     const auto f = boundary_face(cell, last.potential, boundary_side(*cell_model_[n - 1], hb), boundary_potential(n - 1, hb),
@@ -314,9 +326,7 @@ void ColumnModel::residual(double t, std::span<const double> y, std::span<const 
   evaluate_cells(y);
   evaluated_state_.assign(y.begin(), y.end());
   const std::size_t n = cells();
-  const StoragePoint top{head_[0], head_per_storage_[0], conductivity_[0], conductivity_per_storage_[0], potential_[0]};
-  const StoragePoint last{head_[n - 1], head_per_storage_[n - 1], conductivity_[n - 1], conductivity_per_storage_[n - 1],
-                          potential_[n - 1]};
+  const StoragePoint top = evaluated_point(0), last = evaluated_point(n - 1);
   r[face_index(0)] = yp[face_index(0)] - surface_flux(t, y, top).flux;
   for (std::size_t j = 1; j < n; ++j) {
     if (face_kind_ == FaceConductivity::integral) {
@@ -349,8 +359,7 @@ void ColumnModel::jacobian(double t, double cj, std::span<const double> y, SUNMa
   };
   const std::size_t n = cells();
   const std::size_t f0 = face_index(0);
-  const auto top =
-      surface_flux(t, y, {head_[0], head_per_storage_[0], conductivity_[0], conductivity_per_storage_[0], potential_[0]});
+  const auto top = surface_flux(t, y, evaluated_point(0));
   at(f0, f0) += cj;
   add_storage_slope(f0, 0, -top.slope_storage);
   at(f0, f0) += top.slope_pond;  // the pond depth falls as F_0 grows: dP/dF_0 = -1
@@ -363,9 +372,7 @@ void ColumnModel::jacobian(double t, double cj, std::span<const double> y, SUNMa
   }
   const std::size_t last = face_index(n);
   at(last, last) += cj;
-  add_storage_slope(last, n - 1, -bottom_flux({head_[n - 1], head_per_storage_[n - 1], conductivity_[n - 1],
-                                               conductivity_per_storage_[n - 1], potential_[n - 1]})
-                                     .slope_storage);
+  add_storage_slope(last, n - 1, -bottom_flux(evaluated_point(n - 1)).slope_storage);
   for (std::size_t i = 0; i < uptake_cells_; ++i) {
     at(uptake_index(i), uptake_index(i)) += cj;
     add_storage_slope(uptake_index(i), i, -sink_slope_[i] * head_per_storage_[i] * grid_.cell_thickness_cm(i));

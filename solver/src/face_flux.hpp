@@ -16,6 +16,7 @@ struct FaceSide {
   double conductivity;        // cm/d
   double head_slope;          // dh / d(variable)
   double conductivity_slope;  // dK / d(variable)
+  double potential_slope = 0;  // dPhi / d(variable), for the integral mean
 };
 
 struct FaceFlux {
@@ -62,8 +63,8 @@ inline FaceFlux integral_face(const FaceSide& upper, double phi_upper, const Fac
   const double gradient = 1.0 - (lower.head_cm - upper.head_cm) / distance_cm;
   if (!(std::abs(dh) > 1e-4)) return darcy_face(FaceConductivity::arithmetic, upper, lower, distance_cm);
   const double k = (phi_upper - phi_lower) / dh;
-  const double k_upper = (upper.conductivity - k) / dh * upper.head_slope;
-  const double k_lower = (k - lower.conductivity) / dh * lower.head_slope;
+  const double k_upper = (upper.potential_slope - k * upper.head_slope) / dh;
+  const double k_lower = (k * lower.head_slope - lower.potential_slope) / dh;
   return {k * gradient, k_upper * gradient + k / distance_cm * upper.head_slope,
           k_lower * gradient - k / distance_cm * lower.head_slope};
 }

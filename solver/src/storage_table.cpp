@@ -137,10 +137,10 @@ StorageTable::StorageTable(const soils::HydraulicModel& model, double specific_s
 StoragePoint StorageTable::dry_tail(double s) const {
   const double slope = head_slope_.front();
   const double h = head_.front() + (s - storage_.front()) * slope;
-  if (!std::isfinite(h)) return {h, slope, 0.0, 0.0, 0.0};
+  if (!std::isfinite(h)) return {h, slope, 0.0, 0.0, 0.0, 0.0};
   const auto state = soils::evaluate(model_, h);
   return {h, slope, state.conductivity, state.conductivity_slope * slope,
-          conductivity_.front() * (h - head_.front())};
+          conductivity_.front() * (h - head_.front()), conductivity_.front() * slope};
 }
 
 double StorageTable::storage_at(double h) const {

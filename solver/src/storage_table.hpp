@@ -35,6 +35,7 @@ struct StoragePoint {
   double conductivity;             // K(h(s)), cm/d
   double conductivity_per_storage; // dK/ds, cm/d per (cm3/cm3)
   double potential = 0;            // Kirchhoff potential Phi(h(s)) = integral of K dh from the driest node, cm2/d
+  double potential_per_storage = 0;  // dPhi/ds of the same interpolant (so the Jacobian matches the residual)
 };
 
 struct StorageTableSettings {
@@ -52,7 +53,8 @@ class StorageTable {
     if (storage >= full_storage_) {
       const double slope = 1.0 / specific_storage_;
       const double above = (storage - full_storage_) * slope;
-      return {saturation_head_ + above, slope, saturated_conductivity_, 0.0, full_potential_ + saturated_conductivity_ * above};
+      return {saturation_head_ + above, slope, saturated_conductivity_, 0.0, full_potential_ + saturated_conductivity_ * above,
+              saturated_conductivity_ * slope};
     }
     if (storage < dry_storage_) return dry_tail(storage);
     const Interval& iv = intervals_[interval(storage)];
@@ -62,7 +64,7 @@ class StorageTable {
     const double* f = iv.potential;
     return {h[0] + t * (h[1] + t * (h[2] + t * h[3])), (h[1] + t * (2 * h[2] + t * 3 * h[3])) * iv.inverse_width,
             k[0] + t * (k[1] + t * (k[2] + t * k[3])), (k[1] + t * (2 * k[2] + t * 3 * k[3])) * iv.inverse_width,
-            f[0] + t * (f[1] + t * (f[2] + t * f[3]))};
+            f[0] + t * (f[1] + t * (f[2] + t * f[3])), (f[1] + t * (2 * f[2] + t * 3 * f[3])) * iv.inverse_width};
   }
   // The inverse of at(s).head_cm, to round-off: the storage that the table maps to this head.
   double storage_at(double head_cm) const;

@@ -66,11 +66,12 @@ TEST(GridCheck, DemoGridPasses) {
   for (const auto& s : check.sensors) EXPECT_FALSE(s.too_coarse) << s.name << " " << s.rms_change;
 }
 
-// The demo's earlier grid (0.5 cm at the surface, growth 1.1, 5 cm cells): recharge converged but
-// the shallow tensiometer's heads moved by about 20 cm RMS on halving; the check must say so.
+// A coarse grid (1 cm at the surface, growth 1.2, 10 cm cells; 70 cells): recharge converges
+// (0.4 %) but the shallow tensiometer's heads move by about 30 cm RMS on halving; the check must
+// say so.
 TEST(GridCheck, CoarseGridIsFlaggedAtTheShallowTensiometer) {
   ScratchSite site("grid-coarse");
-  set_grid(site, "0.5 cm", 1.1, "5 cm");
+  set_grid(site, "1 cm", 1.2, "10 cm");
   const GridCheck check = check_demo(site);
   EXPECT_TRUE(check.too_coarse());
   const auto& t30 = sensor(check, "T30");

@@ -78,6 +78,17 @@ TEST(Jacobian, PondedSurfaceWithRootsAndWaterTable) {
   expect_jacobian_matches_differences(problem, 0.01);
 }
 
+TEST(Jacobian, EveryFaceConductivityMean) {
+  for (const auto face : kFaceConductivities) {
+    SCOPED_TRACE(face_name(face));
+    auto problem = front_in_loam();
+    problem.face_conductivity = face;
+    problem.top = solver::LimitedFlux{solver::StepSeries::constant(100.0), solver::StepSeries::constant(0.2), -15000.0, 1.0};
+    problem.bottom = solver::FixedHead{-30.0};
+    expect_jacobian_matches_differences(problem, 0.01);
+  }
+}
+
 TEST(Jacobian, DryLimitSurfaceOnSand) {
   auto problem = make_column(single_layer(20.0, sand()), solver::uniform_grid(20.0, 40));
   problem.initial = solver::HeadTable{{0.0, 2.0, 20.0}, {-3000.0, -60.0, -20.0}};
