@@ -95,6 +95,7 @@ ColumnModel::ColumnModel(const ColumnProblem& problem)
   for (auto* v : {&potential_, &potential_per_storage_, &head_, &head_per_storage_, &conductivity_,
                   &conductivity_per_storage_, &base_storage_})
     v->assign(n, 0.0);
+  interval_hint_.assign(n, 0);
   sink_rate_.assign(uptake_cells_, 0.0);
   sink_slope_.assign(uptake_cells_, 0.0);
   totals_.face.assign(n + 1, 0.0);
@@ -188,8 +189,9 @@ double ColumnModel::transpiration(std::span<const double> y) const {
   return total;
 }
 
-// Head, conductivity and their slopes with respect to the cell's stored water S = dz s.
-FaceFlux ColumnModel::interior_face(std::size_t j) const {
+// Head, conductivity and their slopes with respect to the cell's stored water S = dz s. Inline,
+// so that the residual, which reads only the flux, does not pay for the slopes.
+inline FaceFlux ColumnModel::interior_face(std::size_t j) const {
   auto side = [&](std::size_t i) {
     return FaceSide{head_[i], conductivity_[i], head_per_storage_[i], conductivity_per_storage_[i],
                     potential_per_storage_[i]};
@@ -222,7 +224,7 @@ double ColumnModel::boundary_potential(std::size_t cell, double head_cm) const {
 }
 
 StoragePoint ColumnModel::cell_point(std::size_t i, std::span<const double> y) const {
-  auto p = cell_table_[i]->at(cell_storage(i, y) * inverse_thickness_[i]);
+  auto p = cell_table_[i]->at(cell_storage(i, y) * inverse_thickness_[i], interval_hint_[i]);
   p.head_per_storage *= inverse_thickness_[i];
   p.conductivity_per_storage *= inverse_thickness_[i];
   p.potential_per_storage *= inverse_thickness_[i];
@@ -244,17 +246,23 @@ double ColumnModel::cell_water_content(std::size_t i, std::span<const double> y)
 
 void ColumnModel::evaluate_cells(std::span<const double> y) {
   evaluated_state_.clear();  // set again by residual()
-  for (std::size_t i = 0; i < cells(); ++i) {
-    const double per_thickness = inverse_thickness_[i];
-    const double s = cell_storage(i, y) * per_thickness;
-    const auto p = cell_table_[i]->at(s);
-    head_[i] = p.head_cm;
-    head_per_storage_[i] = p.head_per_storage * per_thickness;
-    conductivity_[i] = p.conductivity;
-    conductivity_per_storage_[i] = p.conductivity_per_storage * per_thickness;
-    potential_[i] = p.potential;
-    potential_per_storage_[i] = p.potential_per_storage * per_thickness;
-  }
+  // The potential only for the integral mean: without it the compiler drops its two cubics.
+  auto evaluate = [&](auto with_potential) {
+    for (std::size_t i = 0; i < cells(); ++i) {
+      const double per_thickness = inverse_thickness_[i];
+      const auto p = cell_table_[i]->at(cell_storage(i, y) * per_thickness, interval_hint_[i]);
+      head_[i] = p.head_cm;
+      head_per_storage_[i] = p.head_per_storage * per_thickness;
+      conductivity_[i] = p.conductivity;
+      conductivity_per_storage_[i] = p.conductivity_per_storage * per_thickness;
+      if constexpr (with_potential) {
+        potential_[i] = p.potential;
+        potential_per_storage_[i] = p.potential_per_storage * per_thickness;
+      }
+    }
+  };
+  if (face_kind_ == FaceConductivity::integral) evaluate(std::true_type{});
+  else evaluate(std::false_type{});
   // Sinks are constant in time over a forcing period (their changes are breakpoints), so they
   // see the period start: a residual evaluated exactly at the period end keeps this period's values.
   if (uptake_cells_ > 0) {
@@ -387,6 +395,18 @@ void ColumnModel::consistent_rates(double t, std::span<const double> y, std::spa
 }
 
 ProfileSnapshot ColumnModel::snapshot(double t, std::span<const double> y) {
+  // An output must not change what the next step sees (the error weights read the cells as the
+  // last residual left them), so the workspace is put back when the snapshot is taken.
+  auto kept = std::tie(head_, head_per_storage_, conductivity_, conductivity_per_storage_, potential_,
+                       potential_per_storage_, sink_rate_, sink_slope_, evaluated_state_);
+  const auto saved = std::make_tuple(head_, head_per_storage_, conductivity_, conductivity_per_storage_, potential_,
+                                     potential_per_storage_, sink_rate_, sink_slope_, evaluated_state_);
+  const ProfileSnapshot snap = snapshot_here(t, y);
+  kept = saved;
+  return snap;
+}
+
+ProfileSnapshot ColumnModel::snapshot_here(double t, std::span<const double> y) {
   evaluate_cells(y);
   const std::size_t n = cells();
   ProfileSnapshot snap;
@@ -409,27 +429,35 @@ ProfileSnapshot ColumnModel::snapshot(double t, std::span<const double> y) {
 
 void ColumnModel::error_weights(std::span<const double> y, std::span<double> weights) const {
   const std::size_t n = cells();
-  auto tolerance = [&](std::size_t i) {
+  // 1 / tolerance on the stored water of cell i, the tolerance being the smallest of the storage
+  // tolerance and of the head tolerances divided by dh/dS.
+  auto weight = [&](std::size_t i) {
     const double stored = cell_storage(i, y);
-    double tol = settings_.absolute_tolerance_storage_cm + settings_.relative_tolerance * std::abs(stored);
-    const auto p = cell_table_[i]->at(stored * inverse_thickness_[i]);
+    double w = 1.0 / (settings_.absolute_tolerance_storage_cm + settings_.relative_tolerance * std::abs(stored));
+    // The head, dh/dS and K as the last residual left them (the Newton iterate before this
+    // step's last correction: near enough for a tolerance, and no table lookup), or looked up
+    // when an output or a Jacobian elsewhere has moved the workspace.
+    const StoragePoint p = evaluated_state_.empty()
+                               ? cell_point(i, y)
+                               : StoragePoint{head_[i], head_per_storage_[i], conductivity_[i], 0.0};
     if (p.head_per_storage > 0) {
       // Any cell: its head may err by a fraction of itself (binds in dry cells, where dh/dS is
-      // so large that a storage tolerance alone let thin surface cells reach -1e7 cm).
-      const double head_error = settings_.head_relative_tolerance * (std::abs(p.head_cm) + 1.0);
-      const double per_storage = p.head_per_storage * inverse_thickness_[i];
-      tol = std::min(tol, head_error / per_storage);
+      // so large that a storage tolerance alone let thin surface cells reach -1e7 cm); a
+      // conducting cell by head_tolerance at most.
+      double head_error = settings_.head_relative_tolerance * (std::abs(p.head_cm) + 1.0);
       if (p.conductivity >= 0.01 * saturated_conductivity_[i])
-        tol = std::min(tol, settings_.head_tolerance_cm / per_storage);
+        head_error = std::min(head_error, settings_.head_tolerance_cm);
+      w = std::max(w, p.head_per_storage / head_error);
     }
-    return tol;
+    return w;
   };
-  double above = tolerance(0);
-  weights[face_index(0)] = 1.0 / above;
+  // A face flux moves water between two cells: it takes the tighter of their tolerances.
+  double above = weight(0);
+  weights[face_index(0)] = above;
   for (std::size_t i = 0; i < n; ++i) {
-    const double below = i + 1 < n ? tolerance(i + 1) : above;
-    weights[face_index(i + 1)] = 1.0 / std::min(above, below);
-    if (i < uptake_cells_) weights[uptake_index(i)] = 1.0 / above;
+    const double below = i + 1 < n ? weight(i + 1) : above;
+    weights[face_index(i + 1)] = std::max(above, below);
+    if (i < uptake_cells_) weights[uptake_index(i)] = above;
     above = below;
   }
 }

@@ -145,6 +145,7 @@ class ColumnModel {
   double boundary_potential(std::size_t cell, double head_cm) const;
   StoragePoint cell_point(std::size_t cell, std::span<const double> y) const;
   StoragePoint evaluated_point(std::size_t cell) const;
+  ProfileSnapshot snapshot_here(double t, std::span<const double> y);  // snapshot() without putting back
   SurfaceFlux surface_flux(double t, std::span<const double> y, const StoragePoint& top) const;
   SurfaceFlux head_limited_flux(double surface_head_cm, const StoragePoint& top) const;
   BottomFlux bottom_flux(const StoragePoint& last) const;
@@ -184,6 +185,8 @@ class ColumnModel {
   Totals totals_;
 
   // Workspace, refreshed by evaluate_cells(): per cell head, dh/dS, K, dK/dS, sink and its slope.
+  // Per cell, the storage-table interval of its last lookup (where the next one starts).
+  mutable std::vector<unsigned> interval_hint_;
   std::vector<double> potential_, potential_per_storage_, head_, head_per_storage_, conductivity_, conductivity_per_storage_, sink_rate_, sink_slope_;
   std::vector<double> evaluated_state_;
   struct KeptPotential {

@@ -50,21 +50,17 @@ class StorageTable {
   StorageTable(const soils::HydraulicModel& model, double specific_storage_per_cm, StorageTableSettings settings = {});
 
   StoragePoint at(double storage) const {  // inline: the residual's inner loop
-    if (storage >= full_storage_) {
-      const double slope = 1.0 / specific_storage_;
-      const double above = (storage - full_storage_) * slope;
-      return {saturation_head_ + above, slope, saturated_conductivity_, 0.0, full_potential_ + saturated_conductivity_ * above,
-              saturated_conductivity_ * slope};
-    }
+    if (storage >= full_storage_) return saturated(storage);
     if (storage < dry_storage_) return dry_tail(storage);
-    const Interval& iv = intervals_[interval(storage)];
-    const double t = (storage - iv.storage) * iv.inverse_width;
-    const double* h = iv.head;
-    const double* k = iv.conductivity;
-    const double* f = iv.potential;
-    return {h[0] + t * (h[1] + t * (h[2] + t * h[3])), (h[1] + t * (2 * h[2] + t * 3 * h[3])) * iv.inverse_width,
-            k[0] + t * (k[1] + t * (k[2] + t * k[3])), (k[1] + t * (2 * k[2] + t * 3 * k[3])) * iv.inverse_width,
-            f[0] + t * (f[1] + t * (f[2] + t * f[3])), (f[1] + t * (2 * f[2] + t * 3 * f[3])) * iv.inverse_width};
+    return in_interval(intervals_[interval(storage)], storage);
+  }
+  // The same, trying first the interval `hint` (where this cell's last lookup ended: a cell's
+  // storage changes little from one call to the next) and leaving there the interval used.
+  StoragePoint at(double storage, unsigned& hint) const {
+    if (storage >= full_storage_) return saturated(storage);
+    if (storage < dry_storage_) return dry_tail(storage);
+    if (!(storage_[hint] <= storage && storage < storage_[hint + 1])) hint = static_cast<unsigned>(interval(storage));
+    return in_interval(intervals_[hint], storage);
   }
   // The inverse of at(s).head_cm, to round-off: the storage that the table maps to this head.
   double storage_at(double head_cm) const;
@@ -91,6 +87,12 @@ class StorageTable {
     return lo;
   }
   StoragePoint dry_tail(double storage) const;
+  StoragePoint saturated(double storage) const {
+    const double slope = 1.0 / specific_storage_;
+    const double above = (storage - full_storage_) * slope;
+    return {saturation_head_ + above, slope, saturated_conductivity_, 0.0, full_potential_ + saturated_conductivity_ * above,
+            saturated_conductivity_ * slope};
+  }
 
   soils::HydraulicModel model_;
   double specific_storage_;
@@ -105,6 +107,15 @@ class StorageTable {
     double head[4], conductivity[4], potential[4];  // coefficients of 1, t, t^2, t^3
   };
   std::vector<Interval> intervals_;
+  static StoragePoint in_interval(const Interval& iv, double storage) {
+    const double t = (storage - iv.storage) * iv.inverse_width;
+    const double* h = iv.head;
+    const double* k = iv.conductivity;
+    const double* f = iv.potential;
+    return {h[0] + t * (h[1] + t * (h[2] + t * h[3])), (h[1] + t * (2 * h[2] + t * 3 * h[3])) * iv.inverse_width,
+            k[0] + t * (k[1] + t * (k[2] + t * k[3])), (k[1] + t * (2 * k[2] + t * 3 * k[3])) * iv.inverse_width,
+            f[0] + t * (f[1] + t * (f[2] + t * f[3])), (f[1] + t * (2 * f[2] + t * 3 * f[3])) * iv.inverse_width};
+  }
   // Uniform buckets over [dry_storage, full_storage]: the first and last interval that can hold
   // a storage in each bucket.
   std::vector<unsigned> bucket_first_, bucket_last_;
