@@ -141,9 +141,7 @@ std::vector<std::string> season_notes(const Season& season) {
 
 // The refinement check's section of the report.
 std::string grid_check_text(const GridCheck& check) {
-  std::string out = fmt::format("\nGrid check: the season again with [grid] surface_cell and max_cell halved and the square "
-                                "root of growth_factor ({} cells instead of {}; fewer than twice as many where "
-                                "the kept faces, not the limits, set the cell sizes)\n",
+  std::string out = fmt::format("\nGrid check: the season again with every cell cut in two ({} cells instead of {})\n",
                                 check.finer_cells, check.cells);
   if (!check.finer_complete) {
     out += fmt::format("  the finer run did not finish: {}\n", check.finer_failure);

@@ -51,9 +51,7 @@ bool GridCheck::too_coarse() const {
 
 solver::GridRequest halved(const solver::GridRequest& request) {
   solver::GridRequest finer = request;
-  finer.surface_cell_cm = request.surface_cell_cm / 2;
-  finer.max_cell_cm = request.max_cell_cm / 2;
-  finer.growth_factor = std::sqrt(request.growth_factor);
+  finer.cell_split = 2 * request.cell_split;
   return finer;
 }
 

@@ -100,6 +100,17 @@ struct CellCountIntegral {
   }
 };
 
+// Every cell cut into `parts` equal cells.
+std::vector<double> split_cells(const std::vector<double>& faces, int parts) {
+  if (parts <= 1) return faces;
+  std::vector<double> split = {faces.front()};
+  for (std::size_t i = 0; i + 1 < faces.size(); ++i) {
+    for (int k = 1; k < parts; ++k) split.push_back(faces[i] + (faces[i + 1] - faces[i]) * k / parts);
+    split.push_back(faces[i + 1]);
+  }
+  return split;
+}
+
 }  // namespace
 
 // Builds the grid from the size field, then repairs what rounding the cell counts up can leave:
@@ -110,6 +121,7 @@ Grid graded_grid(const GridRequest& request) {
   if (!(request.depth_cm > 0)) throw std::invalid_argument("grid depth must be positive");
   if (!(request.surface_cell_cm > 0) || !(request.growth_factor >= 1.0) || !(request.max_cell_cm > 0))
     throw std::invalid_argument("grid: surface cell and largest cell must be positive, growth factor >= 1");
+  if (request.cell_split < 1) throw std::invalid_argument("grid: cells can only be split into one or more parts");
   std::vector<double> anchors = {0.0, request.depth_cm};
   for (double d : request.required_face_depths_cm) {
     if (d < 0 || d > request.depth_cm)
@@ -150,7 +162,7 @@ Grid graded_grid(const GridRequest& request) {
       else if (i + 1 + 1 < faces.size() && (width(i) > g * width(i + 1) || width(i + 1) > g * width(i)))
         offending = width(i) > width(i + 1) ? i : i + 1;
     }
-    if (!offending) return Grid(std::move(faces));
+    if (!offending) return Grid(split_cells(faces, request.cell_split));
     if (repair > 100000) throw std::logic_error("graded_grid: the limits could not be met");
     const std::size_t a = interval_of[*offending];
     inside[a] = integrals[a].interior_faces(++cells[a]);

@@ -41,17 +41,22 @@ const SensorGridChange& sensor(const GridCheck& check, const std::string& name) 
   return *it;
 }
 
-TEST(GridCheck, HalvedRequestHasCellsOfHalfTheSize) {
+TEST(GridCheck, HalvedRequestCutsEveryCellInTwo) {
   solver::GridRequest request;
   request.depth_cm = 100;
+  request.required_face_depths_cm = {7.0, 30.0, 31.0};  // kept faces close together, too
   request.surface_cell_cm = 0.4;
   request.growth_factor = 1.21;
   request.max_cell_cm = 6;
-  const auto finer = halved(request);
-  EXPECT_DOUBLE_EQ(finer.surface_cell_cm, 0.2);
-  EXPECT_DOUBLE_EQ(finer.max_cell_cm, 3);
-  EXPECT_DOUBLE_EQ(finer.growth_factor, 1.1);
-  EXPECT_EQ(finer.depth_cm, 100);
+  const solver::Grid coarse = solver::graded_grid(request);
+  const solver::Grid fine = solver::graded_grid(halved(request));
+  ASSERT_EQ(fine.cell_count(), 2 * coarse.cell_count());
+  for (std::size_t i = 0; i < coarse.cell_count(); ++i) {
+    const double half = coarse.cell_thickness_cm(i) / 2;  // to round-off of the face depths
+    EXPECT_NEAR(fine.cell_thickness_cm(2 * i), half, 1e-12 * request.depth_cm) << i;
+    EXPECT_NEAR(fine.cell_thickness_cm(2 * i + 1), half, 1e-12 * request.depth_cm) << i;
+  }
+  for (double d : request.required_face_depths_cm) EXPECT_NO_THROW(fine.face_at(d)) << d;
 }
 
 // The demo's own grid passes: heads at every tensiometer within 5 cm RMS of the halved grid,

@@ -42,8 +42,8 @@ struct GridCheck {
   bool too_coarse() const;
 };
 
-// The same request with cells of half the size: half the surface cell and largest cell, and
-// the square root of the growth factor (twice as many cells over the same grading).
+// The same request with every cell of the grid it builds cut in two: exactly half the cell
+// size everywhere, the same kept faces and the same grading.
 solver::GridRequest halved(const solver::GridRequest& request);
 
 // Runs `site` on the halved grid and compares it with `result`, a run of the same site.
