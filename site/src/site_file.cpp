@@ -647,7 +647,7 @@ void read_numerics(const SiteTable& root, SiteSetup& site) {
     static constexpr std::array<std::string_view, 4> means = {"arithmetic", "geometric", "harmonic", "integral"};
     if (const auto mean = solver->optional_choice("face_conductivity", means)) {
       site.face_conductivity = *mean == "integral"    ? solver::FaceConductivity::integral
-                               : *mean == "harmonic"    ? solver::FaceConductivity::harmonic
+                               : *mean == "harmonic"  ? solver::FaceConductivity::harmonic
                                : *mean == "geometric" ? solver::FaceConductivity::geometric
                                                       : solver::FaceConductivity::arithmetic;
     }

@@ -233,8 +233,8 @@ StoragePoint ColumnModel::cell_point(std::size_t i, std::span<const double> y) c
 
 // Cell i as the last evaluate_cells left it, slopes per stored water S.
 StoragePoint ColumnModel::evaluated_point(std::size_t i) const {
-  return {head_[i], head_per_storage_[i], conductivity_[i], conductivity_per_storage_[i], potential_[i],
-          potential_per_storage_[i]};
+  return {head_[i],      head_per_storage_[i],     conductivity_[i], conductivity_per_storage_[i],
+          potential_[i], potential_per_storage_[i]};
 }
 
 double ColumnModel::cell_head(std::size_t i, std::span<const double> y) const { return cell_point(i, y).head_cm; }
@@ -261,8 +261,10 @@ void ColumnModel::evaluate_cells(std::span<const double> y) {
       }
     }
   };
-  if (face_kind_ == FaceConductivity::integral) evaluate(std::true_type{});
-  else evaluate(std::false_type{});
+  if (face_kind_ == FaceConductivity::integral)
+    evaluate(std::true_type{});
+  else
+    evaluate(std::false_type{});
   // Sinks are constant in time over a forcing period (their changes are breakpoints), so they
   // see the period start: a residual evaluated exactly at the period end keeps this period's values.
   if (uptake_cells_ > 0) {
@@ -277,8 +279,7 @@ void ColumnModel::evaluate_cells(std::span<const double> y) {
       if (above_dry >= sink_cutoff) continue;
       const double share = std::max(above_dry, 0.0) / sink_cutoff;
       // d(rate share)/dh = rate' share + rate d(share)/dS / (dh/dS)
-      const double share_per_head =
-          above_dry > 0 ? inverse_thickness_[i] / (sink_cutoff * head_per_storage_[i]) : 0.0;
+      const double share_per_head = above_dry > 0 ? inverse_thickness_[i] / (sink_cutoff * head_per_storage_[i]) : 0.0;
       sink_slope_[i] = sink_slope_[i] * share + sink_rate_[i] * share_per_head;
       sink_rate_[i] *= share;
     }
@@ -320,8 +321,8 @@ ColumnModel::BottomFlux ColumnModel::bottom_flux(const StoragePoint& last) const
                       last.potential_per_storage};
   auto fixed = [&](double hb) {
     const double distance = grid_.total_depth_cm() - grid_.cell_depths_cm()[n - 1];
-    const auto f = boundary_face(cell, last.potential, boundary_side(*cell_model_[n - 1], hb), boundary_potential(n - 1, hb),
-                                 distance);
+    const auto f = boundary_face(cell, last.potential, boundary_side(*cell_model_[n - 1], hb),
+                                 boundary_potential(n - 1, hb), distance);
     return BottomFlux{f.flux, f.slope_upper};
   };
   if (std::holds_alternative<FreeDrainage>(bottom_boundary_)) return {last.conductivity, last.conductivity_per_storage};
@@ -342,7 +343,8 @@ void ColumnModel::residual(double t, std::span<const double> y, std::span<const 
       continue;
     }
     const double gradient = 1.0 - (head_[j] - head_[j - 1]) / centre_distance_[j];
-    r[face_index(j)] = yp[face_index(j)] - face_mean(face_kind_, conductivity_[j - 1], conductivity_[j]).mean * gradient;
+    r[face_index(j)] =
+        yp[face_index(j)] - face_mean(face_kind_, conductivity_[j - 1], conductivity_[j]).mean * gradient;
   }
   r[face_index(n)] = yp[face_index(n)] - bottom_flux(last).flux;
   for (std::size_t i = 0; i < uptake_cells_; ++i)
@@ -476,8 +478,9 @@ void ColumnModel::events(double t, std::span<const double> y, std::span<double> 
     double& limit = g[surface_limit_event];
     switch (surface_) {
       case SurfaceMode::flux:
-        if (net > 0) limit = head_limited_flux(0.0, top).flux - net + widened;              // capacity below supply
-        if (net < 0) limit = net - head_limited_flux(dry_limit_head_, top).flux + widened;  // demand above what soil gives
+        if (net > 0) limit = head_limited_flux(0.0, top).flux - net + widened;  // capacity below supply
+        if (net < 0)
+          limit = net - head_limited_flux(dry_limit_head_, top).flux + widened;  // demand above what soil gives
         break;
       case SurfaceMode::ponded: {
         const double pond = surface_accounts(t, y).ponded_depth;
@@ -532,8 +535,8 @@ void ColumnModel::choose_modes(double t, std::span<const double> y) {
   const double pond = surface_accounts(t, y).ponded_depth;
   if (pond > 0 && max_ponded_depth_ > 0) {
     const bool at_max = pond >= max_ponded_depth_ * (1 - 1e-12);
-    surface_ = at_max && net - head_limited_flux(max_ponded_depth_, top).flux > 0 ? SurfaceMode::full
-                                                                                  : SurfaceMode::ponded;
+    surface_ =
+        at_max && net - head_limited_flux(max_ponded_depth_, top).flux > 0 ? SurfaceMode::full : SurfaceMode::ponded;
     return;
   }
   if (net > 0 && head_limited_flux(0.0, top).flux < net)

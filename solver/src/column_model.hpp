@@ -35,11 +35,11 @@
 namespace wetfront::solver::detail {
 
 enum class SurfaceMode {
-  flux,     // prescribed or atmospheric flux taken in full
-  ponded,   // water stored on the surface below the maximum depth; surface head = P
-  full,     // surface storage full (or zero capacity), surface head = max depth, runoff
-  dry,      // surface held at the dry limit head
-  head,     // prescribed surface head
+  flux,    // prescribed or atmospheric flux taken in full
+  ponded,  // water stored on the surface below the maximum depth; surface head = P
+  full,    // surface storage full (or zero capacity), surface head = max depth, runoff
+  dry,     // surface held at the dry limit head
+  head,    // prescribed surface head
 };
 enum class BottomMode { normal, seepage_closed, seepage_open };
 
@@ -130,12 +130,12 @@ class ColumnModel {
 
  private:
   struct SurfaceFlux {
-    double flux;        // q_0, cm/d positive down
+    double flux;           // q_0, cm/d positive down
     double slope_storage;  // dq_0 / dS_0
-    double slope_pond;  // dq_0 / dP (only while ponded)
+    double slope_pond;     // dq_0 / dP (only while ponded)
   };
   struct BottomFlux {
-    double flux;        // q_N, cm/d positive down
+    double flux;           // q_N, cm/d positive down
     double slope_storage;  // dq_N / dS_(N-1)
   };
   void evaluate_cells(std::span<const double> y);
@@ -154,11 +154,11 @@ class ColumnModel {
   double infiltration(std::span<const double> y) const { return y[face_index(0)]; }
 
   Grid grid_;
-  std::vector<StorageTable> tables_;                 // one per soil layer
+  std::vector<StorageTable> tables_;  // one per soil layer
   std::vector<const StorageTable*> cell_table_;
   std::vector<const soils::HydraulicModel*> cell_model_;
   std::vector<double> inverse_thickness_;
-  std::vector<double> centre_distance_;             // between cell j-1 and j, for faces 1..N-1
+  std::vector<double> centre_distance_;  // between cell j-1 and j, for faces 1..N-1
   std::size_t uptake_cells_ = 0;
   TopBoundary top_;
   BottomBoundary bottom_boundary_;
@@ -181,13 +181,14 @@ class ColumnModel {
 
   double restart_time_ = 0;
   double restart_pond_ = 0;
-  std::vector<double> base_storage_;      // S_i at the last restart
+  std::vector<double> base_storage_;  // S_i at the last restart
   Totals totals_;
 
   // Workspace, refreshed by evaluate_cells(): per cell head, dh/dS, K, dK/dS, sink and its slope.
   // Per cell, the storage-table interval of its last lookup (where the next one starts).
   mutable std::vector<unsigned> interval_hint_;
-  std::vector<double> potential_, potential_per_storage_, head_, head_per_storage_, conductivity_, conductivity_per_storage_, sink_rate_, sink_slope_;
+  std::vector<double> potential_, potential_per_storage_, head_, head_per_storage_, conductivity_,
+      conductivity_per_storage_, sink_rate_, sink_slope_;
   std::vector<double> evaluated_state_;
   struct KeptPotential {
     const StorageTable* table = nullptr;

@@ -13,16 +13,16 @@ namespace wetfront::solver::detail {
 // variable (a cell's stored water, or a pond's depth).
 struct FaceSide {
   double head_cm;
-  double conductivity;        // cm/d
-  double head_slope;          // dh / d(variable)
-  double conductivity_slope;  // dK / d(variable)
+  double conductivity;         // cm/d
+  double head_slope;           // dh / d(variable)
+  double conductivity_slope;   // dK / d(variable)
   double potential_slope = 0;  // dPhi / d(variable), for the integral mean
 };
 
 struct FaceFlux {
-  double flux;          // cm/d, positive downward
-  double slope_upper;   // dq / d(upper variable)
-  double slope_lower;   // dq / d(lower variable)
+  double flux;         // cm/d, positive downward
+  double slope_upper;  // dq / d(upper variable)
+  double slope_lower;  // dq / d(lower variable)
 };
 
 struct MeanAndSlopes {
@@ -43,8 +43,7 @@ inline MeanAndSlopes face_mean(FaceConductivity kind, double a, double b) {
       return {2.0 * a * b / s, 2.0 * b * b / (s * s), 2.0 * a * a / (s * s)};
     }
     case FaceConductivity::arithmetic:
-    default:
-      return {0.5 * (a + b), 0.5, 0.5};
+    default: return {0.5 * (a + b), 0.5, 0.5};
   }
 }
 

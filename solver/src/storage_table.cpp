@@ -51,8 +51,7 @@ StorageTable::StorageTable(const soils::HydraulicModel& model, double specific_s
     const double h = saturation_head_ - d;
     if (h < settings.driest_head_cm) break;
     heads.push_back(h);
-    const double capacity =
-        soils::moisture_capacity(model_, h) + specific_storage_ * std::exp(-d / storage_fade_cm);
+    const double capacity = soils::moisture_capacity(model_, h) + specific_storage_ * std::exp(-d / storage_fade_cm);
     if (capacity < settings.min_capacity_per_cm && capacity < previous_capacity) break;
     previous_capacity = capacity;
   }
@@ -107,7 +106,8 @@ StorageTable::StorageTable(const soils::HydraulicModel& model, double specific_s
     auto cubic = [](const double* c, double t) { return c[0] + t * (c[1] + t * (c[2] + t * c[3])); };
     auto rate = [](const double* c, double t) { return c[1] + t * (2 * c[2] + t * 3 * c[3]); };
     constexpr double half_spread = 0.5 * 0.7745966692414834;  // sqrt(3/5) / 2
-    constexpr double nodes[3] = {0.5 - half_spread, 0.5, 0.5 + half_spread}, weights[3] = {5.0 / 18, 8.0 / 18, 5.0 / 18};
+    constexpr double nodes[3] = {0.5 - half_spread, 0.5, 0.5 + half_spread},
+                     weights[3] = {5.0 / 18, 8.0 / 18, 5.0 / 18};
     double rise = 0;
     for (int q = 0; q < 3; ++q) rise += weights[q] * cubic(iv.conductivity, nodes[q]) * rate(iv.head, nodes[q]);
     potential[k + 1] = potential[k] + rise;
@@ -139,8 +139,12 @@ StoragePoint StorageTable::dry_tail(double s) const {
   const double h = head_.front() + (s - storage_.front()) * slope;
   if (!std::isfinite(h)) return {h, slope, 0.0, 0.0, 0.0, 0.0};
   const auto state = soils::evaluate(model_, h);
-  return {h, slope, state.conductivity, state.conductivity_slope * slope,
-          conductivity_.front() * (h - head_.front()), conductivity_.front() * slope};
+  return {h,
+          slope,
+          state.conductivity,
+          state.conductivity_slope * slope,
+          conductivity_.front() * (h - head_.front()),
+          conductivity_.front() * slope};
 }
 
 double StorageTable::storage_at(double h) const {

@@ -30,19 +30,19 @@
 namespace wetfront::solver::detail {
 
 struct StoragePoint {
-  double head_cm;                  // h(s)
-  double head_per_storage;         // dh/ds, cm per (cm3/cm3)
-  double conductivity;             // K(h(s)), cm/d
-  double conductivity_per_storage; // dK/ds, cm/d per (cm3/cm3)
-  double potential = 0;            // Kirchhoff potential Phi(h(s)) = integral of K dh from the driest node, cm2/d
+  double head_cm;                    // h(s)
+  double head_per_storage;           // dh/ds, cm per (cm3/cm3)
+  double conductivity;               // K(h(s)), cm/d
+  double conductivity_per_storage;   // dK/ds, cm/d per (cm3/cm3)
+  double potential = 0;              // Kirchhoff potential Phi(h(s)) = integral of K dh from the driest node, cm2/d
   double potential_per_storage = 0;  // dPhi/ds of the same interpolant (so the Jacobian matches the residual)
 };
 
 struct StorageTableSettings {
-  double closest_node_cm = 1e-3;   // d_min
-  double node_ratio = 1.02;        // r
+  double closest_node_cm = 1e-3;  // d_min
+  double node_ratio = 1.02;       // r
   double min_capacity_per_cm = 1e-10;
-  double driest_head_cm = -1e9;    // the table never extends below this head
+  double driest_head_cm = -1e9;  // the table never extends below this head
 };
 
 class StorageTable {
@@ -77,12 +77,15 @@ class StorageTable {
  private:
   // k with storage_[k] <= s < storage_[k+1], for dry_storage <= s < full_storage.
   std::size_t interval(double storage) const {
-    const auto b = std::min(static_cast<std::size_t>((storage - dry_storage_) * bucket_scale_), bucket_first_.size() - 1);
+    const auto b =
+        std::min(static_cast<std::size_t>((storage - dry_storage_) * bucket_scale_), bucket_first_.size() - 1);
     std::size_t lo = bucket_first_[b], hi = bucket_last_[b];
     while (lo < hi) {  // the largest k in [lo, hi] with storage_[k] <= s
       const std::size_t mid = (lo + hi + 1) / 2;
-      if (storage_[mid] <= storage) lo = mid;
-      else hi = mid - 1;
+      if (storage_[mid] <= storage)
+        lo = mid;
+      else
+        hi = mid - 1;
     }
     return lo;
   }
@@ -90,7 +93,11 @@ class StorageTable {
   StoragePoint saturated(double storage) const {
     const double slope = 1.0 / specific_storage_;
     const double above = (storage - full_storage_) * slope;
-    return {saturation_head_ + above, slope, saturated_conductivity_, 0.0, full_potential_ + saturated_conductivity_ * above,
+    return {saturation_head_ + above,
+            slope,
+            saturated_conductivity_,
+            0.0,
+            full_potential_ + saturated_conductivity_ * above,
             saturated_conductivity_ * slope};
   }
 

@@ -36,7 +36,8 @@ GridCheck check_demo(const ScratchSite& site) {
 }
 
 const SensorGridChange& sensor(const GridCheck& check, const std::string& name) {
-  const auto it = std::find_if(check.sensors.begin(), check.sensors.end(), [&](const auto& s) { return s.name == name; });
+  const auto it =
+      std::find_if(check.sensors.begin(), check.sensors.end(), [&](const auto& s) { return s.name == name; });
   if (it == check.sensors.end()) throw std::runtime_error("no sensor " + name + " in the grid check");
   return *it;
 }

@@ -20,8 +20,8 @@ void expect_complete_and_balanced(const solver::ColumnRun& run) {
   ASSERT_TRUE(run.complete) << (run.failure ? run.failure->reason : "");
   ASSERT_FALSE(run.balances.empty());
   const auto& last = run.balances.back();
-  const double turnover = last.water_input_cm + last.actual_evaporation_cm + std::abs(last.infiltration_cm) +
-                          std::abs(last.bottom_flux_cm);
+  const double turnover =
+      last.water_input_cm + last.actual_evaporation_cm + std::abs(last.infiltration_cm) + std::abs(last.bottom_flux_cm);
   SCOPED_TRACE(
       fmt::format("{} steps, {} nonlinear failures, {} error-test failures, {} surface switches, "
                   "balance error {:.2e} cm",

@@ -27,7 +27,8 @@ void expect_jacobian_matches_differences(solver::ColumnProblem problem, double e
   model.begin_period(0.0);
   model.choose_modes(0.0, y);
   // Move some water through the faces so that the state is not the stored initial one.
-  for (std::size_t j = 0; j <= model.cells(); ++j) y[model.face_index(j)] = 1e-3 * std::sin(0.7 * static_cast<double>(j));
+  for (std::size_t j = 0; j <= model.cells(); ++j)
+    y[model.face_index(j)] = 1e-3 * std::sin(0.7 * static_cast<double>(j));
   const double t = elapsed_days;
 
   SUNContext context = nullptr;
@@ -45,7 +46,8 @@ void expect_jacobian_matches_differences(solver::ColumnProblem problem, double e
     for (std::size_t row = 0; row < n; ++row) {
       const double difference = (r1[row] - r0[row]) / (2 * step);
       const bool in_band = std::abs(static_cast<long>(row) - static_cast<long>(k)) <= band;
-      const double analytic = in_band ? SM_ELEMENT_B(jacobian, static_cast<sunindextype>(row), static_cast<sunindextype>(k)) : 0.0;
+      const double analytic =
+          in_band ? SM_ELEMENT_B(jacobian, static_cast<sunindextype>(row), static_cast<sunindextype>(k)) : 0.0;
       EXPECT_NEAR(analytic, difference, 1e-5 * std::abs(difference) + 1e-6 * (1 + std::abs(analytic)))
           << "row " << row << " column " << k;
     }
@@ -69,7 +71,8 @@ TEST(Jacobian, PrescribedHeadOverAFront) {
 
 TEST(Jacobian, PondedSurfaceWithRootsAndWaterTable) {
   auto problem = front_in_loam();
-  problem.top = solver::LimitedFlux{solver::StepSeries::constant(100.0), solver::StepSeries::constant(0.2), -15000.0, 1.0};
+  problem.top =
+      solver::LimitedFlux{solver::StepSeries::constant(100.0), solver::StepSeries::constant(0.2), -15000.0, 1.0};
   problem.bottom = solver::FixedHead{-30.0};
   solver::RootUptakeSettings roots;
   roots.root_depth_cm = solver::StepSeries::constant(12.0);
@@ -83,7 +86,8 @@ TEST(Jacobian, EveryFaceConductivityMean) {
     SCOPED_TRACE(face_name(face));
     auto problem = front_in_loam();
     problem.face_conductivity = face;
-    problem.top = solver::LimitedFlux{solver::StepSeries::constant(100.0), solver::StepSeries::constant(0.2), -15000.0, 1.0};
+    problem.top =
+        solver::LimitedFlux{solver::StepSeries::constant(100.0), solver::StepSeries::constant(0.2), -15000.0, 1.0};
     problem.bottom = solver::FixedHead{-30.0};
     expect_jacobian_matches_differences(problem, 0.01);
   }
@@ -92,7 +96,8 @@ TEST(Jacobian, EveryFaceConductivityMean) {
 TEST(Jacobian, DryLimitSurfaceOnSand) {
   auto problem = make_column(single_layer(20.0, sand()), solver::uniform_grid(20.0, 40));
   problem.initial = solver::HeadTable{{0.0, 2.0, 20.0}, {-3000.0, -60.0, -20.0}};
-  problem.top = solver::LimitedFlux{solver::StepSeries::constant(0.0), solver::StepSeries::constant(2.0), -15000.0, 0.0};
+  problem.top =
+      solver::LimitedFlux{solver::StepSeries::constant(0.0), solver::StepSeries::constant(2.0), -15000.0, 0.0};
   expect_jacobian_matches_differences(problem, 0.0);
 }
 

@@ -56,10 +56,10 @@ inline constexpr std::array<solver::FaceConductivity, 4> kFaceConductivities = {
     solver::FaceConductivity::arithmetic, solver::FaceConductivity::geometric, solver::FaceConductivity::harmonic,
     solver::FaceConductivity::integral};
 inline const char* face_name(solver::FaceConductivity face) {
-  return face == solver::FaceConductivity::arithmetic ? "arithmetic"
+  return face == solver::FaceConductivity::arithmetic  ? "arithmetic"
          : face == solver::FaceConductivity::geometric ? "geometric"
          : face == solver::FaceConductivity::harmonic  ? "harmonic"
-                                                        : "integral";
+                                                       : "integral";
 }
 
 // One soil down to request.depth_cm on the graded grid `request` asks for: {depth, faces to

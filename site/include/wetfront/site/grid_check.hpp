@@ -33,10 +33,10 @@ struct SensorGridChange {
 struct GridCheck {
   std::size_t cells = 0, finer_cells = 0;
   bool finer_complete = true;
-  std::string finer_failure;        // why the finer run stopped, when it did
-  double recharge_cm = 0;           // at the recharge plane over the run, positive down
+  std::string finer_failure;  // why the finer run stopped, when it did
+  double recharge_cm = 0;     // at the recharge plane over the run, positive down
   double finer_recharge_cm = 0;
-  double recharge_change = 0;       // relative: (finer - this) / |finer|
+  double recharge_change = 0;  // relative: (finer - this) / |finer|
   bool recharge_too_coarse = false;
   std::vector<SensorGridChange> sensors;
   bool too_coarse() const;

@@ -21,7 +21,7 @@ struct PrescribedFlux {
   StepSeries flux_cm_per_d;  // positive downward
 };
 struct PrescribedHead {
-  StepSeries head_cm;        // pressure head at the soil surface
+  StepSeries head_cm;  // pressure head at the soil surface
 };
 // Atmospheric surface: the flux is water_input - potential_evaporation while the soil can
 // take or supply it. When the surface saturates, water is held on the surface up to
@@ -36,12 +36,12 @@ struct LimitedFlux {
 using TopBoundary = std::variant<PrescribedFlux, PrescribedHead, LimitedFlux>;
 
 // Bottom boundary, one of:
-struct FreeDrainage {};        // unit gradient: q = K(h) downward
-struct FixedHead {             // water table or a fixed head at the column bottom
+struct FreeDrainage {};  // unit gradient: q = K(h) downward
+struct FixedHead {       // water table or a fixed head at the column bottom
   double head_cm = 0.0;
 };
 struct ZeroFlux {};
-struct SeepageFace {};         // outflow at h = 0 when the bottom saturates, no flow otherwise
+struct SeepageFace {};  // outflow at h = 0 when the bottom saturates, no flow otherwise
 using BottomBoundary = std::variant<FreeDrainage, FixedHead, ZeroFlux, SeepageFace>;
 
 // Initial condition, one of:
@@ -51,7 +51,7 @@ struct Hydrostatic {
 struct UniformHead {
   double head_cm = 0.0;
 };
-struct HeadTable {                    // linear interpolation, constant beyond the ends
+struct HeadTable {  // linear interpolation, constant beyond the ends
   std::vector<double> depth_cm;
   std::vector<double> head_cm;
 };
@@ -81,9 +81,9 @@ class CellSink {
 //   of magnitude more than the soil can conduct, so coarse cells over-dry a topsoil under
 //   evaporation and wet it too fast under rain. On the demo site's grid (1 cm cells at the
 //   surface, 128 cells) the heads at 30 cm change by 3.4 cm RMS when every cell is cut in two
-//   with this mean, by 68 cm with the arithmetic mean (bench/README.md). Between two soils (a layer interface) and where the
-//   heads agree within 1e-4 cm it falls back to the arithmetic mean; the surface and bottom
-//   half-cells use it with the boundary head.
+//   with this mean, by 68 cm with the arithmetic mean (bench/README.md). Between two soils (a layer interface) and
+//   where the heads agree within 1e-4 cm it falls back to the arithmetic mean; the surface and bottom half-cells use it
+//   with the boundary head.
 // - arithmetic, geometric, harmonic: the usual means of the two cell values (the boundary
 //   half-cells then use the arithmetic mean). tests/solver/face_conductivity_interface_test.cpp
 //   compares them: the harmonic mean converges at second order across a layer interface but
@@ -97,7 +97,7 @@ struct SolverSettings {
   // time-stepping error is about 0.018 cm RMS, a third of the 0.05 cm allowed, at half the steps
   // of 1e-4 / 1e-6 cm.
   double relative_tolerance = 2e-3;
-  double absolute_tolerance_storage_cm = 1e-5;   // per cell stored water
+  double absolute_tolerance_storage_cm = 1e-5;  // per cell stored water
   // Largest error of a conducting cell's head per step that the storage tolerance may imply
   // (ColumnModel::error_weights); binds near saturation, where Ss sets dh/dS.
   double head_tolerance_cm = 1.0;
@@ -109,7 +109,7 @@ struct SolverSettings {
   // (IDA's default is 0.33). The balance is exact whatever this is (column_model.hpp); it sets
   // how closely each step's fluxes match the heads.
   double nonlinear_convergence_factor = 0.2;
-  int max_nonlinear_iterations = 4;             // Newton iterations per step (IDA's default 4)
+  int max_nonlinear_iterations = 4;  // Newton iterations per step (IDA's default 4)
   double max_step_days = 1.0;
   // Work limit: a run that needs more steps than this per simulated day (over the whole run,
   // at least ten days) stops and says so. Output times do not count: they cost no steps. The
@@ -124,8 +124,8 @@ struct ColumnProblem {
   TopBoundary top = PrescribedFlux{StepSeries::constant(0.0)};
   BottomBoundary bottom = FreeDrainage{};
   InitialCondition initial = UniformHead{-100.0};
-  std::shared_ptr<const CellSink> sink{};     // optional
-  std::vector<double> flux_plane_depths_cm{}; // each on a grid face; cumulative flux recorded
+  std::shared_ptr<const CellSink> sink{};      // optional
+  std::vector<double> flux_plane_depths_cm{};  // each on a grid face; cumulative flux recorded
   // Ss (1/cm): compressibility storage above saturation, fading below it (storage_table.hpp).
   // Any value from 1e-6 to 1e-3 runs; 1e-5 and 1e-4 cost the same on ponded loam and 1e-6
   // 1.5 times more (bench/README.md). 1e-5 is within the usual range for soils (common practice).
@@ -133,7 +133,7 @@ struct ColumnProblem {
   FaceConductivity face_conductivity = FaceConductivity::integral;
   double start_day = 0.0;
   double end_day = 1.0;
-  std::vector<double> output_days{};          // increasing, within [start_day, end_day]
+  std::vector<double> output_days{};  // increasing, within [start_day, end_day]
   SolverSettings settings{};
 };
 
