@@ -298,8 +298,9 @@ double ColumnModel::surface_head(double t, std::span<const double> y) const {
 }
 
 // Flux from a surface held at a head into the top cell: Darcy over half the top cell. Boundary
-// half-cells always take the arithmetic mean: a harmonic or geometric mean with a dry top cell
-// would shut the surface to rain (the surface value is a boundary condition, not a cell).
+// half-cells take the integral mean under the integral default and the arithmetic mean
+// otherwise: a harmonic or geometric mean with a dry top cell would shut the surface to rain
+// (the surface value is a boundary condition, not a cell).
 ColumnModel::SurfaceFlux ColumnModel::head_limited_flux(double hs, const StoragePoint& top) const {
   const FaceSide cell{top.head_cm, top.conductivity, top.head_per_storage, top.conductivity_per_storage,
                       top.potential_per_storage};

@@ -184,18 +184,20 @@ class ColumnModel {
   std::vector<double> base_storage_;  // S_i at the last restart
   Totals totals_;
 
-  // Workspace, refreshed by evaluate_cells(): per cell head, dh/dS, K, dK/dS, sink and its slope.
-  // Per cell, the storage-table interval of its last lookup (where the next one starts).
-  mutable std::vector<unsigned> interval_hint_;
+  // Workspace, refreshed by evaluate_cells(): per cell Phi, dPhi/dS (integral mean only), head,
+  // dh/dS, K, dK/dS, sink and its slope.
   std::vector<double> potential_, potential_per_storage_, head_, head_per_storage_, conductivity_,
       conductivity_per_storage_, sink_rate_, sink_slope_;
-  std::vector<double> evaluated_state_;
+  std::vector<double> evaluated_state_;  // the state of the last residual, while the workspace holds it
+  // Per cell, the storage-table interval of its last lookup (where the next one starts).
+  mutable std::vector<unsigned> interval_hint_;
+  // Phi at the last two boundary heads asked for (boundary_potential).
   struct KeptPotential {
     const StorageTable* table = nullptr;
     double head_cm = 0, potential = 0;
   };
   mutable std::array<KeptPotential, 2> boundary_potentials_{};
-  mutable std::size_t next_kept_potential_ = 0;  // the state of the last residual, while the workspace holds it
+  mutable std::size_t next_kept_potential_ = 0;
 };
 
 }  // namespace wetfront::solver::detail
