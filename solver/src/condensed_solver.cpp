@@ -19,10 +19,15 @@ struct Condensed {
   // U_i in the rows of F_i and F_(i+1).
   std::vector<double> inverse_diagonal, a, b, p, q;
   // The face system after elimination, factored as LAPACK's dgttrf does: sub-diagonal (then the
-  // multipliers), diagonal (then the reciprocals of the pivots), super-diagonal, second
-  // super-diagonal (fill from row interchanges).
+  // multipliers), diagonal (then the reciprocals of the pivots), super-diagonal and second
+  // super-diagonal (fill from row interchanges), both then divided by their row's pivot.
   std::vector<double> lower, diagonal, upper, upper2;
-  std::vector<char> swapped;        // row i interchanged with row i + 1
+  std::vector<char> swapped;  // row i interchanged with row i + 1
+  // A diagonally dominant face system is factored from both ends at once (twisted): per row the
+  // multiplier of its downward (rows 1..k) or upward (rows k..n-2) elimination, the reciprocal of
+  // its pivot, and its back-substitution coefficient divided by the pivot.
+  bool twisted = false;
+  std::vector<double> down, up, inverse_pivot, back;
   std::vector<double> face_values;  // scratch of solve
   sunindextype last_flag = 0;
 };
@@ -61,11 +66,73 @@ sunindextype factor_tridiagonal(Condensed& c) {
     }
   }
   if (d[n - 1] == 0.0) return static_cast<sunindextype>(n);
-  for (double& pivot : d) pivot = 1.0 / pivot;  // solve multiplies: no division on its serial path
+  // The back substitution's serial path is then one multiply and one subtraction per row.
+  for (std::size_t i = 0; i < n; ++i) {
+    d[i] = 1.0 / d[i];
+    du[i] *= d[i];
+    c.upper2[i] *= d[i];
+  }
   return 0;
 }
 
+// Twisted LU of a tridiagonal matrix diagonally dominant by rows: Gaussian elimination downward
+// from row 0 and upward from row n-1 meeting at row k = n/2 (Meurant 1992, SIAM J. Matrix Anal.
+// Appl. 13(3), "twisted" factorisation; without pivoting, stable for diagonal dominance: Higham
+// 2002, Accuracy and Stability of Numerical Algorithms, 2nd ed., sec. 9.6, from memory). The two
+// eliminations are independent, so each of their serial chains is half as long as one LU's.
+// Returns false if the meeting pivot is zero or not finite (the caller then pivots).
+bool factor_twisted(Condensed& c) {
+  const std::size_t n = c.diagonal.size(), k = n / 2;
+  const auto& l = c.lower;  // l[i]: row i + 1, column i
+  const auto& d = c.diagonal;
+  const auto& u = c.upper;  // u[i]: row i, column i + 1
+  c.down.resize(n), c.up.resize(n), c.inverse_pivot.resize(n), c.back.resize(n);
+  double p = d[0], q = d[n - 1];  // running pivots of the downward and upward eliminations
+  for (std::size_t step = 0; step < k; ++step) {
+    const std::size_t i = step, j = n - 1 - step;
+    c.inverse_pivot[i] = 1.0 / p;
+    c.down[i + 1] = l[i] * c.inverse_pivot[i];
+    c.back[i] = u[i] * c.inverse_pivot[i];
+    p = d[i + 1] - c.down[i + 1] * u[i];
+    if (j > k) {
+      c.inverse_pivot[j] = 1.0 / q;
+      c.up[j - 1] = u[j - 1] * c.inverse_pivot[j];
+      c.back[j] = l[j - 1] * c.inverse_pivot[j];
+      q = d[j - 1] - c.up[j - 1] * l[j - 1];
+    }
+  }
+  const double meeting = k + 1 < n ? p + q - d[k] : p;  // both eliminations hold d[k] once
+  if (meeting == 0.0 || !std::isfinite(meeting)) return false;
+  c.inverse_pivot[k] = 1.0 / meeting;
+  return std::all_of(c.inverse_pivot.begin(), c.inverse_pivot.end(), [](double v) { return std::isfinite(v); });
+}
+
+void solve_twisted(const Condensed& c, double* x) {
+  const std::size_t n = c.diagonal.size(), k = n / 2;
+  for (std::size_t step = 0; step < k; ++step) {  // eliminate toward row k from both ends
+    const std::size_t i = step, j = n - 1 - step;
+    x[i + 1] -= c.down[i + 1] * x[i];
+    if (j > k) x[j - 1] -= c.up[j - 1] * x[j];
+  }
+  x[k] *= c.inverse_pivot[k];
+  for (std::size_t step = 1; step <= k; ++step) {  // substitute outward from row k
+    const std::size_t i = k - step, j = k + step;
+    x[i] = x[i] * c.inverse_pivot[i] - c.back[i] * x[i + 1];
+    if (j < n) x[j] = x[j] * c.inverse_pivot[j] - c.back[j] * x[j - 1];
+  }
+}
+
+bool rows_diagonally_dominant(const Condensed& c) {
+  const std::size_t n = c.diagonal.size();
+  for (std::size_t i = 0; i < n; ++i) {
+    const double off = (i > 0 ? std::abs(c.lower[i - 1]) : 0.0) + (i + 1 < n ? std::abs(c.upper[i]) : 0.0);
+    if (!(std::abs(c.diagonal[i]) >= off) || c.diagonal[i] == 0.0) return false;
+  }
+  return true;
+}
+
 void solve_tridiagonal(const Condensed& c, double* x) {
+  if (c.twisted) return solve_twisted(c, x);
   const std::size_t n = c.diagonal.size();
   for (std::size_t i = 0; i + 1 < n; ++i) {
     if (c.swapped[i]) {
@@ -76,11 +143,14 @@ void solve_tridiagonal(const Condensed& c, double* x) {
       x[i + 1] -= c.lower[i] * x[i];
     }
   }
-  for (std::size_t i = n; i-- > 0;) {
-    double v = x[i];
-    if (i + 1 < n) v -= c.upper[i] * x[i + 1];
-    if (i + 2 < n) v -= c.upper2[i] * x[i + 2];
-    x[i] = v * c.diagonal[i];  // the diagonal holds the pivots' reciprocals
+  // Rows scaled by their pivots' reciprocals; x[i + 2] is known a row early, so only x[i + 1]
+  // waits on the previous row.
+  x[n - 1] *= c.diagonal[n - 1];
+  if (n < 2) return;
+  x[n - 2] = x[n - 2] * c.diagonal[n - 2] - c.upper[n - 2] * x[n - 1];
+  for (std::size_t i = n - 2; i-- > 0;) {
+    const double known = x[i] * c.diagonal[i] - c.upper2[i] * x[i + 2];
+    x[i] = known - c.upper[i] * x[i + 1];
   }
 }
 
@@ -141,7 +211,8 @@ int setup(SUNLinearSolver s, SUNMatrix matrix) {
     c.last_flag = SUNLinSolLastFlag(c.fallback);
     return flag;
   }
-  c.last_flag = factor_tridiagonal(c);
+  c.twisted = c.diagonal.size() >= 2 && rows_diagonally_dominant(c) && factor_twisted(c);
+  c.last_flag = c.twisted ? 0 : factor_tridiagonal(c);
   return c.last_flag > 0 ? SUNLS_LUFACT_FAIL : SUNLS_SUCCESS;
 }
 

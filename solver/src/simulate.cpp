@@ -105,10 +105,8 @@ class Integrator {
         SUNBandMatrixStorage(static_cast<sunindextype>(n), bandwidth, bandwidth, 2 * bandwidth, ctx_.get()),
         "SUNBandMatrixStorage"));
     detail::use_compiled_zero(matrix_.get());
-    solver_.reset(detail::check_ptr(
-        model.uptake_cells() > 0 ? detail::make_condensed_column_solver(y_.get(), ctx_.get(), model.uptake_cells())
-                                 : detail::make_band_lu_solver(y_.get(), ctx_.get()),
-        "linear solver"));
+    solver_.reset(detail::check_ptr(detail::make_condensed_column_solver(y_.get(), ctx_.get(), model.uptake_cells()),
+                                    "linear solver"));
     detail::check_flag(IDASetLinearSolver(mem, solver_.get(), matrix_.get()), "IDASetLinearSolver");
     newton_.reset(detail::check_ptr(detail::make_refreshing_newton(y_.get(), ctx_.get()), "Newton solver"));
     detail::check_flag(IDASetNonlinearSolver(mem, newton_.get()), "IDASetNonlinearSolver");

@@ -105,52 +105,58 @@ TEST_F(CompiledKernels, BandLuSolvesLikeTheLibrary) {
   }
 }
 
-// The column's layout with a sink (column_model.hpp): F_0 U_0 ... F_(M-1) U_(M-1) F_M ... F_N.
-// Every entry the model can fill is random; `uptake_diagonal` is added to each uptake row's
-// diagonal (large: the uptake unknowns are eliminated; one row near zero: the band LU fallback).
+// The column's layout with a sink (column_model.hpp): F_0 U_0 ... F_(M-1) U_(M-1) F_M ... F_N,
+// and without one (M = 0). Every entry the model can fill is random. Uptake rows have a large
+// diagonal (eliminated first), or one of them a tiny one (the band LU fallback). Face rows have a
+// diagonal of 3 +- 1 (the face system then needs row interchanges) or 12 +- 1 (diagonally
+// dominant: factored from both ends without them).
 TEST_F(CompiledKernels, CondensedSolverSolvesLikeTheLibrary) {
-  const std::size_t uptake = 60, faces = static_cast<std::size_t>(length) - uptake;
-  auto face = [uptake](std::size_t j) { return static_cast<sunindextype>(j + std::min(j, uptake)); };
-  auto cell_unknowns = [&](std::size_t cell) {
-    std::vector<sunindextype> unknowns{face(cell), face(cell + 1)};
-    if (cell < uptake) unknowns.push_back(static_cast<sunindextype>(2 * cell + 1));
-    return unknowns;
-  };
-  for (const bool weak_row : {false, true}) {
-    SCOPED_TRACE(weak_row ? "one uptake row without a dominant diagonal" : "every uptake row dominant");
-    SUNMatrix a_library = SUNBandMatrixStorage(length, 2, 2, 4, context_);
-    SUNMatrix a_ours = SUNBandMatrixStorage(length, 2, 2, 4, context_);
-    std::uniform_real_distribution<double> value(-1, 1);
-    auto set = [&](sunindextype row, sunindextype col, double v) {
-      SM_ELEMENT_B(a_library, row, col) = SM_ELEMENT_B(a_ours, row, col) = v;
-    };
-    for (std::size_t j = 0; j < faces; ++j) {  // a face row: the cells above and below it
-      for (std::size_t cell : {j - 1, j})
-        if (cell < faces - 1)
-          for (sunindextype k : cell_unknowns(cell)) set(face(j), k, value(random_));
-      set(face(j), face(j), 3.0 + value(random_));
-    }
-    for (std::size_t i = 0; i < uptake; ++i) {  // an uptake row: its own cell
-      const auto row = static_cast<sunindextype>(2 * i + 1);
-      for (sunindextype k : cell_unknowns(i)) set(row, k, value(random_));
-      set(row, row, (weak_row && i == uptake / 2) ? 1e-3 : 5.0 + value(random_));
-    }
-    auto [b0, b1] = random_pair(-1, 1);
-    auto [x0, x1] = random_pair(0, 0);
-    SUNLinearSolver library = SUNLinSol_Band(b0, a_library, context_);
-    SUNLinearSolver ours = solver::detail::make_condensed_column_solver(b1, context_, uptake);
-    ASSERT_EQ(SUNLinSolInitialize(library), 0);
-    ASSERT_EQ(SUNLinSolInitialize(ours), 0);
-    ASSERT_EQ(SUNLinSolSetup(library, a_library), 0);
-    ASSERT_EQ(SUNLinSolSetup(ours, a_ours), 0);
-    for (int repeat = 0; repeat < 2; ++repeat) {  // the factors serve more than one solve
-      ASSERT_EQ(SUNLinSolSolve(library, a_library, x0, b0, 0.0), 0);
-      ASSERT_EQ(SUNLinSolSolve(ours, a_ours, x1, b1, 0.0), 0);
-      for (sunindextype i = 0; i < length; ++i)
-        EXPECT_NEAR(NV_Ith_S(x0, i), NV_Ith_S(x1, i), 1e-9 * (1 + std::abs(NV_Ith_S(x0, i)))) << "unknown " << i;
-    }
-    SUNLinSolFree(library), SUNLinSolFree(ours), SUNMatDestroy(a_library), SUNMatDestroy(a_ours);
-  }
+  for (const std::size_t uptake : {std::size_t{60}, std::size_t{0}})
+    for (const double face_diagonal : {3.0, 12.0})
+      for (const bool weak_row : {false, true}) {
+        if (uptake == 0 && weak_row) continue;
+        SCOPED_TRACE(testing::Message() << uptake << " uptake rows, face diagonal " << face_diagonal
+                                        << (weak_row ? ", one uptake row without a dominant diagonal" : ""));
+        const std::size_t faces = static_cast<std::size_t>(length) - uptake;
+        auto face = [uptake](std::size_t j) { return static_cast<sunindextype>(j + std::min(j, uptake)); };
+        auto cell_unknowns = [&](std::size_t cell) {
+          std::vector<sunindextype> unknowns{face(cell), face(cell + 1)};
+          if (cell < uptake) unknowns.push_back(static_cast<sunindextype>(2 * cell + 1));
+          return unknowns;
+        };
+        SUNMatrix a_library = SUNBandMatrixStorage(length, 2, 2, 4, context_);
+        SUNMatrix a_ours = SUNBandMatrixStorage(length, 2, 2, 4, context_);
+        std::uniform_real_distribution<double> value(-1, 1);
+        auto set = [&](sunindextype row, sunindextype col, double v) {
+          SM_ELEMENT_B(a_library, row, col) = SM_ELEMENT_B(a_ours, row, col) = v;
+        };
+        for (std::size_t j = 0; j < faces; ++j) {  // a face row: the cells above and below it
+          for (std::size_t cell : {j - 1, j})
+            if (cell < faces - 1)
+              for (sunindextype k : cell_unknowns(cell)) set(face(j), k, value(random_));
+          set(face(j), face(j), face_diagonal + value(random_));
+        }
+        for (std::size_t i = 0; i < uptake; ++i) {  // an uptake row: its own cell
+          const auto row = static_cast<sunindextype>(2 * i + 1);
+          for (sunindextype k : cell_unknowns(i)) set(row, k, value(random_));
+          set(row, row, (weak_row && i == uptake / 2) ? 1e-3 : 5.0 + value(random_));
+        }
+        auto [b0, b1] = random_pair(-1, 1);
+        auto [x0, x1] = random_pair(0, 0);
+        SUNLinearSolver library = SUNLinSol_Band(b0, a_library, context_);
+        SUNLinearSolver ours = solver::detail::make_condensed_column_solver(b1, context_, uptake);
+        ASSERT_EQ(SUNLinSolInitialize(library), 0);
+        ASSERT_EQ(SUNLinSolInitialize(ours), 0);
+        ASSERT_EQ(SUNLinSolSetup(library, a_library), 0);
+        ASSERT_EQ(SUNLinSolSetup(ours, a_ours), 0);
+        for (int repeat = 0; repeat < 2; ++repeat) {  // the factors serve more than one solve
+          ASSERT_EQ(SUNLinSolSolve(library, a_library, x0, b0, 0.0), 0);
+          ASSERT_EQ(SUNLinSolSolve(ours, a_ours, x1, b1, 0.0), 0);
+          for (sunindextype i = 0; i < length; ++i)
+            EXPECT_NEAR(NV_Ith_S(x0, i), NV_Ith_S(x1, i), 1e-9 * (1 + std::abs(NV_Ith_S(x0, i)))) << "unknown " << i;
+        }
+        SUNLinSolFree(library), SUNLinSolFree(ours), SUNMatDestroy(a_library), SUNMatDestroy(a_ours);
+      }
 }
 
 }  // namespace
