@@ -82,43 +82,54 @@ sunindextype factor_tridiagonal(Condensed& c) {
 // eliminations are independent, so each of their serial chains is half as long as one LU's.
 // Returns false if the meeting pivot is zero or not finite (the caller then pivots).
 bool factor_twisted(Condensed& c) {
-  const std::size_t n = c.diagonal.size(), k = n / 2;
-  const auto& l = c.lower;  // l[i]: row i + 1, column i
-  const auto& d = c.diagonal;
-  const auto& u = c.upper;  // u[i]: row i, column i + 1
+  const std::size_t n = c.diagonal.size(), k = n / 2, upward = n - 1 - k;  // upward <= k
   c.down.resize(n), c.up.resize(n), c.inverse_pivot.resize(n), c.back.resize(n);
+  const double* l = c.lower.data();  // l[i]: row i + 1, column i
+  const double* d = c.diagonal.data();
+  const double* u = c.upper.data();  // u[i]: row i, column i + 1
+  double *down = c.down.data(), *up = c.up.data(), *inverse_pivot = c.inverse_pivot.data(), *back = c.back.data();
   double p = d[0], q = d[n - 1];  // running pivots of the downward and upward eliminations
-  for (std::size_t step = 0; step < k; ++step) {
-    const std::size_t i = step, j = n - 1 - step;
-    c.inverse_pivot[i] = 1.0 / p;
-    c.down[i + 1] = l[i] * c.inverse_pivot[i];
-    c.back[i] = u[i] * c.inverse_pivot[i];
-    p = d[i + 1] - c.down[i + 1] * u[i];
-    if (j > k) {
-      c.inverse_pivot[j] = 1.0 / q;
-      c.up[j - 1] = u[j - 1] * c.inverse_pivot[j];
-      c.back[j] = l[j - 1] * c.inverse_pivot[j];
-      q = d[j - 1] - c.up[j - 1] * l[j - 1];
-    }
+  auto downward = [&](std::size_t i) {
+    inverse_pivot[i] = 1.0 / p;
+    down[i + 1] = l[i] * inverse_pivot[i];
+    back[i] = u[i] * inverse_pivot[i];
+    p = d[i + 1] - down[i + 1] * u[i];
+  };
+  std::size_t step = 0;
+  for (; step < upward; ++step) {
+    downward(step);
+    const std::size_t j = n - 1 - step;
+    inverse_pivot[j] = 1.0 / q;
+    up[j - 1] = u[j - 1] * inverse_pivot[j];
+    back[j] = l[j - 1] * inverse_pivot[j];
+    q = d[j - 1] - up[j - 1] * l[j - 1];
   }
-  const double meeting = k + 1 < n ? p + q - d[k] : p;  // both eliminations hold d[k] once
+  for (; step < k; ++step) downward(step);
+  const double meeting = upward > 0 ? p + q - d[k] : p;  // both eliminations hold d[k] once
   if (meeting == 0.0 || !std::isfinite(meeting)) return false;
-  c.inverse_pivot[k] = 1.0 / meeting;
+  inverse_pivot[k] = 1.0 / meeting;
   return std::all_of(c.inverse_pivot.begin(), c.inverse_pivot.end(), [](double v) { return std::isfinite(v); });
 }
 
 void solve_twisted(const Condensed& c, double* x) {
-  const std::size_t n = c.diagonal.size(), k = n / 2;
-  for (std::size_t step = 0; step < k; ++step) {  // eliminate toward row k from both ends
-    const std::size_t i = step, j = n - 1 - step;
-    x[i + 1] -= c.down[i + 1] * x[i];
-    if (j > k) x[j - 1] -= c.up[j - 1] * x[j];
+  const std::size_t n = c.diagonal.size(), k = n / 2, upward = n - 1 - k;
+  const double *down = c.down.data(), *up = c.up.data(), *inverse_pivot = c.inverse_pivot.data(), *back = c.back.data();
+  std::size_t step = 0;
+  for (; step < upward; ++step) {  // eliminate toward row k from both ends
+    x[step + 1] -= down[step + 1] * x[step];
+    const std::size_t j = n - 1 - step;
+    x[j - 1] -= up[j - 1] * x[j];
   }
-  x[k] *= c.inverse_pivot[k];
-  for (std::size_t step = 1; step <= k; ++step) {  // substitute outward from row k
+  for (; step < k; ++step) x[step + 1] -= down[step + 1] * x[step];
+  x[k] *= inverse_pivot[k];
+  for (step = 1; step <= upward; ++step) {  // substitute outward from row k
     const std::size_t i = k - step, j = k + step;
-    x[i] = x[i] * c.inverse_pivot[i] - c.back[i] * x[i + 1];
-    if (j < n) x[j] = x[j] * c.inverse_pivot[j] - c.back[j] * x[j - 1];
+    x[i] = x[i] * inverse_pivot[i] - back[i] * x[i + 1];
+    x[j] = x[j] * inverse_pivot[j] - back[j] * x[j - 1];
+  }
+  for (; step <= k; ++step) {
+    const std::size_t i = k - step;
+    x[i] = x[i] * inverse_pivot[i] - back[i] * x[i + 1];
   }
 }
 
