@@ -442,27 +442,28 @@ void ColumnModel::error_weights(std::span<const double> y, std::span<double> wei
   // tolerances (the surface switches read its state: loosened, they chattered, 874,000 switches
   // on 0.125 cm cells), and so does every dry cell's relative head tolerance (loosened, thin dry
   // cells drifted far below the dry limit).
+  const double per_head_tolerance = 1.0 / settings_.head_tolerance_cm;
   auto weight = [&](std::size_t i) {
     const double layer = i == 0 ? 1.0 : std::min(1.0, grid_.cell_thickness_cm(i) / kToleranceLayerCm);
-    const double stored = cell_storage(i, y);
-    double w = layer / (settings_.absolute_tolerance_storage_cm + settings_.relative_tolerance * std::abs(stored));
+    const double storage_tolerance =
+        settings_.absolute_tolerance_storage_cm + settings_.relative_tolerance * std::abs(cell_storage(i, y));
     // The head, dh/dS and K as the last residual left them (the Newton iterate before this
     // step's last correction: near enough for a tolerance, and no table lookup), or looked up
     // when an output or a Jacobian elsewhere has moved the workspace.
     const StoragePoint p = evaluated_state_.empty()
                                ? cell_point(i, y)
                                : StoragePoint{head_[i], head_per_storage_[i], conductivity_[i], 0.0};
-    if (p.head_per_storage > 0) {
-      // Any cell: its head may err by a fraction of itself (binds in dry cells, where dh/dS is
-      // so large that a storage tolerance alone let thin surface cells reach -1e7 cm); a
-      // conducting cell by head_tolerance at most.
-      const double relative = p.head_per_storage / (settings_.head_relative_tolerance * (std::abs(p.head_cm) + 1.0));
-      if (p.conductivity >= 0.01 * saturated_conductivity_[i])
-        w = std::max(w, layer * std::max(relative, p.head_per_storage / settings_.head_tolerance_cm));
-      else
-        w = std::max(w, relative);
-    }
-    return w;
+    if (!(p.head_per_storage > 0)) return layer / storage_tolerance;
+    // Any cell: its head may err by a fraction of itself (binds in dry cells, where dh/dS is so
+    // large that a storage tolerance alone let thin surface cells reach -1e7 cm); a conducting
+    // cell by head_tolerance at most. One division gives both reciprocals.
+    const double head_tolerance = settings_.head_relative_tolerance * (std::abs(p.head_cm) + 1.0);
+    const double reciprocal = 1.0 / (storage_tolerance * head_tolerance);
+    const double relative = p.head_per_storage * storage_tolerance * reciprocal;
+    const double storage = layer * head_tolerance * reciprocal;
+    if (p.conductivity >= 0.01 * saturated_conductivity_[i])
+      return std::max(storage, layer * std::max(relative, p.head_per_storage * per_head_tolerance));
+    return std::max(storage, relative);
   };
   // A face or sink amount moves water between cells: it takes the tighter of their tolerances.
   double above = weight(0);

@@ -84,13 +84,22 @@ double bounded_rms(double square_sum, double largest, std::size_t length) {
 }
 double wrms_norm(N_Vector x, N_Vector w) {
   const auto xs = data(x), ws = data(w);
-  double sum = 0, largest = 0;
-  for (std::size_t i = 0; i < xs.size(); ++i) {
+  // Four running sums and maxima: one sum alone waits on each addition in turn.
+  double sum[4] = {}, largest[4] = {};
+  std::size_t i = 0;
+  for (; i + 4 <= xs.size(); i += 4)
+    for (std::size_t k = 0; k < 4; ++k) {
+      const double v = std::abs(xs[i + k] * ws[i + k]);
+      sum[k] += v * v;
+      largest[k] = std::max(largest[k], v);
+    }
+  for (; i < xs.size(); ++i) {
     const double v = std::abs(xs[i] * ws[i]);
-    sum += v * v;
-    largest = std::max(largest, v);
+    sum[0] += v * v;
+    largest[0] = std::max(largest[0], v);
   }
-  return bounded_rms(sum, largest, xs.size());
+  return bounded_rms((sum[0] + sum[1]) + (sum[2] + sum[3]),
+                     std::max(std::max(largest[0], largest[1]), std::max(largest[2], largest[3])), xs.size());
 }
 double wrms_norm_masked(N_Vector x, N_Vector w, N_Vector mask) {
   const auto xs = data(x), ws = data(w), ms = data(mask);
