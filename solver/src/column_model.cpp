@@ -433,18 +433,9 @@ ProfileSnapshot ColumnModel::snapshot_here(double t, std::span<const double> y) 
 void ColumnModel::error_weights(std::span<const double> y, std::span<double> weights) const {
   const std::size_t n = cells();
   // 1 / tolerance on the stored water of cell i, the tolerance being the smallest of the storage
-  // tolerance and of the head tolerances divided by dh/dS. A cell below the surface cell counts
-  // as no thinner than kToleranceLayerCm for the storage and conducting-head tolerances: a cell's
-  // tolerance shrinks with its thickness while the water crossing a face does not, so without
-  // that floor every halving of the cells halved the tolerance of each face, and on year200 the
-  // time-stepping error of the daily heads fell from 0.035 cm RMS on 2 cm cells to 0.005 cm on
-  // 0.125 cm cells for 2.2 times the steps (bench/README.md). The surface cell keeps its own
-  // tolerances (the surface switches read its state: loosened, they chattered, 874,000 switches
-  // on 0.125 cm cells), and so does every dry cell's relative head tolerance (loosened, thin dry
-  // cells drifted far below the dry limit).
+  // tolerance and of the head tolerances divided by dh/dS.
   const double per_head_tolerance = 1.0 / settings_.head_tolerance_cm;
   auto weight = [&](std::size_t i) {
-    const double layer = i == 0 ? 1.0 : std::min(1.0, grid_.cell_thickness_cm(i) / kToleranceLayerCm);
     const double storage_tolerance =
         settings_.absolute_tolerance_storage_cm + settings_.relative_tolerance * std::abs(cell_storage(i, y));
     // The head, dh/dS and K as the last residual left them (the Newton iterate before this
@@ -453,17 +444,16 @@ void ColumnModel::error_weights(std::span<const double> y, std::span<double> wei
     const StoragePoint p = evaluated_state_.empty()
                                ? cell_point(i, y)
                                : StoragePoint{head_[i], head_per_storage_[i], conductivity_[i], 0.0};
-    if (!(p.head_per_storage > 0)) return layer / storage_tolerance;
+    if (!(p.head_per_storage > 0)) return 1.0 / storage_tolerance;
     // Any cell: its head may err by a fraction of itself (binds in dry cells, where dh/dS is so
     // large that a storage tolerance alone let thin surface cells reach -1e7 cm); a conducting
     // cell by head_tolerance at most. One division gives both reciprocals.
     const double head_tolerance = settings_.head_relative_tolerance * (std::abs(p.head_cm) + 1.0);
     const double reciprocal = 1.0 / (storage_tolerance * head_tolerance);
-    const double relative = p.head_per_storage * storage_tolerance * reciprocal;
-    const double storage = layer * head_tolerance * reciprocal;
+    const double w = std::max(head_tolerance * reciprocal, p.head_per_storage * storage_tolerance * reciprocal);
     if (p.conductivity >= 0.01 * saturated_conductivity_[i])
-      return std::max(storage, layer * std::max(relative, p.head_per_storage * per_head_tolerance));
-    return std::max(storage, relative);
+      return std::max(w, p.head_per_storage * per_head_tolerance);
+    return w;
   };
   // A face or sink amount moves water between cells: it takes the tighter of their tolerances.
   double above = weight(0);

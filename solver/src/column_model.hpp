@@ -95,8 +95,7 @@ class ColumnModel {
   // storage tolerance lets heads err by metres when Ss is small. Every cell's head may also err
   // by no more than the relative head tolerance of |h| + 1 cm: in dry cells dh/dS is so large
   // that a storage tolerance alone lets heads err by orders of magnitude. A face or sink amount
-  // takes the tighter tolerance of the cells it changes. For the storage and conducting-head
-  // tolerances a cell below the surface cell counts as no thinner than kToleranceLayerCm.
+  // takes the tighter tolerance of the cells it changes.
   void error_weights(std::span<const double> y, std::span<double> weights) const;
 
   // Events: needs only the surface cell (and the bottom cell for a seepage face).
@@ -175,7 +174,6 @@ class ColumnModel {
   // Forcing held over the current period.
   double water_input_ = 0, potential_evaporation_ = 0, prescribed_flux_ = 0, prescribed_head_ = 0;
   double period_start_ = 0;
-  static constexpr double kToleranceLayerCm = 1.0;  // error_weights: thinner cells count as this
   static constexpr double kSwitchMargin = 1e-10;  // of the flux scale 1 + |net input| (cm/d)
   double switch_margin_ = kSwitchMargin;
   SurfaceMode surface_ = SurfaceMode::flux;

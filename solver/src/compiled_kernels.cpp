@@ -71,46 +71,18 @@ double weighted_square_sum_masked(N_Vector x, N_Vector w, N_Vector mask) {
     if (ms[i] > 0) sum += (xs[i] * ws[i]) * (xs[i] * ws[i]);
   return sum;
 }
-// IDA's error test and Newton convergence test measure vectors with this norm. The weighted RMS
-// of n components lets one component alone reach sqrt(n) times its tolerance, so the finer the
-// grid the larger the error one cell may take: year200 on 1600 cells accepted steps in which a
-// Newton iterate left one cell at -3e5 cm between neighbours at -119 and -46 cm (77 such steps
-// in the year, none on 100 to 400 cells). The norm is therefore at least the largest weighted
-// component divided by kLargestComponentShare: one component may never reach more than it could
-// in an RMS of 100 components, whatever the number of cells.
-constexpr double kLargestComponentShare = 10.0;
-double bounded_rms(double square_sum, double largest, std::size_t length) {
-  return std::max(std::sqrt(square_sum / static_cast<double>(length)), largest / kLargestComponentShare);
-}
 double wrms_norm(N_Vector x, N_Vector w) {
   const auto xs = data(x), ws = data(w);
-  // Four running sums and maxima: one sum alone waits on each addition in turn.
-  double sum[4] = {}, largest[4] = {};
+  // Four running sums: one sum alone waits on each addition in turn.
+  double sum[4] = {};
   std::size_t i = 0;
   for (; i + 4 <= xs.size(); i += 4)
-    for (std::size_t k = 0; k < 4; ++k) {
-      const double v = std::abs(xs[i + k] * ws[i + k]);
-      sum[k] += v * v;
-      largest[k] = std::max(largest[k], v);
-    }
-  for (; i < xs.size(); ++i) {
-    const double v = std::abs(xs[i] * ws[i]);
-    sum[0] += v * v;
-    largest[0] = std::max(largest[0], v);
-  }
-  return bounded_rms((sum[0] + sum[1]) + (sum[2] + sum[3]),
-                     std::max(std::max(largest[0], largest[1]), std::max(largest[2], largest[3])), xs.size());
+    for (std::size_t k = 0; k < 4; ++k) sum[k] += (xs[i + k] * ws[i + k]) * (xs[i + k] * ws[i + k]);
+  for (; i < xs.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
+  return std::sqrt(((sum[0] + sum[1]) + (sum[2] + sum[3])) / static_cast<double>(xs.size()));
 }
 double wrms_norm_masked(N_Vector x, N_Vector w, N_Vector mask) {
-  const auto xs = data(x), ws = data(w), ms = data(mask);
-  double sum = 0, largest = 0;
-  for (std::size_t i = 0; i < xs.size(); ++i)
-    if (ms[i] > 0) {
-      const double v = std::abs(xs[i] * ws[i]);
-      sum += v * v;
-      largest = std::max(largest, v);
-    }
-  return bounded_rms(sum, largest, xs.size());
+  return std::sqrt(weighted_square_sum_masked(x, w, mask) / static_cast<double>(NV_LENGTH_S(x)));
 }
 double minimum(N_Vector x) {
   const auto xs = data(x);

@@ -7,9 +7,7 @@
 // SUNDIALS extension points: the serial vector keeps its type and storage and only its
 // arithmetic operations are replaced by the same loops compiled here; the linear solver is a
 // SUNDIALS "custom" direct solver working on the library's own band matrix. Results agree with
-// the library's to round-off (tests/solver/compiled_kernels_test.cpp), except one deliberate
-// change: the weighted RMS norm is never below a tenth of the largest weighted component
-// (compiled_kernels.cpp says why).
+// the library's to round-off (tests/solver/compiled_kernels_test.cpp).
 #pragma once
 
 #include <sundials/sundials_context.h>
