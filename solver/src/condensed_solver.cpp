@@ -76,10 +76,11 @@ sunindextype factor_tridiagonal(Condensed& c) {
 }
 
 // Twisted LU of a tridiagonal matrix diagonally dominant by rows: Gaussian elimination downward
-// from row 0 and upward from row n-1 meeting at row k = n/2 (Meurant 1992, SIAM J. Matrix Anal.
-// Appl. 13(3), "twisted" factorisation; without pivoting, stable for diagonal dominance: Higham
-// 2002, Accuracy and Stability of Numerical Algorithms, 2nd ed., sec. 9.6, from memory). The two
-// eliminations are independent, so each of their serial chains is half as long as one LU's.
+// from row 0 and upward from row n-1 meeting at row k = n/2 (the "twisted" factorisation, e.g.
+// Meurant 1992, SIAM J. Matrix Anal. Appl. 13(3); from memory). Without pivoting it is stable for
+// diagonal dominance by rows (Higham 2002, Accuracy and Stability of Numerical Algorithms, 2nd
+// ed., ch. 9 on tridiagonal systems; from memory). The two eliminations are independent, so
+// each of their serial chains is half as long as one LU's.
 // Returns false if the meeting pivot is zero or not finite (the caller then pivots).
 bool factor_twisted(Condensed& c) {
   const std::size_t n = c.diagonal.size(), k = n / 2, upward = n - 1 - k;  // upward <= k
