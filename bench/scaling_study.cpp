@@ -65,24 +65,6 @@ void cells_study() {
   fmt::print("{:>14} exponent {:.3f} from 100 to 1600 cells\n", "", std::log(previous / first) / std::log(16.0));
 }
 
-// Heads at the year200 report depths on any grid, interpolated linearly between cell centres.
-bench::DailyHeads heads_at_report_depths(const solver::ColumnRun& run) {
-  bench::DailyHeads rows;
-  const auto& z = run.cell_depths_cm;
-  for (const auto& p : run.profiles) {
-    std::array<double, 5> row{};
-    for (std::size_t k = 0; k < row.size(); ++k) {
-      const double d = bench::year200_report_depths_cm[k];
-      std::size_t i = 1;
-      while (i + 1 < z.size() && z[i] < d) ++i;
-      const double f = (d - z[i - 1]) / (z[i] - z[i - 1]);
-      row[k] = (1 - f) * p.head_cm[i - 1] + f * p.head_cm[i];
-    }
-    rows.push_back(row);
-  }
-  return rows;
-}
-
 // The time-stepping error on each grid: daily heads at the report depths against a
 // tight-tolerance run on the same grid.
 void cell_error_study() {
@@ -95,7 +77,7 @@ void cell_error_study() {
     const auto tight = solver::simulate(problem);
     fmt::print("{:>14} {:10.1f} ms {:8} steps  head error {:.4f} cm RMS  bottom flux {:.4f} cm (tight {:.4f})\n",
                fmt::format("{} cells", cells), t.cpu_ms, t.run.statistics.steps,
-               bench::rms_difference(heads_at_report_depths(t.run), heads_at_report_depths(tight)),
+               bench::rms_difference(bench::daily_heads(t.run), bench::daily_heads(tight)),
                t.run.balances.back().bottom_flux_cm, tight.balances.back().bottom_flux_cm);
   }
 }

@@ -44,18 +44,22 @@ inline solver::ColumnProblem year200_column(const std::string& flux_csv) {
   return problem;
 }
 
-// Daily heads at 10, 30, 60, 100 and 150 cm: on 1 cm cells the face at depth d lies between
-// cells d-1 and d, so each is the mean of those two cells.
+// Daily heads at 10, 30, 60, 100 and 150 cm, linear between cell centres (on 1 cm cells the mean
+// of the two cells beside the face at that depth), on any grid.
 inline constexpr std::array<int, 5> year200_report_depths_cm = {10, 30, 60, 100, 150};
 using DailyHeads = std::vector<std::array<double, 5>>;
 
 inline DailyHeads daily_heads(const solver::ColumnRun& run) {
   DailyHeads rows;
+  const auto& z = run.cell_depths_cm;
   for (const auto& p : run.profiles) {
     std::array<double, 5> row{};
     for (std::size_t k = 0; k < row.size(); ++k) {
-      const auto d = static_cast<std::size_t>(year200_report_depths_cm[k]);
-      row[k] = 0.5 * (p.head_cm[d - 1] + p.head_cm[d]);
+      const double d = year200_report_depths_cm[k];
+      std::size_t i = 1;
+      while (i + 1 < z.size() && z[i] < d) ++i;
+      const double f = (d - z[i - 1]) / (z[i] - z[i - 1]);
+      row[k] = (1 - f) * p.head_cm[i - 1] + f * p.head_cm[i];
     }
     rows.push_back(row);
   }
