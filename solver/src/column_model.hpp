@@ -95,8 +95,14 @@ class ColumnModel {
   // storage tolerance lets heads err by metres when Ss is small. Every cell's head may also err
   // by no more than the relative head tolerance of |h| + 1 cm: in dry cells dh/dS is so large
   // that a storage tolerance alone lets heads err by orders of magnitude. A face or sink amount
-  // takes the tighter tolerance of the cells it changes.
+  // takes the tighter tolerance of the cells it changes, a cell below the surface cell counting
+  // as no thinner than kToleranceLayerCm for its storage and conducting-head tolerances. Each
+  // cell's own weight is kept for step_norm.
   void error_weights(std::span<const double> y, std::span<double> weights) const;
+  // The norm of IDA's error and Newton tests for a change x of the unknowns under the weights of
+  // error_weights: their weighted RMS, but never less than the largest change of one cell's
+  // stored water in its own tolerances divided by kLocalShare.
+  double step_norm(std::span<const double> x, std::span<const double> weights) const;
 
   // Events: needs only the surface cell (and the bottom cell for a seepage face).
   void events(double t, std::span<const double> y, std::span<double> g) const;
@@ -191,6 +197,9 @@ class ColumnModel {
   std::vector<double> evaluated_state_;  // the state of the last residual, while the workspace holds it
   // Per cell, the storage-table interval of its last lookup (where the next one starts).
   mutable std::vector<unsigned> interval_hint_;
+  mutable std::vector<double> cell_weights_;  // error_weights: 1 / each cell's own storage tolerance
+  static constexpr double kToleranceLayerCm = 1.0;  // error_weights: thinner cells count as this
+  static constexpr double kLocalShare = 30.0;       // step_norm: one cell's error against the RMS
   // Phi at the last two boundary heads asked for (boundary_potential).
   struct KeptPotential {
     const StorageTable* table = nullptr;

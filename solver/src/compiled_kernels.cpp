@@ -71,8 +71,10 @@ double weighted_square_sum_masked(N_Vector x, N_Vector w, N_Vector mask) {
     if (ms[i] > 0) sum += (xs[i] * ws[i]) * (xs[i] * ws[i]);
   return sum;
 }
+thread_local const StepNorm* installed_norm = nullptr;  // ScopedStepNorm
 double wrms_norm(N_Vector x, N_Vector w) {
   const auto xs = data(x), ws = data(w);
+  if (installed_norm) return installed_norm->norm(installed_norm->context, xs, ws);
   // Four running sums: one sum alone waits on each addition in turn.
   double sum[4] = {};
   std::size_t i = 0;
@@ -305,6 +307,9 @@ int zero_band(SUNMatrix a) {
 }
 
 }  // namespace
+
+ScopedStepNorm::ScopedStepNorm(StepNorm norm) : norm_(norm), previous_(installed_norm) { installed_norm = &norm_; }
+ScopedStepNorm::~ScopedStepNorm() { installed_norm = previous_; }
 
 void use_compiled_zero(SUNMatrix band) { band->ops->zero = zero_band; }
 

@@ -7,8 +7,11 @@
 // SUNDIALS extension points: the serial vector keeps its type and storage and only its
 // arithmetic operations are replaced by the same loops compiled here; the linear solver is a
 // SUNDIALS "custom" direct solver working on the library's own band matrix. Results agree with
-// the library's to round-off (tests/solver/compiled_kernels_test.cpp).
+// the library's to round-off (tests/solver/compiled_kernels_test.cpp), except the weighted RMS
+// norm while a ScopedStepNorm is installed.
 #pragma once
+
+#include <span>
 
 #include <sundials/sundials_context.h>
 #include <sundials/sundials_linearsolver.h>
@@ -19,6 +22,25 @@ namespace wetfront::solver::detail {
 
 // Replaces the arithmetic operations of a serial vector (clones inherit them).
 void use_compiled_vector_ops(N_Vector serial_vector);
+
+// A weighted norm of our own for IDA's error and Newton tests (vector operations carry no user
+// data, so it is installed per thread): while a ScopedStepNorm lives, the weighted RMS norm of
+// the compiled vectors on this thread calls norm(context, x, weights) instead.
+struct StepNorm {
+  double (*norm)(const void* context, std::span<const double> x, std::span<const double> weights);
+  const void* context;
+};
+class ScopedStepNorm {
+ public:
+  explicit ScopedStepNorm(StepNorm norm);
+  ~ScopedStepNorm();
+  ScopedStepNorm(const ScopedStepNorm&) = delete;
+  ScopedStepNorm& operator=(const ScopedStepNorm&) = delete;
+
+ private:
+  StepNorm norm_;
+  const StepNorm* previous_;
+};
 
 // Replaces the zeroing of a band matrix (IDA zeroes the Jacobian before each evaluation).
 void use_compiled_zero(SUNMatrix band_matrix);

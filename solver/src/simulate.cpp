@@ -128,6 +128,12 @@ class Integrator {
 
   ColumnRun run() {
     ColumnRun result;
+    // IDA's error and Newton tests measure with the column's own norm (ColumnModel::step_norm).
+    const detail::ScopedStepNorm use_column_norm(
+        {[](const void* model, std::span<const double> x, std::span<const double> weights) {
+           return static_cast<const ColumnModel*>(model)->step_norm(x, weights);
+         },
+         &model_});
     const auto& grid = model_.grid();
     result.cell_depths_cm.assign(grid.cell_depths_cm().begin(), grid.cell_depths_cm().end());
     result.face_depths_cm.assign(grid.face_depths_cm().begin(), grid.face_depths_cm().end());

@@ -4,6 +4,8 @@
 
 #include <cmath>
 #include <random>
+#include <span>
+#include <thread>
 #include <vector>
 
 #include <nvector/nvector_serial.h>
@@ -78,6 +80,32 @@ TEST_F(CompiledKernels, VectorOperationsAgreeWithTheLibrary) {
   N_Vector library_z[2] = {z0, x0}, ours_z[2] = {z1, x1};
   N_VScaleAddMulti(2, a, x0, library_y, library_z), N_VScaleAddMulti(2, a, x1, ours_y, ours_z);
   expect_same(z0, z1), expect_same(x0, x1);
+}
+
+// While a ScopedStepNorm lives, the weighted RMS norm of the compiled vectors on this thread is
+// the installed one (the innermost, when nested); other threads and the library keep theirs.
+TEST_F(CompiledKernels, AnInstalledStepNormServesItsThreadWhileItLives) {
+  auto [x0, x1] = random_pair(-2, 2);
+  auto [w0, w1] = random_pair(0.1, 1);
+  const double plain = N_VWrmsNorm(x0, w0);
+  auto length_times = [](const void* factor, std::span<const double> x, std::span<const double>) {
+    return *static_cast<const double*>(factor) * static_cast<double>(x.size());
+  };
+  const double two = 2.0, three = 3.0;
+  {
+    const solver::detail::ScopedStepNorm outer({length_times, &two});
+    EXPECT_EQ(N_VWrmsNorm(x1, w1), 2.0 * length);
+    {
+      const solver::detail::ScopedStepNorm inner({length_times, &three});
+      EXPECT_EQ(N_VWrmsNorm(x1, w1), 3.0 * length);
+    }
+    EXPECT_EQ(N_VWrmsNorm(x1, w1), 2.0 * length);
+    double elsewhere = 0;
+    std::thread([&] { elsewhere = N_VWrmsNorm(x1, w1); }).join();
+    EXPECT_NEAR(elsewhere, plain, 1e-14);
+    EXPECT_EQ(N_VWrmsNorm(x0, w0), plain);
+  }
+  EXPECT_NEAR(N_VWrmsNorm(x1, w1), plain, 1e-14);
 }
 
 TEST_F(CompiledKernels, BandLuSolvesLikeTheLibrary) {
