@@ -498,30 +498,36 @@ double ColumnModel::step_norm(std::span<const double> x, std::span<const double>
   const double* c = cell_weights_.data();
   const double* xs = x.data();
   const double* ws = weights.data();
-  double sum[2] = {}, largest[2] = {};
+  double sum[4] = {}, largest[4] = {};
   if (cell_weights_.size() != n) {  // no weights of our own yet: the plain RMS
     for (std::size_t i = 0; i < x.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
   } else if (uptake_cells_ == 0) {  // unknowns are the faces 0..n: cell i lies between x_i and x_(i+1)
     std::size_t i = 0;
-    for (; i + 2 <= n; i += 2)  // two running sums and maxima: one alone waits on each addition
-      for (std::size_t k = 0; k < 2; ++k) {
-        sum[k] += (xs[i + k] * ws[i + k]) * (xs[i + k] * ws[i + k]);
-        largest[k] = std::max(largest[k], std::abs(xs[i + k] - xs[i + k + 1]) * c[i + k]);
+    for (; i + 4 <= n; i += 4)  // four running sums and maxima: one alone waits on each addition
+      for (std::size_t k = 0; k < 4; ++k) {
+        const double face = xs[i + k] * ws[i + k];
+        const double cell = (xs[i + k] - xs[i + k + 1]) * c[i + k];
+        sum[k] += face * face;
+        largest[k] = std::max(largest[k], cell * cell);
       }
     for (; i < n; ++i) {
+      const double cell = (xs[i] - xs[i + 1]) * c[i];
       sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
-      largest[0] = std::max(largest[0], std::abs(xs[i] - xs[i + 1]) * c[i]);
+      largest[0] = std::max(largest[0], cell * cell);
     }
     sum[1] += (xs[n] * ws[n]) * (xs[n] * ws[n]);
   } else {
     for (std::size_t i = 0; i < x.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
     for (std::size_t i = 0; i < n; ++i) {
       const double uptake = i < uptake_cells_ ? xs[uptake_index(i)] : 0.0;
-      largest[0] = std::max(largest[0], std::abs(xs[face_index(i)] - xs[face_index(i + 1)] - uptake) * c[i]);
+      const double cell = (xs[face_index(i)] - xs[face_index(i + 1)] - uptake) * c[i];
+      largest[0] = std::max(largest[0], cell * cell);
     }
   }
-  return std::max(std::sqrt((sum[0] + sum[1]) / static_cast<double>(x.size())),
-                  std::max(largest[0], largest[1]) / kLocalShare);
+  // Squares throughout: the largest cell term is compared as (largest / kLocalShare)^2.
+  const double square_sum = (sum[0] + sum[1]) + (sum[2] + sum[3]);
+  const double largest_square = std::max(std::max(largest[0], largest[1]), std::max(largest[2], largest[3]));
+  return std::sqrt(std::max(square_sum / static_cast<double>(x.size()), largest_square / (kLocalShare * kLocalShare)));
 }
 
 // Event functions. Right after a switch the new mode's function starts at zero and moves away
