@@ -5,14 +5,20 @@
 //     tests/solver/solver_test_soils.hpp), 100 cm, initially -1000 cm, surface held at 0 cm for
 //     2 days, free drainage, on cells of 1, 0.5, 0.25, 0.125 and 0.0625 cm: time and the factor per
 //     halving of the cell size;
-//  3. the same ponded loam on 0.25 cm cells with specific storage from 1e-6 to 1e-3 /cm.
-// Usage: scaling_study [cells|ponded|storage]...   (all three without arguments)
+//  3. the same ponded loam on 0.25 cm cells with specific storage from 1e-6 to 1e-3 /cm;
+//  4. `ponded-spread`: the ponded loam of 2. from five initial heads within 0.1 cm of -1000 cm.
+//     Which steps IDA accepts turns on round-off, so one trajectory's step count moves by up to
+//     a third for a change of 0.01 cm in the initial head; the medians over the five give the
+//     trend per halving, the range how far one run may stray from it.
+// Usage: scaling_study [cells|cell-errors|ponded|ponded-spread|storage]...
+//        (cells, ponded and storage without arguments)
 #include <algorithm>
 #include <array>
 #include <cmath>
 #include <ctime>
 #include <set>
 #include <string>
+#include <vector>
 
 #include <fmt/format.h>
 
@@ -82,14 +88,14 @@ void cell_error_study() {
   }
 }
 
-solver::ColumnProblem ponded_loam(double cell_cm, double specific_storage) {
+solver::ColumnProblem ponded_loam(double cell_cm, double specific_storage, double initial_head_cm = -1000.0) {
   const soils::VanGenuchtenMualem loam{0.078, 0.43, 0.036, 1.56, 24.96, 0.5};
   solver::ColumnProblem problem{
       .soil = soils::LayeredProfile({{"loam", 0.0, 100.0, loam}}),
       .grid = solver::uniform_grid(100.0, static_cast<std::size_t>(std::lround(100.0 / cell_cm)))};
   problem.top = solver::PrescribedHead{solver::StepSeries::constant(0.0)};
   problem.bottom = solver::FreeDrainage{};
-  problem.initial = solver::UniformHead{-1000.0};
+  problem.initial = solver::UniformHead{initial_head_cm};
   if (specific_storage > 0) problem.specific_storage_per_cm = specific_storage;  // else the default
   problem.end_day = 2.0;
   problem.output_days = {0.5, 1.0, 1.5, 2.0};
@@ -106,6 +112,35 @@ void ponded_study() {
       fmt::print("{:>14} infiltrated {:.4f} cm in 2 days\n", "", t.run.balances.back().infiltration_cm);
     previous = t.cpu_ms;
   }
+}
+
+void ponded_spread_study() {
+  fmt::print("ponded infiltration into dry loam from initial heads -1000 cm +- 0, 0.01, 0.1 cm: medians of the five\n");
+  fmt::print("{:>14} {:>10} {:>19} {:>8} {:>8} {:>8}\n", "cell size", "CPU ms", "(range)", "steps", "Newton", "factor");
+  double previous = 0, first = 0;
+  for (double cell : {1.0, 0.5, 0.25, 0.125, 0.0625}) {
+    std::vector<double> ms, steps, newton;
+    for (double h0 : {-1000.0, -999.99, -1000.01, -999.9, -1000.1}) {
+      const auto t = timed(ponded_loam(cell, 0.0, h0));
+      if (!t.run.complete) fmt::print("  INCOMPLETE from {} cm: {}\n", h0, t.run.failure ? t.run.failure->reason : "");
+      ms.push_back(t.cpu_ms);
+      steps.push_back(static_cast<double>(t.run.statistics.steps));
+      newton.push_back(static_cast<double>(t.run.statistics.nonlinear_iterations));
+    }
+    auto median = [](std::vector<double> v) {
+      std::ranges::sort(v);
+      return v[v.size() / 2];
+    };
+    const double m = median(ms);
+    fmt::print("{:>14} {:10.1f} {:>19} {:8.0f} {:8.0f}", fmt::format("{} cm", cell), m,
+               fmt::format("({:.1f} to {:.1f})", *std::ranges::min_element(ms), *std::ranges::max_element(ms)),
+               median(steps), median(newton));
+    if (previous > 0) fmt::print(" {:>8}", fmt::format("x{:.2f}", m / previous));
+    fmt::print("\n");
+    previous = m;
+    if (first == 0) first = m;
+  }
+  fmt::print("{:>14} exponent {:.3f} from 1 to 0.0625 cm\n", "", std::log(previous / first) / std::log(16.0));
 }
 
 void storage_study() {
@@ -126,6 +161,7 @@ int main(int argc, char** argv) {
   if (parts.count("cells")) cells_study();
   if (parts.count("cell-errors")) cell_error_study();
   if (parts.count("ponded")) ponded_study();
+  if (parts.count("ponded-spread")) ponded_spread_study();
   if (parts.count("storage")) storage_study();
   return 0;
 }
