@@ -103,6 +103,17 @@ class Solver {
         result.stop_reason = StopReason::budget_spent;
         break;
       }
+      // The undamped (Gauss-Newton) step's predicted decrease, g^T A^-1 g: when even it is below
+      // the relative tolerance no step can gain enough, and on a noisy S (a numerical model's)
+      // trying would only spend evaluations on steps that noise accepts or rejects.
+      if (options_.relative_decrease_tolerance > 0.0) {
+        const double best_predicted = g.dot(a.ldlt().solve(g));
+        if (std::isfinite(best_predicted) && best_predicted >= 0.0 &&
+            best_predicted < options_.relative_decrease_tolerance * cost) {
+          result.stop_reason = StopReason::small_predicted_decrease;
+          break;
+        }
+      }
       ++iteration;
       const Eigen::MatrixXd damped = a + mu * Eigen::MatrixXd::Identity(a.rows(), a.cols());
       const Eigen::VectorXd h = damped.ldlt().solve(-g);
@@ -273,6 +284,8 @@ std::string_view describe(StopReason reason) {
     case StopReason::no_further_progress: return "stopped: no step reduces the sum of squares any further";
     case StopReason::small_decrease:
       return "converged: the last step lowered the sum of squares by less than the tolerance";
+    case StopReason::small_predicted_decrease:
+      return "converged: the linearised model predicts no step can lower the sum of squares by the tolerance";
     case StopReason::budget_spent: return "stopped: the limit on model runs was reached";
   }
   return "unknown stop reason";

@@ -53,8 +53,9 @@ struct LeastSquaresOptions {
   // Central-difference step for numerical Jacobians, relative to max(|p|, 1e-3): about the cube
   // root of machine epsilon balances truncation against rounding (common practice).
   double relative_difference_step = 1e-5;
-  // Stop after an accepted step that lowers S by less than this fraction of S (0: never). For
-  // residuals from a numerical model, whose S is only as smooth as the model's tolerances.
+  // Stop after an accepted step that lowers S by less than this fraction of S, or before a step
+  // when the Gauss-Newton step's predicted decrease is below it (0: never). For residuals from
+  // a numerical model, whose S is only as smooth as the model's tolerances.
   double relative_decrease_tolerance = 0.0;
   // Asked before every step; true stops the run (StopReason::budget_spent), for a caller that
   // limits how many expensive residual evaluations a fit may take.
@@ -67,6 +68,7 @@ enum class StopReason {
   iteration_limit,      // max_iterations reached without meeting a tolerance
   no_further_progress,  // damping grew without finding a decrease (flat or noisy objective)
   small_decrease,       // an accepted step lowered S by less than relative_decrease_tolerance
+  small_predicted_decrease,  // the Gauss-Newton step would lower S by less than that tolerance
   budget_spent          // options.budget_spent said stop
 };
 std::string_view describe(StopReason reason);
@@ -94,7 +96,7 @@ struct LeastSquaresResult {
   Eigen::MatrixXd jacobian;
   bool converged() const {
     return stop_reason == StopReason::small_gradient || stop_reason == StopReason::small_step ||
-           stop_reason == StopReason::small_decrease;
+           stop_reason == StopReason::small_decrease || stop_reason == StopReason::small_predicted_decrease;
   }
 };
 
