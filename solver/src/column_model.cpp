@@ -499,7 +499,7 @@ double ColumnModel::step_norm(std::span<const double> x, std::span<const double>
   const double* xs = x.data();
   const double* ws = weights.data();
   double sum[4] = {}, largest[4] = {};
-  if (cell_weights_.size() != n) {  // no weights of our own yet: the plain RMS
+  if (cell_weights_.size() != n || x.size() != unknowns()) {  // not a step of this column: the plain RMS
     for (std::size_t i = 0; i < x.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
   } else if (uptake_cells_ == 0) {  // unknowns are the faces 0..n: cell i lies between x_i and x_(i+1)
     std::size_t i = 0;
