@@ -101,7 +101,8 @@ TEST_F(CompiledKernels, AnInstalledStepNormServesItsThreadWhileItLives) {
     }
     EXPECT_EQ(N_VWrmsNorm(x1, w1), 2.0 * length);
     double elsewhere = 0;
-    std::thread([&] { elsewhere = N_VWrmsNorm(x1, w1); }).join();
+    N_Vector x = x1, w = w1;  // clang 14 cannot capture structured bindings
+    std::thread([&] { elsewhere = N_VWrmsNorm(x, w); }).join();
     EXPECT_NEAR(elsewhere, plain, 1e-14);
     EXPECT_EQ(N_VWrmsNorm(x0, w0), plain);
   }
