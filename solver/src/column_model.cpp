@@ -491,8 +491,8 @@ void ColumnModel::error_weights(std::span<const double> y, std::span<double> wei
 // stored water, x_i - x_(i+1) - U_i, is therefore also measured in that cell's own tolerance,
 // and the largest of them, divided by kLocalShare, bounds the norm from below. kLocalShare 30:
 // with 10 the bound held every front cell so tightly that ponded infiltration took more steps
-// than before the floor; with 30 and 60 no such step on year200's 800 and 1600 cells watched
-// every 0.002 d (bench/README.md).
+// than before the floor; with 30 no such step on year200's 800 and 1600 cells read every
+// 0.002 d (bench/front_outliers), nor with 60 on 1600 cells (bench/README.md).
 double ColumnModel::step_norm(std::span<const double> x, std::span<const double> weights) const {
   const std::size_t n = cells();
   const double* c = cell_weights_.data();
