@@ -1,6 +1,8 @@
 // The norm of IDA's error and Newton tests (ColumnModel::step_norm, with the face weights of
 // ColumnModel::error_weights): a change spread over many faces is measured by its weighted RMS,
-// a change of one thin cell's stored water in that cell's own tolerance.
+// a change of one thin cell's stored water in that cell's own tolerance. The expected values are
+// derived from the norm's definition (identities); the loam is Carsel & Parrish's (1988; values
+// from memory, solver_test_soils.hpp).
 #include <gtest/gtest.h>
 
 #include <cmath>
@@ -19,9 +21,9 @@ struct Weighed {
   std::vector<double> y, weights;
 };
 
-// 1600 cells of 0.125 cm of loam at a uniform -10 cm, where K is a fifth of Ks: every cell below
-// the surface conducts and has the same own tolerance, and a face between two of them 0.125 of
-// it (the 1 cm floor of error_weights).
+// 1600 cells of 0.125 cm of loam at a uniform -10 cm, where van Genuchten-Mualem gives K of about
+// a fifth of Ks: every cell below the surface conducts (K >= 1 % of Ks) and has the same own
+// tolerance, and a face between two of them 0.125 of it (the 1 cm floor of error_weights).
 Weighed weighed(solver::ColumnProblem problem) {
   Weighed w{std::make_unique<solver::detail::ColumnModel>(problem), {}, {}};
   auto& m = *w.model;
