@@ -11,7 +11,7 @@ namespace wf = wetfront::forcing;
 
 namespace {
 // Planted on day 10; stages 20, 30, 40, 20 days; harvest on day 120.
-wf::CropCoefficientCurve invented_crop() { return {10.0, {20.0, 30.0, 40.0, 20.0}, 0.30, 1.15, 0.40, 0.10}; }
+wf::CropCoefficientCurve invented_crop() { return {{10.0, {20.0, 30.0, 40.0, 20.0}}, 0.30, 1.15, 0.40, 0.10}; }
 }  // namespace
 
 TEST(CropCoefficient, StageBoundariesAndMidpoints) {
@@ -52,7 +52,7 @@ TEST(CropCoefficient, StagesAndChecks) {
 }
 
 TEST(PanToCropFactors, ConstantThroughEachStage) {
-  const wf::PanToCropFactors f{10.0, {20.0, 30.0, 40.0, 20.0}, 0.35, 0.60, 0.85, 0.55, 0.20};
+  const wf::PanToCropFactors f{{10.0, {20.0, 30.0, 40.0, 20.0}}, 0.35, 0.60, 0.85, 0.55, 0.20};
   EXPECT_DOUBLE_EQ(wf::pan_to_crop_factor_at(f, 0.0), 0.20);
   EXPECT_DOUBLE_EQ(wf::pan_to_crop_factor_at(f, 10.0), 0.35);
   EXPECT_DOUBLE_EQ(wf::pan_to_crop_factor_at(f, 45.0), 0.60);

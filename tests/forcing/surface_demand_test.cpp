@@ -22,7 +22,7 @@ wf::SurfaceDemandInputs invented_inputs() {
   wetfront::base::StepSeries irrigation{{0, 3.0, 3.25}, {0, 8.0, 0}};  // 2 cm in 6 hours
   in.water_inputs.push_back({irrigation, 10.0});
   in.pan_evaporation = {wetfront::base::StepSeries::constant(0.5), 10.0};
-  in.crop = wf::CropFromReference{0.8, {2.0, {2.0, 2.0, 2.0, 2.0}, 0.4, 1.2, 0.5, 0.2}};
+  in.crop = wf::CropFromReference{0.8, {{2.0, {2.0, 2.0, 2.0, 2.0}}, 0.4, 1.2, 0.5, 0.2}};
   in.split.leaf_area_index = {"leaf area index", {2.0, 6.0, 10.0}, {0.0, 3.0, 1.0}};
   in.root_depth_cm = {"root depth", {2.0, 6.0}, {5.0, 40.0}};
   return in;
@@ -70,7 +70,7 @@ TEST(SurfaceDemand, StepValuesFollowTheCurvesAtStepMiddles) {
 
 TEST(SurfaceDemand, PanToCropFactorsAndSoilCover) {
   auto in = invented_inputs();
-  in.crop = wf::PanToCropFactors{2.0, {2.0, 2.0, 2.0, 2.0}, 0.3, 0.6, 0.9, 0.6, 0.25};
+  in.crop = wf::PanToCropFactors{{2.0, {2.0, 2.0, 2.0, 2.0}}, 0.3, 0.6, 0.9, 0.6, 0.25};
   in.split.method = wf::CanopySplit::Method::soil_cover;
   in.split.soil_cover = {"soil cover fraction", {2.0, 6.0}, {0.0, 0.8}};
   const auto d = wf::surface_demand(in);

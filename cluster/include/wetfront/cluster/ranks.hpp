@@ -33,7 +33,7 @@ class Session {
   bool distributed() const { return size_ > 1; }
 
  private:
-  bool started_mpi_ = false;
+  [[maybe_unused]] bool started_mpi_ = false;  // read only by the MPI back end
   int rank_ = 0;
   int size_ = 1;
 };
