@@ -499,9 +499,8 @@ double ColumnModel::step_norm(std::span<const double> x, std::span<const double>
   const double* xs = x.data();
   const double* ws = weights.data();
   double sum[4] = {}, largest[4] = {};
-  if (cell_weights_.size() != n || x.size() != unknowns()) {  // not a step of this column: the plain RMS
-    for (std::size_t i = 0; i < x.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
-  } else if (uptake_cells_ == 0) {  // unknowns are the faces 0..n: cell i lies between x_i and x_(i+1)
+  const bool own_weights = cell_weights_.size() == n && x.size() == unknowns();  // else the plain RMS
+  if (own_weights && uptake_cells_ == 0) {  // unknowns are the faces 0..n: cell i lies between x_i and x_(i+1)
     std::size_t i = 0;
     for (; i + 4 <= n; i += 4)  // four running sums and maxima: one alone waits on each addition
       for (std::size_t k = 0; k < 4; ++k) {
@@ -518,7 +517,7 @@ double ColumnModel::step_norm(std::span<const double> x, std::span<const double>
     sum[1] += (xs[n] * ws[n]) * (xs[n] * ws[n]);
   } else {
     for (std::size_t i = 0; i < x.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
-    for (std::size_t i = 0; i < n; ++i) {
+    for (std::size_t i = 0; own_weights && i < n; ++i) {
       const double uptake = i < uptake_cells_ ? xs[uptake_index(i)] : 0.0;
       const double cell = (xs[face_index(i)] - xs[face_index(i + 1)] - uptake) * c[i];
       largest[0] = std::max(largest[0], cell * cell);

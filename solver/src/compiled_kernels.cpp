@@ -60,9 +60,13 @@ double max_norm(N_Vector x) {
 }
 double weighted_square_sum(N_Vector x, N_Vector w) {
   const auto xs = data(x), ws = data(w);
-  double sum = 0;
-  for (std::size_t i = 0; i < xs.size(); ++i) sum += (xs[i] * ws[i]) * (xs[i] * ws[i]);
-  return sum;
+  // Four running sums: one sum alone waits on each addition in turn.
+  double sum[4] = {};
+  std::size_t i = 0;
+  for (; i + 4 <= xs.size(); i += 4)
+    for (std::size_t k = 0; k < 4; ++k) sum[k] += (xs[i + k] * ws[i + k]) * (xs[i + k] * ws[i + k]);
+  for (; i < xs.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
+  return (sum[0] + sum[1]) + (sum[2] + sum[3]);
 }
 double weighted_square_sum_masked(N_Vector x, N_Vector w, N_Vector mask) {
   const auto xs = data(x), ws = data(w), ms = data(mask);
@@ -73,15 +77,8 @@ double weighted_square_sum_masked(N_Vector x, N_Vector w, N_Vector mask) {
 }
 thread_local const StepNorm* installed_norm = nullptr;  // ScopedStepNorm
 double wrms_norm(N_Vector x, N_Vector w) {
-  const auto xs = data(x), ws = data(w);
-  if (installed_norm) return installed_norm->norm(installed_norm->context, xs, ws);
-  // Four running sums: one sum alone waits on each addition in turn.
-  double sum[4] = {};
-  std::size_t i = 0;
-  for (; i + 4 <= xs.size(); i += 4)
-    for (std::size_t k = 0; k < 4; ++k) sum[k] += (xs[i + k] * ws[i + k]) * (xs[i + k] * ws[i + k]);
-  for (; i < xs.size(); ++i) sum[0] += (xs[i] * ws[i]) * (xs[i] * ws[i]);
-  return std::sqrt(((sum[0] + sum[1]) + (sum[2] + sum[3])) / static_cast<double>(xs.size()));
+  if (installed_norm) return installed_norm->norm(installed_norm->context, data(x), data(w));
+  return std::sqrt(weighted_square_sum(x, w) / static_cast<double>(NV_LENGTH_S(x)));
 }
 double wrms_norm_masked(N_Vector x, N_Vector w, N_Vector mask) {
   return std::sqrt(weighted_square_sum_masked(x, w, mask) / static_cast<double>(NV_LENGTH_S(x)));
